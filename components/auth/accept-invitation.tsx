@@ -1,0 +1,131 @@
+'use client';
+
+import { signIn, signOut } from 'next-auth/react';
+import { useRouter } from 'next/navigation';
+import { useState, type FormEvent } from 'react';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { TextField } from '@/components/ui/field';
+import { ApiError, apiFetch } from '@/lib/api/client';
+import { fieldErrorsFrom } from '@/lib/api/validation';
+import { acceptAsNewSchema } from '@/lib/crew/schemas';
+import type { FieldErrors } from '@/lib/errors';
+
+type Props = { token: string; email: string; accountExists: boolean; signedInAs: string | null };
+type Accepted = { accepted: { channelSlug: string } };
+
+export function AcceptInvitation({ token, email, accountExists, signedInAs }: Props) {
+  const router = useRouter();
+  const [fields, setFields] = useState<FieldErrors>({});
+  const [error, setError] = useState<string | null>(null);
+  const [pending, setPending] = useState(false);
+  const signedInAsInvitee = signedInAs?.toLowerCase() === email.toLowerCase();
+
+  function fail(err: unknown) {
+    setPending(false);
+    if (err instanceof ApiError) {
+      setFields(err.fields);
+      setError(err.message);
+    } else setError('Something went wrong. Try again.');
+  }
+
+  async function join(afterSignIn?: { password: string }) {
+    setPending(true);
+    setError(null);
+    try {
+      if (afterSignIn) {
+        const result = await signIn('credentials', { redirect: false, email, password: afterSignIn.password });
+        if (!result || result.error) {
+          setPending(false);
+          return setError('That password did not match, or there were too many tries. Wait 15 minutes and try again.');
+        }
+      }
+      const { accepted } = await apiFetch<Accepted>(`/api/invitations/${token}/accept`, { method: 'POST', body: {} });
+      router.push(`/c/${accepted.channelSlug}`);
+      router.refresh();
+    } catch (err) {
+      fail(err);
+    }
+  }
+
+  async function createAccount(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const parsed = acceptAsNewSchema.safeParse(Object.fromEntries(new FormData(event.currentTarget)));
+    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
+    setFields({});
+    setPending(true);
+    setError(null);
+    try {
+      const { accepted } = await apiFetch<Accepted>(`/api/invitations/${token}/accept`, { method: 'POST', body: parsed.data });
+      await signIn('credentials', { redirect: false, email, password: parsed.data.password });
+      router.push(`/c/${accepted.channelSlug}`);
+      router.refresh();
+    } catch (err) {
+      fail(err);
+    }
+  }
+
+  if (signedInAs && !signedInAsInvitee) {
+    return (
+      <div className="mt-6 space-y-4">
+        <Alert tone="attention">
+          You are signed in as <span className="font-mono">{signedInAs}</span>. This invitation is for{' '}
+          <span className="font-mono">{email}</span>.
+        </Alert>
+        <Button variant="secondary" onClick={() => signOut({ redirect: false }).then(() => router.refresh())}>
+          Sign out to continue
+        </Button>
+      </div>
+    );
+  }
+
+  if (signedInAsInvitee) {
+    return (
+      <div className="mt-6 space-y-4">
+        {error ? <Alert tone="attention">{error}</Alert> : null}
+        <Button className="w-full" disabled={pending} onClick={() => join()}>
+          {pending ? 'Joining…' : 'Join the channel'}
+        </Button>
+      </div>
+    );
+  }
+
+  if (accountExists) {
+    return (
+      <form
+        className="mt-6 space-y-4"
+        noValidate
+        onSubmit={(e) => {
+          e.preventDefault();
+          void join({ password: String(new FormData(e.currentTarget).get('password') ?? '') });
+        }}
+      >
+        <p className="text-sm text-ink-soft">You already have a Kerfline account. Sign in to join.</p>
+        {error ? <Alert tone="attention">{error}</Alert> : null}
+        <TextField label="Password" name="password" type="password" autoComplete="current-password" required />
+        <Button type="submit" className="w-full" disabled={pending}>
+          {pending ? 'Joining…' : 'Sign in and join'}
+        </Button>
+      </form>
+    );
+  }
+
+  return (
+    <form onSubmit={createAccount} className="mt-6 space-y-4" noValidate>
+      {error ? <Alert tone="attention">{error}</Alert> : null}
+      <TextField label="Your name" name="name" autoComplete="name" required error={fields.name} />
+      <TextField
+        label="Choose a password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        required
+        hint="At least 10 characters."
+        error={fields.password}
+      />
+      <Button type="submit" className="w-full" disabled={pending}>
+        {pending ? 'Joining…' : 'Create account and join'}
+      </Button>
+    </form>
+  );
+}

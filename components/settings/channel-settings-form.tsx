@@ -1,0 +1,55 @@
+'use client';
+
+import { useMutation } from '@tanstack/react-query';
+import { useRouter } from 'next/navigation';
+import { useState, type FormEvent } from 'react';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { TextField } from '@/components/ui/field';
+import { ApiError, apiFetch } from '@/lib/api/client';
+import { fieldErrorsFrom } from '@/lib/api/validation';
+import { channelSettingsSchema, type ChannelDto, type ChannelSettingsInput } from '@/lib/channels/schemas';
+import type { FieldErrors } from '@/lib/errors';
+
+export function ChannelSettingsForm({ channel }: { channel: ChannelDto }) {
+  const router = useRouter();
+  const [fields, setFields] = useState<FieldErrors>({});
+  const save = useMutation({
+    mutationFn: (input: ChannelSettingsInput) =>
+      apiFetch<{ channel: ChannelDto }>(`/api/channels/${channel.slug}`, { method: 'PATCH', body: input }),
+    onSuccess: () => router.refresh(),
+    onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
+  });
+
+  function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const form = new FormData(event.currentTarget);
+    const raw = { name: String(form.get('name') ?? ''), speakingRateWpm: Number(form.get('speakingRateWpm')) };
+    const parsed = channelSettingsSchema.safeParse(raw);
+    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
+    setFields({});
+    save.mutate(parsed.data);
+  }
+
+  return (
+    <form onSubmit={onSubmit} className="mt-4 space-y-4" noValidate>
+      {save.isError ? <Alert tone="attention">{save.error.message}</Alert> : null}
+      {save.isSuccess ? <Alert tone="ok">Saved.</Alert> : null}
+      <TextField label="Channel name" name="name" defaultValue={channel.name} required error={fields.name} />
+      <TextField
+        label="Speaking rate (words per minute)"
+        name="speakingRateWpm"
+        type="number"
+        inputMode="numeric"
+        min={60}
+        max={300}
+        defaultValue={channel.speakingRateWpm}
+        error={fields.speakingRateWpm}
+        hint="Used for the runtime forecast. 150 is common for conversational delivery."
+      />
+      <Button type="submit" disabled={save.isPending}>
+        {save.isPending ? 'Saving…' : 'Save settings'}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,66 @@
+import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+
+const controlClasses =
+  'block w-full min-h-touch rounded-md border bg-white px-3 text-base text-ink placeholder:text-ink-faint aria-[invalid=true]:border-attention';
+
+type FieldProps = { label: string; error?: string | undefined; hint?: ReactNode };
+
+export function TextField({ label, error, hint, className = '', ...props }: FieldProps & InputHTMLAttributes<HTMLInputElement>) {
+  const id = useId();
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="mb-1 block text-sm font-bold">
+        {label}
+      </label>
+      <input
+        id={id}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
+        className={`${controlClasses} border-ink/30`}
+        {...props}
+      />
+      {hint && !error ? (
+        <p id={`${id}-hint`} className="mt-1 text-sm text-ink-faint">
+          {hint}
+        </p>
+      ) : null}
+      <FieldError id={`${id}-error`} error={error} />
+    </div>
+  );
+}
+
+export function SelectField({
+  label,
+  error,
+  children,
+  className = '',
+  ...props
+}: FieldProps & SelectHTMLAttributes<HTMLSelectElement> & { children: ReactNode }) {
+  const id = useId();
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="mb-1 block text-sm font-bold">
+        {label}
+      </label>
+      <select
+        id={id}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className={`${controlClasses} border-ink/30`}
+        {...props}
+      >
+        {children}
+      </select>
+      <FieldError id={`${id}-error`} error={error} />
+    </div>
+  );
+}
+
+function FieldError({ id, error }: { id: string; error?: string | undefined }) {
+  if (!error) return null;
+  return (
+    <p id={id} className="mt-1 text-sm font-bold text-attention-ink">
+      {error}
+    </p>
+  );
+}

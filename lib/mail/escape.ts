@@ -1,0 +1,5 @@
+const entities: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => entities[c] ?? c);
+}

@@ -1,0 +1,27 @@
+import 'server-only';
+import nodemailer, { type Transporter } from 'nodemailer';
+
+export type Mail = { to: string; subject: string; text: string; html: string };
+
+const globalForMail = globalThis as unknown as { kerflineMailer?: Transporter };
+
+function transporter(): Transporter {
+  if (globalForMail.kerflineMailer) return globalForMail.kerflineMailer;
+  const url = new URL(process.env.SMTP_URL ?? 'smtp://127.0.0.1:1025');
+  const local = url.hostname === '127.0.0.1' || url.hostname === 'localhost';
+  globalForMail.kerflineMailer = nodemailer.createTransport({
+    host: url.hostname,
+    port: Number(url.port || 25),
+    secure: url.protocol === 'smtps:',
+    // The local mail catcher speaks plain SMTP only.
+    ignoreTLS: local,
+    auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
+    connectionTimeout: 10_000,
+    greetingTimeout: 10_000,
+  });
+  return globalForMail.kerflineMailer;
+}
+
+export async function sendMail(mail: Mail): Promise<void> {
+  await transporter().sendMail({ from: process.env.MAIL_FROM ?? 'Kerfline <no-reply@kerfline.local>', ...mail });
+}

@@ -1,0 +1,41 @@
+import 'server-only';
+import { db } from '@/db/client';
+import { hashPassword } from '@/lib/auth/password';
+import { createChannelWithHost } from '@/lib/channels/queries';
+import type { ChannelDto } from '@/lib/channels/schemas';
+import { conflict } from '@/lib/errors';
+import type { SignUpInput, UserDto } from './schemas';
+
+type UserRow = { id: string; email: string; name: string; password_hash: string };
+
+const toUserDto = (row: Pick<UserRow, 'id' | 'email' | 'name'>): UserDto => ({ id: row.id, email: row.email, name: row.name });
+
+export async function findUserById(id: string): Promise<UserDto | null> {
+  const row: UserRow | undefined = await db('users').where({ id }).first(['id', 'email', 'name']);
+  return row ? toUserDto(row) : null;
+}
+
+export async function findUserByEmail(email: string): Promise<UserDto | null> {
+  const row: UserRow | undefined = await db('users').where({ email }).first(['id', 'email', 'name']);
+  return row ? toUserDto(row) : null;
+}
+
+/** Only for checking a password; the hash never leaves lib/auth. */
+export async function findCredentialsByEmail(email: string): Promise<{ user: UserDto; passwordHash: string } | null> {
+  const row: UserRow | undefined = await db('users').where({ email }).first(['id', 'email', 'name', 'password_hash']);
+  return row ? { user: toUserDto(row), passwordHash: row.password_hash } : null;
+}
+
+export async function signUp(input: SignUpInput): Promise<{ user: UserDto; channel: ChannelDto }> {
+  const passwordHash = await hashPassword(input.password);
+  return db.transaction(async (trx) => {
+    const existing = await trx('users').where({ email: input.email }).first('id');
+    if (existing) throw conflict('An account with that e-mail already exists. Sign in instead.', { email: 'Already registered.' });
+    const [row] = await trx('users')
+      .insert({ email: input.email, name: input.name, password_hash: passwordHash })
+      .returning<UserRow[]>(['id', 'email', 'name']);
+    if (!row) throw new Error('user insert returned no row');
+    const channel = await createChannelWithHost(trx, input.channelName, row.id);
+    return { user: toUserDto(row), channel };
+  });
+}

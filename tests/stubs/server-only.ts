@@ -1,0 +1,2 @@
+// Vitest runs outside React's server condition; the real package would throw there.
+export {};

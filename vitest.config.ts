@@ -1,0 +1,29 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const root = fileURLToPath(new URL('.', import.meta.url));
+const alias = { '@': root, 'server-only': `${root}tests/stubs/server-only.ts` };
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', include: ['lib/**/*.test.ts', 'db/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'integration',
+          include: ['tests/integration/**/*.test.ts'],
+          environment: 'node',
+          setupFiles: ['tests/integration/setup.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 30_000,
+          env: { NODE_ENV: 'test' },
+        },
+      },
+    ],
+  },
+});

@@ -47,20 +47,28 @@ export async function listOpenInvitations(channelId: string): Promise<Invitation
   return rows.map((r) => toInvitationDto(r));
 }
 
-/** Locks the channel's host rows so two concurrent demotions cannot both pass the last-host check. */
+/**
+ * Crew changes of one channel take the channel row's lock first, so two concurrent demotions
+ * cannot both pass the last-host check and cannot deadlock on each other's membership rows.
+ */
+async function lockChannelCrew(trx: Knex.Transaction, channelId: string, actorId: string): Promise<void> {
+  await trx('channels').where({ id: channelId }).forUpdate().first('id');
+  // The actor's role is read again under the lock: a Host demoted a moment ago may no longer act.
+  const actor: { role: Role } | undefined = await trx('memberships').where({ channel_id: channelId, user_id: actorId }).first('role');
+  if (actor?.role !== 'host') throw forbidden();
+}
+
 async function assertNotLastHost(trx: Knex.Transaction, channelId: string, userId: string): Promise<void> {
-  const hosts: { user_id: string }[] = await trx('memberships')
-    .where({ channel_id: channelId, role: 'host' })
-    .forUpdate()
-    .select('user_id');
+  const hosts: { user_id: string }[] = await trx('memberships').where({ channel_id: channelId, role: 'host' }).select('user_id');
   if (hosts.length <= 1 && hosts.some((h) => h.user_id === userId)) {
     throw conflict('A channel needs at least one Host. Make someone else Host first.');
   }
 }
 
-export async function changeRole(channelId: string, userId: string, role: Role): Promise<CrewMemberDto> {
+export async function changeRole(channelId: string, actorId: string, userId: string, role: Role): Promise<CrewMemberDto> {
   await db.transaction(async (trx) => {
-    const current: { role: Role } | undefined = await trx('memberships').where({ channel_id: channelId, user_id: userId }).forUpdate().first('role');
+    await lockChannelCrew(trx, channelId, actorId);
+    const current: { role: Role } | undefined = await trx('memberships').where({ channel_id: channelId, user_id: userId }).first('role');
     if (!current) throw notFound('That crew member');
     if (current.role === 'host' && role !== 'host') await assertNotLastHost(trx, channelId, userId);
     await trx('memberships').where({ channel_id: channelId, user_id: userId }).update({ role, updated_at: trx.fn.now() });
@@ -70,9 +78,10 @@ export async function changeRole(channelId: string, userId: string, role: Role):
   return member;
 }
 
-export async function removeMember(channelId: string, userId: string): Promise<void> {
+export async function removeMember(channelId: string, actorId: string, userId: string): Promise<void> {
   await db.transaction(async (trx) => {
-    const current: { role: Role } | undefined = await trx('memberships').where({ channel_id: channelId, user_id: userId }).forUpdate().first('role');
+    await lockChannelCrew(trx, channelId, actorId);
+    const current: { role: Role } | undefined = await trx('memberships').where({ channel_id: channelId, user_id: userId }).first('role');
     if (!current) throw notFound('That crew member');
     if (current.role === 'host') await assertNotLastHost(trx, channelId, userId);
     await trx('memberships').where({ channel_id: channelId, user_id: userId }).delete();

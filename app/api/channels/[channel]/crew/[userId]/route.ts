@@ -4,10 +4,10 @@ import { changeRoleSchema, memberParamsSchema } from '@/lib/crew/schemas';
 
 export const PATCH = route(
   { params: memberParamsSchema, body: changeRoleSchema, channel: 'crew.manage' },
-  async ({ member, params, body }) => ({ member: await changeRole(member.channel.id, params.userId, body.role) }),
+  async ({ member, params, body }) => ({ member: await changeRole(member.channel.id, member.userId, params.userId, body.role) }),
 );
 
 export const DELETE = route({ params: memberParamsSchema, channel: 'crew.manage' }, async ({ member, params }) => {
-  await removeMember(member.channel.id, params.userId);
+  await removeMember(member.channel.id, member.userId, params.userId);
   return noContent();
 });

@@ -1,0 +1,20 @@
+import type { Knex } from 'knex';
+import * as foundation from './20261201000000_foundation';
+
+type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
+
+// Listed here rather than read from disk, so the same migrations run under tsx, Vitest and Next alike.
+// Add a new migration file and append it below; names sort by their timestamp prefix.
+const migrations: Record<string, Migration> = {
+  '20261201000000_foundation': foundation,
+};
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(migrations).sort(),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => {
+    const migration = migrations[name];
+    if (!migration) throw new Error(`Unknown migration ${name}`);
+    return migration;
+  },
+};

@@ -1,0 +1,56 @@
+import fc from 'fast-check';
+import { beforeAll, describe, expect, it } from 'vitest';
+import * as channelRoute from '@/app/api/channels/[channel]/route';
+import * as memberRoute from '@/app/api/channels/[channel]/crew/[userId]/route';
+import * as resendRoute from '@/app/api/channels/[channel]/invitations/[invitationId]/resend/route';
+import * as invitationsRoute from '@/app/api/channels/[channel]/invitations/route';
+import * as channelsRoute from '@/app/api/channels/route';
+import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
+import * as signUpRoute from '@/app/api/sign-up/route';
+import { createInvitation } from '@/lib/crew/queries';
+import { call, makeCrew, uniqueEmail } from './helpers';
+
+// Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
+const nearMiss = fc.dictionary(
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', '__proto__', 'constructor', 'x'),
+  fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null)),
+);
+const rawBody = fc.oneof(
+  fc.jsonValue().map((v) => JSON.stringify(v) ?? 'null'),
+  nearMiss.map((v) => JSON.stringify(v)),
+  fc.string({ maxLength: 200 }),
+  fc.constantFrom('', '{', '[]', 'null', '"str"', '{"a":1}{', '\u0000', '{"email":"\ud800"}'),
+);
+const contentType = fc.constantFrom('application/json', 'application/json; charset=utf-8', 'text/plain', '');
+
+let crew: Awaited<ReturnType<typeof makeCrew>>;
+let invitationId: string;
+beforeAll(async () => {
+  crew = await makeCrew();
+  invitationId = (await createInvitation(crew.channel.id, crew.host.id, { email: uniqueEmail('fuzz'), role: 'editor' })).invitation.id;
+});
+
+const targets = () => [
+  { name: 'sign-up', fn: signUpRoute.POST, method: 'POST', params: {} },
+  { name: 'create channel', fn: channelsRoute.POST, method: 'POST', params: {} },
+  { name: 'channel settings', fn: channelRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug } },
+  { name: 'change role', fn: memberRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, userId: crew.editor.id } },
+  { name: 'invite', fn: invitationsRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },
+  { name: 'resend', fn: resendRoute.POST, method: 'POST', params: { channel: crew.channel.slug, invitationId } },
+  { name: 'accept', fn: acceptRoute.POST, method: 'POST', params: { token: 'A'.repeat(43) } },
+];
+
+describe('no body makes a 500', () => {
+  it('for every route with a body', async () => {
+    for (const t of targets()) {
+      await fc.assert(
+        fc.asyncProperty(rawBody, contentType, async (body, type) => {
+          const res = await call(t.fn, t.method, { as: crew.host, params: t.params, rawBody: body, headers: type ? { 'content-type': type } : {} });
+          expect(res.status, `${t.name}: ${body}`).toBeLessThan(500);
+          if (res.status >= 400) expect(typeof res.json.error?.message).toBe('string');
+        }),
+        { numRuns: 40 },
+      );
+    }
+  });
+});

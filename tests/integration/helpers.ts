@@ -1,0 +1,91 @@
+import { randomUUID } from 'node:crypto';
+import { encode } from 'next-auth/jwt';
+import { NextRequest } from 'next/server';
+import { db } from '@/db/client';
+import { hashPassword } from '@/lib/auth/password';
+import type { Role } from '@/lib/auth/policy';
+import { createChannel } from '@/lib/channels/queries';
+import type { ChannelDto } from '@/lib/channels/schemas';
+import type { UserDto } from '@/lib/users/schemas';
+
+export const BASE = process.env.APP_URL ?? 'http://127.0.0.1:3100';
+export const PASSWORD = 'correct-horse-battery';
+
+export const uniqueEmail = (label = 'person') => `${label}-${randomUUID().slice(0, 8)}@it.kerfline.test`;
+
+export async function makeUser(label = 'person', password = PASSWORD): Promise<UserDto> {
+  const email = uniqueEmail(label);
+  const [row] = await db('users')
+    .insert({ email, name: `Test ${label}`, password_hash: await hashPassword(password) })
+    .returning<UserDto[]>(['id', 'email', 'name']);
+  if (!row) throw new Error('no user');
+  return row;
+}
+
+export async function addMember(channel: ChannelDto, user: UserDto, role: Role): Promise<void> {
+  await db('memberships').insert({ channel_id: channel.id, user_id: user.id, role });
+}
+
+/** A channel with one person in each role. */
+export async function makeCrew() {
+  const host = await makeUser('host');
+  const shopHand = await makeUser('shop');
+  const editor = await makeUser('editor');
+  const channel = await createChannel(`Bench ${randomUUID().slice(0, 6)}`, host.id);
+  await addMember(channel, shopHand, 'shop_hand');
+  await addMember(channel, editor, 'editor');
+  return { channel, host, shopHand, editor };
+}
+
+/** A real next-auth session cookie, signed with the same secret the app uses. */
+export async function sessionCookie(user: UserDto): Promise<string> {
+  const token = await encode({ token: { sub: user.id, email: user.email, name: user.name }, secret: process.env.NEXTAUTH_SECRET ?? '' });
+  return `next-auth.session-token=${token}`;
+}
+
+type RouteFn = (req: NextRequest, ctx: { params: Promise<Record<string, string | string[] | undefined>> }) => Promise<Response>;
+
+export type CallOptions = {
+  params?: Record<string, string>;
+  as?: UserDto | null;
+  body?: unknown;
+  rawBody?: string;
+  headers?: Record<string, string>;
+  path?: string;
+};
+
+export async function call(fn: RouteFn, method: string, opts: CallOptions = {}) {
+  const headers = new Headers(opts.headers);
+  if (opts.as) headers.set('cookie', await sessionCookie(opts.as));
+  let body: string | undefined = opts.rawBody;
+  if (opts.body !== undefined) {
+    body = JSON.stringify(opts.body);
+    if (!headers.has('content-type')) headers.set('content-type', 'application/json');
+  }
+  const req = new NextRequest(new URL(opts.path ?? '/api/test', BASE), { method, headers, body });
+  const res = await fn(req, { params: Promise.resolve(opts.params ?? {}) });
+  const text = await res.text();
+  const json: unknown = text ? JSON.parse(text) : null;
+  return { status: res.status, json: json as Record<string, unknown> & { error?: { code: string; message: string; fields?: Record<string, string> } } };
+}
+
+type CaughtMail = { subject: string; text: string; html: string; to: { address: string }[] };
+
+/** Reads the local mail catcher (maildev's REST API) until a message to `address` arrives. */
+export async function waitForMail(address: string, timeoutMs = 10_000, atLeast = 1): Promise<CaughtMail[]> {
+  const url = `${process.env.MAILDEV_WEB_URL ?? 'http://127.0.0.1:1081'}/api/email`;
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const all = (await (await fetch(url)).json()) as CaughtMail[];
+    const mine = all.filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()));
+    if (mine.length >= atLeast) return mine;
+    if (Date.now() > deadline) throw new Error(`no mail for ${address}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+export function tokenFromMail(mail: CaughtMail): string {
+  const match = /\/invite\/([A-Za-z0-9_-]+)/.exec(mail.text);
+  if (!match?.[1]) throw new Error('no invitation link in mail');
+  return match[1];
+}

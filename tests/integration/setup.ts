@@ -1,0 +1,11 @@
+import { afterAll } from 'vitest';
+import { db } from '@/db/client';
+
+if (!process.env.DATABASE_URL?.includes('_it')) {
+  throw new Error('Integration tests need DATABASE_URL pointing at the integration database; run them through `npm test`.');
+}
+if (!process.env.NEXTAUTH_SECRET) throw new Error('NEXTAUTH_SECRET must be set for integration tests.');
+
+afterAll(async () => {
+  await db.destroy();
+});

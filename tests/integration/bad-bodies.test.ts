@@ -30,7 +30,7 @@ beforeAll(async () => {
   invitationId = (await createInvitation(crew.channel.id, crew.host.id, { email: uniqueEmail('fuzz'), role: 'editor' })).invitation.id;
 });
 
-const targets = () => [
+const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: string; params: Record<string, string> }[] => [
   { name: 'sign-up', fn: signUpRoute.POST, method: 'POST', params: {} },
   { name: 'create channel', fn: channelsRoute.POST, method: 'POST', params: {} },
   { name: 'channel settings', fn: channelRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug } },

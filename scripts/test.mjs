@@ -1,0 +1,161 @@
+#!/usr/bin/env node
+// `npm test`: typecheck, lint, Vitest (unit + integration) and Playwright, each run even when an
+// earlier one failed; ends with one line `N passed, N failed[, N skipped]` and a matching exit code.
+//   --unit     typecheck, lint and the Vitest `unit` project only (no database, no browser)
+//   --no-e2e   everything but Playwright (also KERFLINE_SKIP_E2E=1)
+import fs from 'node:fs';
+import path from 'node:path';
+import { ensureBuild } from './lib/build.mjs';
+import { START_DEB_PACKAGES, TEST_DEB_PACKAGES, ensureDebPackages, ensureNodeModules } from './lib/install.mjs';
+import { addCleanup, handleSignals, teardown } from './lib/lifecycle.mjs';
+import { TEST_MAIL_PORTS, ensureMaildev } from './lib/maildev.mjs';
+import { databaseUrl, ensureDataRoot, ensurePostgres, recreateDatabase, runDbSetup } from './lib/postgres.mjs';
+import { ROOT, childEnv, log, run, warn } from './lib/proc.mjs';
+import { randomSecret } from './lib/secret.mjs';
+import { addCounts, emptyCounts, playwrightCounts, runnerCounts, summaryLine, vitestCounts } from './lib/summary.mjs';
+
+const args = process.argv.slice(2);
+const UNIT_ONLY = args.includes('--unit');
+const SKIP_E2E = UNIT_ONLY || args.includes('--no-e2e') || process.env.KERFLINE_SKIP_E2E === '1';
+const E2E_PORT = Number(process.env.E2E_PORT || 3100);
+const APP_URL = `http://127.0.0.1:${E2E_PORT}`;
+const REPORTS = path.join(ROOT, '.reports');
+const VITEST_REPORT = path.join(REPORTS, 'vitest.json');
+const PLAYWRIGHT_REPORT = path.join(REPORTS, 'playwright.json');
+const MAIL_FROM = 'Kerfline <no-reply@kerfline.local>';
+const bin = (rel) => path.join(ROOT, 'node_modules', rel);
+
+const total = emptyCounts();
+const failedSteps = [];
+
+function fail(step, count = 1) {
+  failedSteps.push(step);
+  total.failed += count;
+}
+
+function heading(title) {
+  process.stdout.write(`\n===== ${title} =====\n`);
+}
+
+// Tools pick their own NODE_ENV (Vitest: test); an inherited one would confuse them.
+const toolEnv = (extra = {}) => childEnv({ NODE_ENV: undefined, ...extra });
+
+/** Installs, then brings up PostgreSQL with fresh test databases and the test mail catcher. */
+async function setUpServices() {
+  const pg = await ensurePostgres();
+  addCleanup('PostgreSQL', pg.stop);
+  const urls = { it: databaseUrl(pg.port, 'kerfline_it'), e2e: databaseUrl(pg.port, 'kerfline_e2e') };
+  for (const name of ['kerfline_it', 'kerfline_e2e']) {
+    log(`recreating database ${name}`);
+    await recreateDatabase(pg, name);
+  }
+  await runDbSetup(urls.it);
+  await runDbSetup(urls.e2e);
+  const mail = await ensureMaildev({ ...TEST_MAIL_PORTS, logFile: path.join(ROOT, '.data', 'maildev-test.log') });
+  addCleanup('maildev', mail.stop);
+  log(`test mail catcher: ${mail.webUrl}`);
+  return { urls, mail };
+}
+
+function testEnv(dbUrl, services, secret) {
+  return {
+    DATABASE_URL: dbUrl,
+    SMTP_URL: services.mail.smtpUrl,
+    MAILDEV_WEB_URL: services.mail.webUrl,
+    NEXTAUTH_SECRET: secret,
+    NEXTAUTH_URL: APP_URL,
+    APP_URL,
+    MAIL_FROM,
+  };
+}
+
+async function typecheck() {
+  heading('typecheck (tsc --noEmit)');
+  // Route types and next-env.d.ts come from Next; without them a fresh clone fails tsc.
+  const typegen = await run(process.execPath, [bin('next/dist/bin/next'), 'typegen'], { env: toolEnv(), capture: true });
+  if (typegen.code !== 0) warn(`next typegen failed (exit ${typegen.code}); typechecking anyway\n${typegen.stderr.trim()}`);
+  const result = await run(process.execPath, [bin('typescript/bin/tsc'), '--noEmit'], { env: toolEnv() });
+  if (result.code !== 0) fail('typecheck');
+}
+
+async function lint() {
+  heading('lint (eslint --max-warnings=0 .)');
+  const result = await run(process.execPath, [bin('eslint/bin/eslint.js'), '--max-warnings=0', '.'], { env: toolEnv() });
+  if (result.code !== 0) fail('lint');
+}
+
+async function vitest(env, { unitOnly }) {
+  heading(unitOnly ? 'vitest (unit project)' : 'vitest');
+  const vitestArgs = ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.relative(ROOT, VITEST_REPORT)}`];
+  if (unitOnly) vitestArgs.push('--project', 'unit');
+  const result = await run(process.execPath, [bin('vitest/vitest.mjs'), ...vitestArgs], { env: toolEnv(env) });
+  const counts = runnerCounts(VITEST_REPORT, vitestCounts, result.code);
+  if (counts.missing) warn('Vitest wrote no report: counted as 1 failed');
+  addCounts(total, counts);
+  if (counts.failed) failedSteps.push('vitest');
+}
+
+async function e2e(env) {
+  heading('build (next build)');
+  const build = await ensureBuild({ env });
+  if (!build.ok) {
+    fail('build (end-to-end tests not run)');
+    return;
+  }
+  heading('playwright');
+  const result = await run(process.execPath, [bin('@playwright/test/cli.js'), 'test'], {
+    env: toolEnv({ ...env, E2E_PORT: String(E2E_PORT) }),
+  });
+  const counts = runnerCounts(PLAYWRIGHT_REPORT, playwrightCounts, result.code);
+  if (counts.missing) warn('Playwright wrote no report: counted as 1 failed');
+  addCounts(total, counts);
+  if (counts.failed) failedSteps.push('playwright');
+}
+
+async function install() {
+  await ensureDebPackages(SKIP_E2E ? START_DEB_PACKAGES : TEST_DEB_PACKAGES);
+  await ensureNodeModules();
+  ensureDataRoot();
+}
+
+function resetReports() {
+  fs.mkdirSync(REPORTS, { recursive: true });
+  for (const file of [VITEST_REPORT, PLAYWRIGHT_REPORT]) fs.rmSync(file, { force: true });
+}
+
+async function main() {
+  handleSignals({ exitCode: 130 });
+  await install();
+  resetReports();
+  const secret = randomSecret();
+  let services = null;
+  if (!UNIT_ONLY) {
+    try {
+      services = await setUpServices();
+    } catch (error) {
+      warn(`test services could not be set up: ${error.message}`);
+      fail('services (integration and end-to-end tests not run)');
+    }
+  }
+  await typecheck();
+  await lint();
+  if (services) await vitest(testEnv(services.urls.it, services, secret), { unitOnly: false });
+  else await vitest({ NEXTAUTH_SECRET: secret, NEXTAUTH_URL: APP_URL, APP_URL, MAIL_FROM }, { unitOnly: true });
+  if (services && !SKIP_E2E) await e2e({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
+}
+
+async function finish(code) {
+  await teardown();
+  if (failedSteps.length) process.stdout.write(`\nFailed: ${failedSteps.join(', ')}\n`);
+  process.stdout.write(`${summaryLine(total)}\n`);
+  process.exit(code || (total.failed > 0 ? 1 : 0));
+}
+
+main().then(
+  () => finish(0),
+  async (error) => {
+    process.stderr.write(`\nkerfline> ${error.stack ?? error}\n`);
+    if (total.failed === 0) total.failed = 1;
+    await finish(1);
+  },
+);

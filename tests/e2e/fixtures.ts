@@ -1,0 +1,43 @@
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test as base, type Page } from '@playwright/test';
+import accounts from '../../db/seeds/demo-accounts.json';
+
+export const demo = {
+  host: accounts.find((a) => a.role === 'host')!,
+  shopHand: accounts.find((a) => a.role === 'shop_hand')!,
+  editor: accounts.find((a) => a.role === 'editor')!,
+};
+export const DEMO_SLUG = 'tallowmere-woodshop';
+
+/** Fails on serious or critical axe-core violations of the page as it is now. */
+export async function expectAccessible(page: Page) {
+  const results = await new AxeBuilder({ page }).analyze();
+  const bad = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+  expect(bad.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+}
+
+export async function signIn(page: Page, account: { email: string; password: string }) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(account.email);
+  await page.getByLabel('Password').fill(account.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/c\/[a-z0-9-]+$/);
+}
+
+type CaughtMail = { subject: string; text: string; to: { address: string }[] };
+
+export async function waitForMail(address: string): Promise<CaughtMail> {
+  const url = `${process.env.MAILDEV_WEB_URL ?? 'http://127.0.0.1:1081'}/api/email`;
+  let found: CaughtMail | undefined;
+  await expect
+    .poll(async () => {
+      const all = (await (await fetch(url)).json()) as CaughtMail[];
+      found = all.find((m) => m.to.some((t) => t.address === address));
+      return Boolean(found);
+    }, { timeout: 15_000 })
+    .toBe(true);
+  return found!;
+}
+
+export const test = base;
+export { expect };

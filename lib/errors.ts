@@ -65,6 +65,8 @@ function fromPgError(err: PgError): AppError | null {
       return new AppError('conflict', 'That already exists.');
     case '23503':
       return new AppError('conflict', 'That refers to something that no longer exists.');
+    case '23514':
+      return new AppError('bad_request', 'A value is outside what is allowed.');
     case '22P02':
     case '22001':
     case '22003':

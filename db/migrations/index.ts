@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import * as foundation from './20261201000000_foundation';
+import * as episodes from './20261201100000_episodes';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -7,6 +8,7 @@ type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Prom
 // Add a new migration file and append it below; names sort by their timestamp prefix.
 const migrations: Record<string, Migration> = {
   '20261201000000_foundation': foundation,
+  '20261201100000_episodes': episodes,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

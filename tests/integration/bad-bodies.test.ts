@@ -7,12 +7,18 @@ import * as invitationsRoute from '@/app/api/channels/[channel]/invitations/rout
 import * as channelsRoute from '@/app/api/channels/route';
 import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
 import * as signUpRoute from '@/app/api/sign-up/route';
+import * as episodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/route';
+import * as segmentsRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/segments/route';
+import * as episodesRoute from '@/app/api/channels/[channel]/episodes/route';
+import * as positionRoute from '@/app/api/channels/[channel]/segments/[segmentId]/position/route';
+import * as segmentRoute from '@/app/api/channels/[channel]/segments/[segmentId]/route';
 import { createInvitation } from '@/lib/crew/queries';
+import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew, uniqueEmail } from './helpers';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', '__proto__', 'constructor', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null)),
 );
 const rawBody = fc.oneof(
@@ -25,8 +31,13 @@ const contentType = fc.constantFrom('application/json', 'application/json; chars
 
 let crew: Awaited<ReturnType<typeof makeCrew>>;
 let invitationId: string;
+let episodeId: string;
+let segmentId: string;
 beforeAll(async () => {
   crew = await makeCrew();
+  const outlined = await makeOutlinedEpisode(crew);
+  episodeId = outlined.episode.id;
+  segmentId = outlined.segments[2]!.id;
   invitationId = (await createInvitation(crew.channel.id, crew.host.id, { email: uniqueEmail('fuzz'), role: 'editor' })).invitation.id;
 });
 
@@ -38,6 +49,11 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'invite', fn: invitationsRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },
   { name: 'resend', fn: resendRoute.POST, method: 'POST', params: { channel: crew.channel.slug, invitationId } },
   { name: 'accept', fn: acceptRoute.POST, method: 'POST', params: { token: 'A'.repeat(43) } },
+  { name: 'create episode', fn: episodesRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },
+  { name: 'update episode', fn: episodeRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, episodeId } },
+  { name: 'create segment', fn: segmentsRoute.POST, method: 'POST', params: { channel: crew.channel.slug, episodeId } },
+  { name: 'update segment', fn: segmentRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, segmentId } },
+  { name: 'move segment', fn: positionRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId } },
 ];
 
 describe('no body makes a 500', () => {
@@ -49,7 +65,7 @@ describe('no body makes a 500', () => {
           expect(res.status, `${t.name}: ${body}`).toBeLessThan(500);
           if (res.status >= 400) expect(typeof res.json.error?.message).toBe('string');
         }),
-        { numRuns: 40 },
+        { numRuns: 30 },
       );
     }
   });

@@ -6,26 +6,13 @@ import * as invitationRoute from '@/app/api/channels/[channel]/invitations/[invi
 import * as resendRoute from '@/app/api/channels/[channel]/invitations/[invitationId]/resend/route';
 import * as invitationsRoute from '@/app/api/channels/[channel]/invitations/route';
 import * as channelsRoute from '@/app/api/channels/route';
-import type { Role } from '@/lib/auth/policy';
 import { createInvitation } from '@/lib/crew/queries';
 import { addMember, call, makeCrew, makeUser, uniqueEmail } from './helpers';
-
-type Crew = Awaited<ReturnType<typeof makeCrew>>;
-type Fn = Parameters<typeof call>[0];
-type Case = {
-  name: string;
-  fn: Fn;
-  method: string;
-  allowed: Role[];
-  params: (c: Crew) => Promise<Record<string, string>> | Record<string, string>;
-  body?: (c: Crew) => unknown;
-  badBody?: unknown;
-  okStatus: number;
-};
+import { describeRouteMatrix, type Crew, type RouteCase } from './route-matrix';
 
 const invitationOf = async (c: Crew) => (await createInvitation(c.channel.id, c.host.id, { email: uniqueEmail('inv'), role: 'editor' })).invitation.id;
 
-const channelCases: Case[] = [
+const channelCases: RouteCase[] = [
   { name: 'GET channel', fn: channelRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: (c) => ({ channel: c.channel.slug }), okStatus: 200 },
   {
     name: 'PATCH channel settings',
@@ -78,40 +65,7 @@ const channelCases: Case[] = [
   },
 ];
 
-const asRole = (c: Crew, role: Role) => ({ host: c.host, shop_hand: c.shopHand, editor: c.editor })[role];
-
-describe.each(channelCases)('$name', (tc) => {
-  it('401 when signed out', async () => {
-    const c = await makeCrew();
-    const res = await call(tc.fn, tc.method, { params: await tc.params(c), body: tc.body?.(c) });
-    expect(res.status).toBe(401);
-    expect(res.json.error?.code).toBe('unauthenticated');
-  });
-
-  it('404 for someone of another channel', async () => {
-    const c = await makeCrew();
-    const other = await makeCrew();
-    const res = await call(tc.fn, tc.method, { as: other.host, params: await tc.params(c), body: tc.body?.(c) });
-    expect(res.status).toBe(404);
-  });
-
-  it('403 for each role without the capability, 2xx for each role with it', async () => {
-    for (const role of ['host', 'shop_hand', 'editor'] as const) {
-      const c = await makeCrew();
-      const res = await call(tc.fn, tc.method, { as: asRole(c, role), params: await tc.params(c), body: tc.body?.(c) });
-      expect(res.status, `${role}: ${JSON.stringify(res.json)}`).toBe(tc.allowed.includes(role) ? tc.okStatus : 403);
-    }
-  });
-
-  if (tc.badBody !== undefined) {
-    it('400 with field errors for bad input', async () => {
-      const c = await makeCrew();
-      const res = await call(tc.fn, tc.method, { as: c.host, params: await tc.params(c), body: tc.badBody });
-      expect(res.status).toBe(400);
-      expect(Object.keys(res.json.error?.fields ?? {}).length).toBeGreaterThan(0);
-    });
-  }
-});
+describeRouteMatrix(channelCases);
 
 describe('channels list and create', () => {
   it('401 signed out, lists only my channels, creates one with me as Host, 400 on a bad name', async () => {

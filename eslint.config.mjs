@@ -30,4 +30,9 @@ export default tseslint.config(
     },
   },
   { files: ['scripts/**/*.mjs', '*.mjs'], languageOptions: { globals: globals.node } },
+  {
+    files: ['**/*.cjs'],
+    languageOptions: { sourceType: 'commonjs', globals: globals.node },
+    rules: { '@typescript-eslint/no-require-imports': 'off' },
+  },
 );

@@ -22,7 +22,8 @@ for (const [label, account, roleLabel] of [
     }
     await expectAccessible(page);
     await nav.getByRole('link', { name: 'Episodes' }).click();
-    await expect(page.getByRole('heading', { name: 'No episodes yet' })).toBeVisible();
+    await expect(page.getByRole('heading', { level: 1, name: 'Episodes' })).toBeVisible();
+    await expect(page.getByRole('link', { name: 'One Stool, Three Ways' })).toBeVisible();
     await expectAccessible(page);
 
     await page.getByText(account.name, { exact: true }).first().click();

@@ -1,0 +1,22 @@
+import type { Metadata } from 'next';
+import { EpisodeDangerZone } from '@/components/episodes/episode-danger-zone';
+import { EpisodeForm } from '@/components/episodes/episode-form';
+import { PageHeader } from '@/components/ui/page-header';
+import { requireMember } from '@/lib/auth/session';
+import { orNotFound, uuidOr404 } from '@/lib/page-data';
+import { getBoard } from '@/lib/segments/queries';
+
+export const metadata: Metadata = { title: 'Edit episode' };
+
+export default async function EditEpisodePage({ params }: { params: Promise<{ channel: string; episodeId: string }> }) {
+  const { channel, episodeId } = await params;
+  const member = await requireMember(channel, 'episodes.edit');
+  const board = await orNotFound(getBoard(member, uuidOr404(episodeId)));
+  return (
+    <>
+      <PageHeader title={`Edit “${board.episode.title}”`} />
+      <EpisodeForm channelSlug={member.channel.slug} episode={board.episode} />
+      <EpisodeDangerZone channelSlug={member.channel.slug} episode={board.episode} segmentCount={board.segments.length} />
+    </>
+  );
+}

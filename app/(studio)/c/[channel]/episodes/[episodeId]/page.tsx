@@ -1,0 +1,64 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { RunningOrderBoard } from '@/components/board/running-order-board';
+import { StarterButton } from '@/components/episodes/starter-button';
+import { buttonClasses } from '@/components/ui/button';
+import { requireMember } from '@/lib/auth/session';
+import { stageLabels } from '@/lib/episodes/schemas';
+import { orNotFound, uuidOr404 } from '@/lib/page-data';
+import { formatDuration } from '@/lib/runtime';
+import { getBoard } from '@/lib/segments/queries';
+
+export const metadata: Metadata = { title: 'Running order' };
+
+export default async function EpisodePage({ params }: { params: Promise<{ channel: string; episodeId: string }> }) {
+  const { channel, episodeId } = await params;
+  const member = await requireMember(channel);
+  const board = await orNotFound(getBoard(member, uuidOr404(episodeId)));
+  const { episode } = board;
+  const base = `/c/${member.channel.slug}/episodes`;
+  return (
+    <>
+      <nav aria-label="Breadcrumb" className="mb-2 text-sm">
+        <Link href={base} className="text-blueprint underline">
+          Episodes
+        </Link>
+      </nav>
+      <header className="mb-6 flex flex-wrap items-start justify-between gap-3 border-b border-paper-edge pb-4">
+        <div>
+          <h1 className="text-2xl font-bold tracking-tight">{episode.title}</h1>
+          {episode.premise ? <p className="mt-1 text-ink-soft">{episode.premise}</p> : null}
+          <dl className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-sm">
+            <div className="flex gap-1">
+              <dt className="text-ink-faint">Stage</dt>
+              <dd className="font-bold">{stageLabels[episode.stage]}</dd>
+            </div>
+            <div className="flex gap-1">
+              <dt className="text-ink-faint">Target</dt>
+              <dd className="font-mono">{episode.targetSeconds !== null ? formatDuration(episode.targetSeconds) : 'not set'}</dd>
+            </div>
+            <div className="flex gap-1">
+              <dt className="text-ink-faint">Shoot</dt>
+              <dd className="font-mono">{episode.shootDate ?? '—'}</dd>
+            </div>
+            <div className="flex gap-1">
+              <dt className="text-ink-faint">Publish</dt>
+              <dd className="font-mono">{episode.publishDate ?? '—'}</dd>
+            </div>
+          </dl>
+        </div>
+        {board.canEdit ? (
+          <Link href={`${base}/${episode.id}/edit`} className={buttonClasses('secondary')}>
+            Edit episode
+          </Link>
+        ) : null}
+      </header>
+      {board.canEdit && board.segments.length === 0 ? (
+        <div className="mb-6">
+          <StarterButton channelSlug={member.channel.slug} episodeId={episode.id} />
+        </div>
+      ) : null}
+      <RunningOrderBoard channelSlug={member.channel.slug} initialBoard={board} />
+    </>
+  );
+}

@@ -1,0 +1,90 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { ScriptEditor } from '@/components/script/script-editor';
+import { ScriptView } from '@/components/script/script-view';
+import { ActionTimeForm } from '@/components/segments/action-time-form';
+import { can } from '@/lib/auth/policy';
+import { requireMember } from '@/lib/auth/session';
+import { findEpisode } from '@/lib/episodes/queries';
+import { orNotFound, uuidOr404 } from '@/lib/page-data';
+import { formatDuration, spokenSeconds } from '@/lib/runtime';
+import { findSegment } from '@/lib/segments/queries';
+import { kindLabels } from '@/lib/segments/schemas';
+import { getScript } from '@/lib/segments/script-queries';
+
+export const metadata: Metadata = { title: 'Segment' };
+
+type Params = { channel: string; episodeId: string; segmentId: string };
+
+export default async function SegmentPage({ params }: { params: Promise<Params> }) {
+  const { channel, episodeId, segmentId } = await params;
+  const member = await requireMember(channel);
+  const [episode, segment, script] = await orNotFound(
+    Promise.all([
+      findEpisode(member.channel.id, uuidOr404(episodeId)),
+      findSegment(member.channel.id, uuidOr404(segmentId)),
+      getScript(member.channel.id, segmentId),
+    ]),
+  );
+  if (segment.episodeId !== episode.id) notFound();
+  const canWrite = can(member.role, 'scripts.write');
+  const spoken = spokenSeconds(segment.wordCount, member.channel.speakingRateWpm);
+  const base = `/c/${member.channel.slug}/episodes/${episode.id}`;
+  return (
+    <>
+      <nav aria-label="Breadcrumb" className="mb-2 text-sm">
+        <Link href={`/c/${member.channel.slug}/episodes`} className="text-blueprint underline">
+          Episodes
+        </Link>
+        <span aria-hidden="true" className="px-2 text-ink-faint">
+          /
+        </span>
+        <Link href={base} className="text-blueprint underline">
+          {episode.title}
+        </Link>
+      </nav>
+      <header className="mb-6 border-b border-paper-edge pb-4">
+        <p className="text-sm font-bold uppercase tracking-wide text-ink-faint">
+          {kindLabels[segment.kind]}
+          {segment.level ? ` · Level ${segment.level} · ${episode.levelLabels[segment.level - 1]}` : ''}
+        </p>
+        <h1 className="text-2xl font-bold tracking-tight">{segment.title}</h1>
+        <dl className="mt-3 grid max-w-xl grid-cols-2 gap-3 text-sm sm:grid-cols-4">
+          <Stat label="Words" value={String(segment.wordCount)} />
+          <Stat label="Spoken" value={formatDuration(spoken)} />
+          <Stat label="Action" value={formatDuration(segment.actionSeconds)} />
+          <Stat label="Total" value={formatDuration(spoken + segment.actionSeconds)} />
+        </dl>
+        <p className="mt-2 text-xs text-ink-faint">Spoken time at {member.channel.speakingRateWpm} words per minute.</p>
+      </header>
+      {can(member.role, 'episodes.edit') ? (
+        <section aria-label="Action time" className="mb-6">
+          <ActionTimeForm channelSlug={member.channel.slug} segment={segment} />
+        </section>
+      ) : null}
+      <section aria-labelledby="script-heading">
+        <h2 id="script-heading" className="mb-3 text-lg font-bold">
+          Script
+        </h2>
+        {canWrite ? (
+          <ScriptEditor channelSlug={member.channel.slug} segmentId={segment.id} initialDoc={script.doc} initialVersion={script.version} />
+        ) : (
+          <div className="rounded-card border border-paper-edge bg-white/70 p-5">
+            <p className="mb-3 text-xs text-ink-faint">Read-only: only a Host writes scripts.</p>
+            <ScriptView doc={script.doc} />
+          </div>
+        )}
+      </section>
+    </>
+  );
+}
+
+function Stat({ label, value }: { label: string; value: string }) {
+  return (
+    <div className="rounded-md bg-paper-deep/70 px-3 py-2">
+      <dt className="text-xs text-ink-faint">{label}</dt>
+      <dd className="font-mono text-base">{value}</dd>
+    </div>
+  );
+}

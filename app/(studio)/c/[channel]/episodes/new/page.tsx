@@ -1,0 +1,16 @@
+import type { Metadata } from 'next';
+import { EpisodeForm } from '@/components/episodes/episode-form';
+import { PageHeader } from '@/components/ui/page-header';
+import { requireMember } from '@/lib/auth/session';
+
+export const metadata: Metadata = { title: 'New episode' };
+
+export default async function NewEpisodePage({ params }: { params: Promise<{ channel: string }> }) {
+  const member = await requireMember((await params).channel, 'episodes.edit');
+  return (
+    <>
+      <PageHeader title="New episode" />
+      <EpisodeForm channelSlug={member.channel.slug} />
+    </>
+  );
+}

@@ -1,0 +1,1 @@
+// Stands in for 'server-only' in benchmarks.

@@ -1,0 +1,75 @@
+'use client';
+
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { apiFetch } from '@/lib/api/client';
+import { reorderBoard } from '@/lib/segments/order';
+import type { BoardDto, CreateSegmentInput, SegmentDto, UpdateSegmentInput } from '@/lib/segments/schemas';
+
+export const boardKey = (slug: string, episodeId: string) => ['board', slug, episodeId] as const;
+const moveKey = (slug: string, episodeId: string) => ['board', slug, episodeId, 'move'] as const;
+
+export function useBoard(slug: string, initialBoard: BoardDto) {
+  return useQuery({
+    queryKey: boardKey(slug, initialBoard.episode.id),
+    queryFn: () => apiFetch<BoardDto>(`/api/channels/${slug}/episodes/${initialBoard.episode.id}/board`),
+    initialData: initialBoard,
+  });
+}
+
+export type MoveVariables = { segmentId: string; afterId: string | null; title: string };
+
+export function useMoveSegment(slug: string, episodeId: string) {
+  const qc = useQueryClient();
+  const key = boardKey(slug, episodeId);
+  return useMutation({
+    mutationKey: moveKey(slug, episodeId),
+    mutationFn: ({ segmentId, afterId }: MoveVariables) =>
+      apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/segments/${segmentId}/position`, { method: 'PUT', body: { afterId } }),
+    // Kept synchronous on purpose: the cache must hold the new order before React paints the drop,
+    // otherwise the card jumps back to its old place for a frame. Cancelling first (it reverts
+    // synchronously) stops a refetch in flight from overwriting the optimistic order.
+    onMutate: ({ segmentId, afterId }: MoveVariables) => {
+      void qc.cancelQueries({ queryKey: key, exact: true });
+      const previous = qc.getQueryData<BoardDto>(key);
+      if (previous) qc.setQueryData<BoardDto>(key, reorderBoard(previous, segmentId, afterId));
+      return { previous };
+    },
+    onError: (_err, _vars, context) => {
+      if (context?.previous) qc.setQueryData<BoardDto>(key, context.previous);
+    },
+    onSettled: () => {
+      // With several moves in flight, only the last one refetches, so an early answer cannot undo a later move.
+      if (qc.isMutating({ mutationKey: moveKey(slug, episodeId) }) > 1) return;
+      return qc.invalidateQueries({ queryKey: key, exact: true });
+    },
+  });
+}
+
+// Returning the invalidation from onSettled keeps the mutation pending until the fresh board
+// (with the server's forecast) is in, so buttons do not re-enable over stale cards.
+
+export function useAddSegment(slug: string, episodeId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateSegmentInput) =>
+      apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/episodes/${episodeId}/segments`, { method: 'POST', body: input }),
+    onSettled: () => qc.invalidateQueries({ queryKey: boardKey(slug, episodeId), exact: true }),
+  });
+}
+
+export function useUpdateSegment(slug: string, episodeId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ segmentId, patch }: { segmentId: string; patch: UpdateSegmentInput }) =>
+      apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/segments/${segmentId}`, { method: 'PATCH', body: patch }),
+    onSettled: () => qc.invalidateQueries({ queryKey: boardKey(slug, episodeId), exact: true }),
+  });
+}
+
+export function useDeleteSegment(slug: string, episodeId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (segmentId: string) => apiFetch<void>(`/api/channels/${slug}/segments/${segmentId}`, { method: 'DELETE' }),
+    onSettled: () => qc.invalidateQueries({ queryKey: boardKey(slug, episodeId), exact: true }),
+  });
+}

@@ -1,0 +1,107 @@
+'use client';
+
+import { useMutation } from '@tanstack/react-query';
+import { useRouter } from 'next/navigation';
+import { useState, type FormEvent } from 'react';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextField } from '@/components/ui/field';
+import { ApiError, apiFetch } from '@/lib/api/client';
+import { fieldErrorsFrom } from '@/lib/api/validation';
+import type { FieldErrors } from '@/lib/errors';
+import { createEpisodeSchema, episodeStages, stageLabels, updateEpisodeSchema, type EpisodeDto } from '@/lib/episodes/schemas';
+import { formatDuration } from '@/lib/runtime';
+
+type Props = { channelSlug: string; episode?: EpisodeDto };
+
+function readForm(form: HTMLFormElement, withLevels: boolean) {
+  const data = new FormData(form);
+  const text = (name: string) => String(data.get(name) ?? '');
+  const orNull = (name: string) => (text(name).trim() === '' ? null : text(name).trim());
+  return {
+    title: text('title'),
+    premise: text('premise'),
+    stage: text('stage'),
+    targetSeconds: orNull('targetSeconds'),
+    shootDate: orNull('shootDate'),
+    publishDate: orNull('publishDate'),
+    ...(withLevels && { levelLabels: [text('level1'), text('level2'), text('level3')] }),
+  };
+}
+
+export function EpisodeForm({ channelSlug, episode }: Props) {
+  const router = useRouter();
+  const [fields, setFields] = useState<FieldErrors>({});
+  const base = `/api/channels/${channelSlug}/episodes`;
+  const save = useMutation({
+    mutationFn: (body: unknown) =>
+      episode
+        ? apiFetch<{ episode: EpisodeDto }>(`${base}/${episode.id}`, { method: 'PATCH', body })
+        : apiFetch<{ episode: EpisodeDto }>(base, { method: 'POST', body }),
+    onSuccess: ({ episode: saved }) => {
+      router.push(`/c/${channelSlug}/episodes/${saved.id}`);
+      router.refresh();
+    },
+    onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
+  });
+
+  function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const raw = readForm(event.currentTarget, Boolean(episode));
+    const parsed = (episode ? updateEpisodeSchema : createEpisodeSchema).safeParse(raw);
+    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
+    setFields({});
+    save.mutate(raw);
+  }
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="max-w-2xl space-y-5">
+      {save.isError ? <Alert tone="attention">{save.error.message}</Alert> : null}
+      <TextField label="Title" name="title" required defaultValue={episode?.title} error={fields.title} />
+      <TextField label="Premise (one line)" name="premise" defaultValue={episode?.premise} error={fields.premise} />
+      <div className="grid gap-5 sm:grid-cols-2">
+        <SelectField label="Stage" name="stage" defaultValue={episode?.stage ?? 'idea'} error={fields.stage}>
+          {episodeStages.map((s) => (
+            <option key={s} value={s}>
+              {stageLabels[s]}
+            </option>
+          ))}
+        </SelectField>
+        <TextField
+          label="Target runtime (mm:ss)"
+          name="targetSeconds"
+          inputMode="numeric"
+          placeholder="15:00"
+          defaultValue={episode?.targetSeconds != null ? formatDuration(episode.targetSeconds) : ''}
+          error={fields.targetSeconds}
+        />
+        <TextField label="Shoot date" name="shootDate" type="date" defaultValue={episode?.shootDate ?? ''} error={fields.shootDate} />
+        <TextField label="Publish date" name="publishDate" type="date" defaultValue={episode?.publishDate ?? ''} error={fields.publishDate} />
+      </div>
+      {episode ? (
+        <fieldset className="rounded-card border border-paper-edge p-4">
+          <legend className="px-1 text-sm font-bold">Level names for this episode</legend>
+          <div className="grid gap-4 sm:grid-cols-3">
+            {[0, 1, 2].map((i) => (
+              <TextField
+                key={i}
+                label={`Level ${i + 1}`}
+                name={`level${i + 1}`}
+                defaultValue={episode.levelLabels[i]}
+                error={fields[`levelLabels.${i}`]}
+              />
+            ))}
+          </div>
+        </fieldset>
+      ) : null}
+      <div className="flex gap-3">
+        <Button type="submit" disabled={save.isPending}>
+          {save.isPending ? 'Saving…' : episode ? 'Save episode' : 'Create episode'}
+        </Button>
+        <Button variant="quiet" onClick={() => router.back()}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

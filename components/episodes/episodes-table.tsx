@@ -1,0 +1,129 @@
+'use client';
+
+import Link from 'next/link';
+import { useMemo, useState } from 'react';
+import { EmptyState } from '@/components/ui/empty-state';
+import { episodeStages, stageLabels, type EpisodeStage, type EpisodeSummaryDto } from '@/lib/episodes/schemas';
+import { formatDuration } from '@/lib/runtime';
+
+type SortKey = 'title' | 'stage' | 'shootDate' | 'publishDate' | 'forecastSeconds' | 'segmentCount';
+const columns: { key: SortKey; label: string }[] = [
+  { key: 'title', label: 'Title' },
+  { key: 'stage', label: 'Stage' },
+  { key: 'shootDate', label: 'Shoot date' },
+  { key: 'publishDate', label: 'Publish date' },
+  { key: 'forecastSeconds', label: 'Runtime forecast' },
+  { key: 'segmentCount', label: 'Segments' },
+];
+
+const stageOrder = Object.fromEntries(episodeStages.map((s, i) => [s, i])) as Record<EpisodeStage, number>;
+
+function compare(a: EpisodeSummaryDto, b: EpisodeSummaryDto, key: SortKey): number {
+  if (key === 'stage') return stageOrder[a.stage] - stageOrder[b.stage];
+  const x = a[key];
+  const y = b[key];
+  // Missing dates sort last whichever way the column is sorted.
+  if (x === null) return y === null ? 0 : 1;
+  if (y === null) return -1;
+  return typeof x === 'number' && typeof y === 'number' ? x - y : String(x).localeCompare(String(y));
+}
+
+export function EpisodesTable({ episodes, channelSlug }: { episodes: EpisodeSummaryDto[]; channelSlug: string }) {
+  const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: 'publishDate', dir: 1 });
+  const [stage, setStage] = useState<EpisodeStage | 'all'>('all');
+  const [showArchived, setShowArchived] = useState(false);
+
+  const rows = useMemo(() => {
+    const visible = episodes.filter((e) => (stage === 'all' || e.stage === stage) && (showArchived || !e.archived));
+    return visible.sort((a, b) => {
+      const c = compare(a, b, sort.key);
+      const nullsLast = (sort.key === 'shootDate' || sort.key === 'publishDate') && (a[sort.key] === null || b[sort.key] === null);
+      return nullsLast ? c : c * sort.dir;
+    });
+  }, [episodes, stage, showArchived, sort]);
+
+  return (
+    <div>
+      <div className="mb-4 flex flex-wrap items-end gap-4">
+        <div>
+          <label htmlFor="stage-filter" className="mb-1 block text-sm font-bold">
+            Stage
+          </label>
+          <select
+            id="stage-filter"
+            value={stage}
+            onChange={(e) => setStage(e.target.value as EpisodeStage | 'all')}
+            className="min-h-touch rounded-md border border-ink/30 bg-white px-3"
+          >
+            <option value="all">All stages</option>
+            {episodeStages.map((s) => (
+              <option key={s} value={s}>
+                {stageLabels[s]}
+              </option>
+            ))}
+          </select>
+        </div>
+        <label className="flex min-h-touch items-center gap-2 text-sm">
+          <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} className="h-5 w-5" />
+          Show archived
+        </label>
+      </div>
+      {rows.length === 0 ? (
+        <EmptyState title="No episodes match">Try another stage, or show archived episodes.</EmptyState>
+      ) : (
+        <div className="overflow-x-auto rounded-card border border-paper-edge bg-white/60">
+          <table className="w-full min-w-[44rem] text-left text-sm">
+            <caption className="sr-only">Episodes, sorted by {columns.find((c) => c.key === sort.key)?.label}</caption>
+            <thead className="border-b border-paper-edge bg-paper-deep/60">
+              <tr>
+                {columns.map((c) => (
+                  <th key={c.key} scope="col" aria-sort={sort.key === c.key ? (sort.dir === 1 ? 'ascending' : 'descending') : 'none'} className="p-0">
+                    <button
+                      type="button"
+                      onClick={() => setSort((s) => ({ key: c.key, dir: s.key === c.key ? ((-s.dir) as 1 | -1) : 1 }))}
+                      className="flex min-h-touch w-full items-center gap-1 px-3 font-bold hover:bg-paper"
+                    >
+                      {c.label}
+                      <span aria-hidden="true" className="text-ink-faint">
+                        {sort.key === c.key ? (sort.dir === 1 ? '▲' : '▼') : ''}
+                      </span>
+                    </button>
+                  </th>
+                ))}
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-paper-edge">
+              {rows.map((e) => (
+                <EpisodeRow key={e.id} episode={e} channelSlug={channelSlug} />
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </div>
+  );
+}
+
+function EpisodeRow({ episode: e, channelSlug }: { episode: EpisodeSummaryDto; channelSlug: string }) {
+  const over = e.targetSeconds !== null && e.forecastSeconds > e.targetSeconds;
+  return (
+    <tr className="hover:bg-paper/60">
+      <td className="px-3 py-2">
+        <Link href={`/c/${channelSlug}/episodes/${e.id}`} className="font-bold text-blueprint underline-offset-2 hover:underline">
+          {e.title}
+        </Link>
+        {e.archived ? <span className="ml-2 text-xs text-ink-faint">(archived)</span> : null}
+        {e.premise ? <p className="text-xs text-ink-soft">{e.premise}</p> : null}
+      </td>
+      <td className="px-3 py-2">{stageLabels[e.stage]}</td>
+      <td className="px-3 py-2 font-mono">{e.shootDate ?? '—'}</td>
+      <td className="px-3 py-2 font-mono">{e.publishDate ?? '—'}</td>
+      <td className="px-3 py-2 font-mono">
+        <span className={over ? 'font-bold text-attention-ink' : ''}>{formatDuration(e.forecastSeconds)}</span>
+        {e.targetSeconds !== null ? <span className="text-ink-faint"> / {formatDuration(e.targetSeconds)}</span> : null}
+        {over ? <span className="sr-only"> (over target)</span> : null}
+      </td>
+      <td className="px-3 py-2 font-mono">{e.segmentCount}</td>
+    </tr>
+  );
+}

@@ -12,13 +12,14 @@ import * as segmentsRoute from '@/app/api/channels/[channel]/episodes/[episodeId
 import * as episodesRoute from '@/app/api/channels/[channel]/episodes/route';
 import * as positionRoute from '@/app/api/channels/[channel]/segments/[segmentId]/position/route';
 import * as segmentRoute from '@/app/api/channels/[channel]/segments/[segmentId]/route';
+import * as scriptRoute from '@/app/api/channels/[channel]/segments/[segmentId]/script/route';
 import { createInvitation } from '@/lib/crew/queries';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew, uniqueEmail } from './helpers';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null)),
 );
 const rawBody = fc.oneof(
@@ -53,6 +54,7 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'update episode', fn: episodeRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, episodeId } },
   { name: 'create segment', fn: segmentsRoute.POST, method: 'POST', params: { channel: crew.channel.slug, episodeId } },
   { name: 'update segment', fn: segmentRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, segmentId } },
+  { name: 'save script', fn: scriptRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId } },
   { name: 'move segment', fn: positionRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId } },
 ];
 
@@ -68,5 +70,31 @@ describe('no body makes a 500', () => {
         { numRuns: 30 },
       );
     }
+  });
+});
+
+// Script bodies near the real shape: Tiptap-like trees with wrong node types, attrs and nesting.
+const node: fc.Arbitrary<unknown> = fc.letrec((tie) => ({
+  node: fc.record(
+    {
+      type: fc.constantFrom('doc', 'paragraph', 'heading', 'text', 'listItem', 'bulletList', 'image', 'link', 'codeBlock'),
+      text: fc.string({ maxLength: 20 }),
+      attrs: fc.dictionary(fc.constantFrom('level', 'start', 'href', 'src', 'type'), fc.jsonValue()),
+      marks: fc.array(fc.record({ type: fc.constantFrom('bold', 'link', 'code', 'highlight') }), { maxLength: 2 }),
+      content: fc.array(tie('node'), { maxLength: 3 }),
+    },
+    { requiredKeys: ['type'] },
+  ),
+})).node;
+
+describe('no script tree makes a 500', () => {
+  it('for arbitrary Tiptap-like documents', async () => {
+    await fc.assert(
+      fc.asyncProperty(node, fc.integer({ min: -1, max: 3 }), async (doc, baseVersion) => {
+        const res = await call(scriptRoute.PUT, 'PUT', { as: crew.host, params: { channel: crew.channel.slug, segmentId }, body: { doc, baseVersion } });
+        expect(res.status).toBeLessThan(500);
+      }),
+      { numRuns: 60 },
+    );
   });
 });

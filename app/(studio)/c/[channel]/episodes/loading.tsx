@@ -1,9 +1,1 @@
-export default function Loading() {
-  return (
-    <div role="status" aria-live="polite" className="space-y-4">
-      <span className="sr-only">Loading…</span>
-      <div className="h-8 w-48 animate-pulse rounded bg-paper-deep" />
-      <div className="h-32 animate-pulse rounded-card bg-paper-deep" />
-    </div>
-  );
-}
+export { PageSkeleton as default } from '@/components/ui/page-skeleton';

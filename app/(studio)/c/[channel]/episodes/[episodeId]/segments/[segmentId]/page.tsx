@@ -1,9 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { ScriptEditor } from '@/components/script/script-editor';
 import { ScriptView } from '@/components/script/script-view';
 import { ActionTimeForm } from '@/components/segments/action-time-form';
+import { LiveScriptEditor } from '@/components/segments/live-script-editor';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { findEpisode } from '@/lib/episodes/queries';
@@ -68,7 +68,7 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
           Script
         </h2>
         {canWrite ? (
-          <ScriptEditor channelSlug={member.channel.slug} segmentId={segment.id} initialDoc={script.doc} initialVersion={script.version} />
+          <LiveScriptEditor channelSlug={member.channel.slug} segmentId={segment.id} initialDoc={script.doc} initialVersion={script.version} />
         ) : (
           <div className="rounded-card border border-paper-edge bg-white/70 p-5">
             <p className="mb-3 text-xs text-ink-faint">Read-only: only a Host writes scripts.</p>

@@ -66,7 +66,6 @@ export interface LinearCutPlan {
 
 const SCALE = 1_000_000;
 const toMicro = (x: number): number => Math.round(x * SCALE);
-const EXACT_SEARCH_MAX_PIECES = 30;
 
 interface Piece {
   part: number;
@@ -487,122 +486,508 @@ function improve(inst: Instance, start: Solution, lb: number, deadline: number):
   return best;
 }
 
-// ---------- exact search ----------
+// ---------- column-generation bound ----------
+
+/** Pieces of one size, interchangeable for packing whatever part they belong to. */
+interface Kind {
+  size: number;
+  pieces: number[];
+}
+
+function kindsOf(inst: Instance): Kind[] {
+  const kinds: Kind[] = [];
+  inst.pieces.forEach((p, i) => {
+    const last = kinds[kinds.length - 1];
+    if (last && last.size === p.size) last.pieces.push(i);
+    else kinds.push({ size: p.size, pieces: [i] });
+  });
+  return kinds;
+}
+
+const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b));
+/** The largest length dividing every size: lengths in 1/16 in or tenths keep it coarse enough for a table. */
+const unitOf = (sizes: readonly number[]): number => sizes.reduce((g, s) => gcd(g, s), 0);
+
+const KNAPSACK_NODES = 200_000;
+const KNAPSACK_DP_CELLS = 4_000_000;
 
 /**
- * Branch and bound over pieces in decreasing size: each goes into an open board or a new board of
- * some stock. Bound: cost so far plus the continuous cost of the space the rest still needs.
- * Returns the best solution found and whether the search ran to the end.
+ * The same knapsack by dynamic programming over capacity in units of `unit` (a common divisor of the
+ * sizes), with each kind's copies split in powers of two; null when the table would be too large.
  */
-function exactSearch(inst: Instance, incumbent: Solution | null, deadline: number): { best: Solution | null; finished: boolean } {
-  const n = inst.pieces.length;
-  const size = inst.pieces.map((p) => p.size);
-  const suffix = new Array<number>(n + 1).fill(0);
-  for (let i = n - 1; i >= 0; i--) suffix[i] = (suffix[i + 1] ?? 0) + (size[i] ?? 0);
-  const maxCap = Math.max(...inst.stocks.map((s) => s.cap));
-  const bins: Bin[] = [];
+function knapsackDp(
+  sizes: readonly number[],
+  values: readonly number[],
+  limit: readonly number[],
+  cap: number,
+  unit: number,
+): { value: number; upper: number; counts: number[] } | null {
+  const W = Math.floor(cap / unit);
+  const items: { kind: number; copies: number; units: number; value: number }[] = [];
+  sizes.forEach((s, k) => {
+    const v = values[k] ?? 0;
+    const u = s / unit;
+    if (v <= 0 || u > W) return;
+    let rest = Math.min(limit[k] ?? 0, Math.floor(W / u));
+    for (let c = 1; rest > 0; c *= 2) {
+      const take = Math.min(c, rest);
+      items.push({ kind: k, copies: take, units: take * u, value: take * v });
+      rest -= take;
+    }
+  });
+  if (items.length * (W + 1) > KNAPSACK_DP_CELLS) return null;
+  const dp = new Float64Array(W + 1);
+  const took = new Uint8Array(items.length * (W + 1));
+  items.forEach((it, idx) => {
+    for (let c = W; c >= it.units; c--) {
+      const v = (dp[c - it.units] ?? 0) + it.value;
+      if (v > (dp[c] ?? 0)) {
+        dp[c] = v;
+        took[idx * (W + 1) + c] = 1;
+      }
+    }
+  });
+  const counts = sizes.map(() => 0);
+  let c = W;
+  for (let idx = items.length - 1; idx >= 0; idx--) {
+    const it = items[idx];
+    if (it && took[idx * (W + 1) + c] === 1) {
+      counts[it.kind] = (counts[it.kind] ?? 0) + it.copies;
+      c -= it.units;
+    }
+  }
+  const value = dp[W] ?? 0;
+  return { value, upper: value, counts };
+}
+
+
+/**
+ * Bounded knapsack by depth-first branch and bound with the Dantzig bound: the largest total value of
+ * kinds (at most `limit[k]` of each) that fits in `cap`. Returns the best pattern found and an upper
+ * bound on the true maximum, which equals the best value unless the node limit was hit.
+ */
+function knapsack(
+  sizes: readonly number[],
+  values: readonly number[],
+  limit: readonly number[],
+  cap: number,
+  unit = 0,
+): { value: number; upper: number; counts: number[] } {
+  if (unit > 0) {
+    const dp = knapsackDp(sizes, values, limit, cap, unit);
+    if (dp) return dp;
+  }
+  const order = sizes
+    .map((_, k) => k)
+    .filter((k) => (values[k] ?? 0) > 0 && (sizes[k] ?? 0) <= cap && (limit[k] ?? 0) > 0)
+    .sort((a, b) => (values[b] ?? 0) / (sizes[b] ?? 1) - (values[a] ?? 0) / (sizes[a] ?? 1));
+  const counts = sizes.map(() => 0);
+  let best = 0;
+  let bestCounts = [...counts];
+  let nodes = 0;
+  const dantzig = (from: number, room: number): number => {
+    let v = 0;
+    for (let j = from; j < order.length && room > 0; j++) {
+      const k = order[j] ?? 0;
+      const w = sizes[k] ?? 1;
+      const take = Math.min(limit[k] ?? 0, room / w);
+      v += take * (values[k] ?? 0);
+      room -= take * w;
+    }
+    return v;
+  };
+  const rootUpper = dantzig(0, cap);
+  const dfs = (j: number, room: number, value: number): void => {
+    if (value > best) {
+      best = value;
+      bestCounts = [...counts];
+    }
+    if (j === order.length || ++nodes > KNAPSACK_NODES) return;
+    if (value + dantzig(j, room) <= best * (1 + 1e-12)) return;
+    const k = order[j] ?? 0;
+    const w = sizes[k] ?? 1;
+    for (let c = Math.min(limit[k] ?? 0, Math.floor(room / w)); c >= 0; c--) {
+      counts[k] = c;
+      dfs(j + 1, room - c * w, value + c * (values[k] ?? 0));
+    }
+    counts[k] = 0;
+  };
+  dfs(0, cap, 0);
+  return { value: best, upper: nodes > KNAPSACK_NODES ? Math.max(best, rootUpper) : best, counts: bestCounts };
+}
+
+interface DualBound {
+  y: number[]; // micro-dollars per piece of each kind
+  excess: number[]; // per stock: how much its best pattern is worth above its price, paid per board still available
+  value: number; // micro-dollars
+}
+
+/**
+ * Lagrangian bound from the duals `y` of the demand rows: any y >= 0 gives
+ * cost >= sum(d_k y_k) - sum_s available_s * max(0, v_s - price_s), with v_s the best pattern value
+ * of stock s; for unlimited stock y is first scaled down until no pattern is worth more than its board.
+ */
+function dualBound(inst: Instance, kinds: readonly Kind[], raw: readonly number[]): DualBound {
+  const sizes = kinds.map((k) => k.size);
+  const limit = kinds.map((k) => k.pieces.length);
+  let y = raw.map((v) => Math.max(0, v));
+  let v = inst.stocks.map((s) => knapsack(sizes, y, limit, s.cap, unitOf(sizes)).upper);
+  let scale = 1;
+  inst.stocks.forEach((s, i) => {
+    const vs = v[i] ?? 0;
+    if (s.available === Number.POSITIVE_INFINITY && vs > s.price) scale = Math.min(scale, s.price / vs);
+  });
+  if (scale < 1) {
+    y = y.map((x) => x * scale);
+    v = v.map((x) => x * scale);
+  }
+  const excess = inst.stocks.map((s, i) => (s.available === Number.POSITIVE_INFINITY ? 0 : Math.max(0, (v[i] ?? 0) - s.price)));
+  let value = 0;
+  kinds.forEach((k, i) => (value += k.pieces.length * (y[i] ?? 0)));
+  inst.stocks.forEach((s, i) => {
+    if ((excess[i] ?? 0) > 0) value -= s.available * (excess[i] ?? 0);
+  });
+  return { y, excess, value };
+}
+
+/**
+ * Gilmore–Gomory LP relaxation solved by column generation (revised simplex with an explicit basis
+ * inverse, big-M start), returning the duals of the demand rows. Any duals give a valid bound through
+ * `dualBound`, so an early stop costs only tightness.
+ */
+function columnGenerationDuals(inst: Instance, kinds: readonly Kind[], deadline: number): number[] {
+  const m1 = kinds.length;
+  const finite = inst.stocks.map((s, i) => (s.available === Number.POSITIVE_INFINITY ? -1 : i)).filter((i) => i >= 0);
+  const rowOf = new Map<number, number>();
+  finite.forEach((s, r) => rowOf.set(s, m1 + r));
+  const m = m1 + finite.length;
+  const sizes = kinds.map((k) => k.size);
+  const unit = unitOf(sizes);
+  const demand = kinds.map((k) => k.pieces.length);
+  const price = inst.stocks.map((s) => s.price / SCALE);
+  const bigM = 2 * Math.max(1, ...price) + 1;
+  const binv: number[][] = Array.from({ length: m }, (_, r) => Array.from({ length: m }, (_, c) => (r === c ? 1 : 0)));
+  const xB: number[] = [...demand, ...finite.map((s) => inst.stocks[s]?.available ?? 0)];
+  const cB: number[] = [...demand.map(() => bigM), ...finite.map(() => 0)];
+  // Start from the cheapest one-kind pattern of unlimited stock for each kind, where there is one,
+  // so the simplex need not first drive out the artificial columns.
+  for (let i = 0; i < m1; i++) {
+    let bestPerPiece = Number.POSITIVE_INFINITY;
+    let perBoard = 0;
+    inst.stocks.forEach((s, si) => {
+      if (s.available !== Number.POSITIVE_INFINITY) return;
+      const fit = Math.min(demand[i] ?? 0, Math.floor(s.cap / (sizes[i] ?? 1)));
+      if (fit > 0 && (price[si] ?? 0) / fit < bestPerPiece) {
+        bestPerPiece = (price[si] ?? 0) / fit;
+        perBoard = fit;
+      }
+    });
+    if (perBoard === 0) continue;
+    const row = binv[i];
+    if (row) row[i] = 1 / perBoard;
+    xB[i] = (demand[i] ?? 0) / perBoard;
+    cB[i] = bestPerPiece * perBoard;
+  }
+  const pi = new Array<number>(m).fill(0);
+  const EPS = 1e-9;
+  for (let iter = 0; iter < 2000 && Date.now() < deadline; iter++) {
+    for (let c = 0; c < m; c++) {
+      let s = 0;
+      for (let r = 0; r < m; r++) s += (cB[r] ?? 0) * (binv[r]?.[c] ?? 0);
+      pi[c] = s;
+    }
+    const values = pi.slice(0, m1);
+    let enter: { col: number[]; cost: number; rc: number } | null = null;
+    const offer = (col: number[], cost: number, rc: number): void => {
+      if (rc < -EPS && (!enter || rc < enter.rc)) enter = { col, cost, rc };
+    };
+    for (let i = 0; i < m1; i++) {
+      if ((pi[i] ?? 0) < -EPS) {
+        const col = new Array<number>(m).fill(0);
+        col[i] = -1;
+        offer(col, 0, pi[i] ?? 0);
+      }
+    }
+    for (let r = m1; r < m; r++) {
+      if ((pi[r] ?? 0) > EPS) {
+        const col = new Array<number>(m).fill(0);
+        col[r] = 1;
+        offer(col, 0, -(pi[r] ?? 0));
+      }
+    }
+    inst.stocks.forEach((s, si) => {
+      const best = knapsack(sizes, values, demand, s.cap, unit);
+      const row = rowOf.get(si);
+      const rc = (price[si] ?? 0) - best.value - (row === undefined ? 0 : (pi[row] ?? 0));
+      const col = [...best.counts, ...finite.map(() => 0)];
+      if (row !== undefined) col[row] = 1;
+      offer(col, price[si] ?? 0, rc);
+    });
+    const chosen = enter as { col: number[]; cost: number; rc: number } | null;
+    if (!chosen) break;
+    const dir = binv.map((row) => row.reduce((a, b, c) => a + b * (chosen.col[c] ?? 0), 0));
+    let leave = -1;
+    let ratio = Number.POSITIVE_INFINITY;
+    dir.forEach((d, r) => {
+      if (d > EPS) {
+        const t = (xB[r] ?? 0) / d;
+        if (t < ratio - 1e-12) {
+          ratio = t;
+          leave = r;
+        }
+      }
+    });
+    if (leave < 0) break;
+    const dl = dir[leave] ?? 1;
+    const pivotRow = (binv[leave] ?? []).map((x) => x / dl);
+    binv[leave] = pivotRow;
+    xB[leave] = ratio;
+    for (let r = 0; r < m; r++) {
+      if (r === leave) continue;
+      const f = dir[r] ?? 0;
+      if (f === 0) continue;
+      const row = binv[r] ?? [];
+      for (let c = 0; c < m; c++) row[c] = (row[c] ?? 0) - f * (pivotRow[c] ?? 0);
+      xB[r] = (xB[r] ?? 0) - f * ratio;
+    }
+    cB[leave] = chosen.cost;
+  }
+  return pi.slice(0, m1).map((x) => x * SCALE);
+}
+
+/** The least total price of a set of boards, within `available`, that is at least `x`; `x` itself if the search is cut short. */
+function achievableCost(stocks: readonly StockType[], x: number): number {
+  if (x <= 0) return 0;
+  const priced = stocks.filter((s) => s.price > 0).sort((a, b) => b.price - a.price);
+  let best = Number.POSITIVE_INFINITY;
+  let nodes = 0;
+  const dfs = (j: number, sum: number): void => {
+    if (sum >= x) {
+      best = Math.min(best, sum);
+      return;
+    }
+    if (j === priced.length || ++nodes > 200_000) return;
+    const s = priced[j];
+    if (!s) return;
+    const most = Math.min(s.available, Math.ceil((x - sum) / s.price));
+    for (let c = most; c >= 0; c--) {
+      if (sum + c * s.price >= best) continue;
+      dfs(j + 1, sum + c * s.price);
+    }
+  };
+  dfs(0, 0);
+  return nodes > 200_000 || best === Number.POSITIVE_INFINITY ? Math.ceil(x) : best;
+}
+
+// ---------- exact search ----------
+
+const COMPLETIONS_PER_NODE = 20_000;
+
+/**
+ * Bin completion (Korf 2003, with the Martello–Toth dominance rule): boards are filled one at a time,
+ * each around the largest piece left, with a stock and a set of further pieces that no other set
+ * dominates. Bound at each node: cost so far plus the dual bound of what is left, or its continuous
+ * cost. Returns the best solution found and whether the search ran to the end.
+ */
+function completionSearch(
+  inst: Instance,
+  kinds: readonly Kind[],
+  dual: DualBound,
+  incumbent: Solution | null,
+  deadline: number,
+): { best: Solution | null; finished: boolean } {
+  const K = kinds.length;
+  const size = kinds.map((k) => k.size);
+  const y = dual.y;
+  const left = kinds.map((k) => k.pieces.length);
   const used = inst.stocks.map(() => 0);
-  const where = new Array<number>(n).fill(-1);
+  const stack: { stock: number; counts: number[] }[] = [];
   let best = incumbent;
+  // Every total is a multiple of the prices' gcd, so only totals a whole step below the best are worth finding.
+  const step = Math.max(1, inst.stocks.reduce((g, s) => gcd(g, s.price), 0));
+  let bestCost = incumbent ? incumbent.score.cost : Number.POSITIVE_INFINITY;
+  const target = (): number => bestCost - step;
   let cost = 0;
+  let yLeft = kinds.reduce((a, k, i) => a + k.pieces.length * (y[i] ?? 0), 0);
+  let sizeLeft = kinds.reduce((a, k) => a + k.pieces.length * k.size, 0);
   let nodes = 0;
   let timedOut = false;
-  const stockOrder = inst.stocks
-    .map((_, i) => i)
-    .sort((a, b) => {
-      const sa = inst.stocks[a];
-      const sb = inst.stocks[b];
-      return sa && sb ? sa.price / sa.cap - sb.price / sb.cap : 0;
-    });
+  let truncated = false;
+  // ratio[j]: the most value per micro-inch among kinds j.., to bound what a partial set can still gain.
+  const ratio = new Array<number>(K + 1).fill(0);
+  // Cheapest price per micro-inch, availability aside: a bound on what the rest costs by length.
+  const rMin = Math.min(...inst.stocks.map((s) => s.price / s.cap));
+  for (let j = K - 1; j >= 0; j--) ratio[j] = Math.max(ratio[j + 1] ?? 0, (y[j] ?? 0) / (size[j] ?? 1));
 
-  const prune = (i: number): boolean => {
-    if (!best) return false;
-    const smallest = size[n - 1] ?? 0;
-    let residual = 0;
-    for (const b of bins) {
-      const r = (inst.stocks[b.stock]?.cap ?? 0) - b.load;
-      if (r >= smallest) residual += r;
-    }
-    const extra = (suffix[i] ?? 0) - residual;
-    const extraCost = extra > 0 ? Math.ceil(continuousCost(inst.stocks, extra, used) - 1e-6) : 0;
-    const extraBoards = extra > 0 ? Math.ceil(extra / maxCap) : 0;
-    const bc = cost + extraCost;
-    const s = best.score;
-    if (bc !== s.cost) return bc > s.cost;
-    return bins.length + extraBoards >= s.boards;
+  const penalty = (): number => inst.stocks.reduce((a, s, i) => a + (s.available - (used[i] ?? 0)) * (dual.excess[i] ?? 0), 0);
+  const bound = (): number => {
+    const byDual = Math.ceil(yLeft - penalty() - 1e-3 - 1e-9 * Math.abs(yLeft));
+    const byLength = Math.ceil(continuousCost(inst.stocks, sizeLeft, used) - 1e-6);
+    return cost + Math.max(byDual, byLength, 0);
   };
 
-  const place = (i: number): void => {
+  const record = (): void => {
+    const queues = kinds.map((k) => [...k.pieces]);
+    const bins: Bin[] = stack.map((b) => {
+      const items: number[] = [];
+      let load = 0;
+      b.counts.forEach((c, k) => {
+        for (let q = 0; q < c; q++) {
+          const i = queues[k]?.pop();
+          if (i === undefined) continue;
+          items.push(i);
+          load += size[k] ?? 0;
+        }
+      });
+      return { stock: b.stock, load, items };
+    });
+    const sol = inst.solution(bins, []);
+    if (!best || better(sol.score, best.score)) {
+      best = sol;
+      bestCost = sol.score.cost;
+    }
+  };
+
+  type Candidate = { stock: number; counts: number[]; bound: number; load: number };
+
+  /**
+   * The undominated sets that can join piece kind `k0` on a new board and still lead below bestCost,
+   * best bound first; null once there would be more than `limit`.
+   */
+  const completions = (k0: number, limit: number): Candidate[] | null => {
+    const candidates: Candidate[] = [];
+    // suffix[j]: total size of the pieces of kinds j.. still free to join the board.
+    const suffix = new Array<number>(K + 1).fill(0);
+    for (let j = K - 1; j >= 0; j--) suffix[j] = (suffix[j + 1] ?? 0) + ((left[j] ?? 0) - (j === k0 ? 1 : 0)) * (size[j] ?? 0);
+    const pen = penalty();
+    let over = false;
+    for (let si = 0; si < inst.stocks.length && !over; si++) {
+      const st = inst.stocks[si];
+      if (!st || st.cap < (size[k0] ?? 0) || (used[si] ?? 0) >= st.available) continue;
+      // A child is worth visiting only if cost + price + yLeft - y(set) - its penalty <= target.
+      const need = cost + st.price + yLeft - (pen - (dual.excess[si] ?? 0)) - target();
+      // By length: cost + price + (sizeLeft - load) * rMin <= target needs at least this load.
+      const needLoad = rMin > 0 ? sizeLeft - (target() - cost - st.price) / rMin : Number.NEGATIVE_INFINITY;
+      const counts = new Array<number>(K).fill(0);
+      counts[k0] = 1;
+      const gen = (j: number, room: number, value: number): void => {
+        if (over) return;
+        if (value + room * (ratio[j] ?? 0) < need - 1e-3 - 1e-9 * Math.abs(need)) return;
+        const load = st.cap - room;
+        if (load + Math.min(room, suffix[j] ?? 0) < needLoad - 1e-3) return;
+        if (j === K) {
+          if (!undominated(counts, room, k0)) return;
+          if (candidates.length >= limit) {
+            over = true;
+            return;
+          }
+          const byDual = cost + st.price + yLeft - value - (pen - (dual.excess[si] ?? 0));
+          const byLength = cost + st.price + (sizeLeft - load) * rMin;
+          candidates.push({ stock: si, counts: [...counts], bound: Math.max(byDual, byLength), load });
+          return;
+        }
+        const fixed = j === k0 ? 1 : 0;
+        const have = (left[j] ?? 0) - fixed;
+        const w = size[j] ?? 1;
+        for (let c = Math.min(have, Math.floor(room / w)); c >= 0; c--) {
+          counts[j] = fixed + c;
+          gen(j + 1, room - c * w, value + c * (y[j] ?? 0));
+        }
+        counts[j] = fixed;
+      };
+      gen(0, st.cap - (size[k0] ?? 0), y[k0] ?? 0);
+    }
+    if (over) return null;
+    return candidates.sort((a, b) => a.bound - b.bound || b.load - a.load);
+  };
+
+  const dfs = (): void => {
     if (timedOut) return;
-    if (++nodes % 1024 === 0 && Date.now() > deadline) {
+    if (++nodes % 256 === 0 && Date.now() > deadline) {
       timedOut = true;
       return;
     }
-    if (i === n) {
-      const sol = inst.solution(
-        bins.map((b) => ({ ...b, items: [...b.items] })),
-        [],
-      );
-      if (!best || better(sol.score, best.score)) best = sol;
+    let k0 = 0;
+    while (k0 < K && (left[k0] ?? 0) === 0) k0++;
+    if (k0 === K) {
+      record();
       return;
     }
-    if (prune(i)) return;
-    const w = size[i] ?? 0;
-    const sameAsPrev = i > 0 && size[i - 1] === w && inst.pieces[i - 1]?.part === inst.pieces[i]?.part;
-    const minBin = sameAsPrev ? (where[i - 1] ?? 0) : 0;
-    // An exact fill of an open board is always safe to take alone.
-    for (let b = minBin; b < bins.length; b++) {
-      const bin = bins[b];
-      if (bin && (inst.stocks[bin.stock]?.cap ?? 0) - bin.load === w) {
-        bin.load += w;
-        bin.items.push(i);
-        where[i] = b;
-        place(i + 1);
-        bin.items.pop();
-        bin.load -= w;
-        return;
-      }
+    if (bound() > target()) return;
+    let candidates = completions(k0, COMPLETIONS_PER_NODE);
+    if (candidates === null) {
+      truncated = true;
+      candidates = [];
     }
-    const tried = new Set<string>();
-    const candidates: number[] = [];
-    for (let b = minBin; b < bins.length; b++) {
-      const bin = bins[b];
-      if (!bin) continue;
-      const rest = (inst.stocks[bin.stock]?.cap ?? 0) - bin.load;
-      const key = `${bin.stock}:${rest}`;
-      if (rest < w || tried.has(key)) continue;
-      tried.add(key);
-      candidates.push(b);
+    // Fail first: branch on the piece with the fewest ways to fill its board, which is what makes
+    // exactly-full instances such as Falkenauer's triplets tractable.
+    for (let k = k0 + 1; k < K && candidates.length > 1; k++) {
+      if ((left[k] ?? 0) === 0) continue;
+      const fewer = completions(k, candidates.length - 1);
+      if (fewer !== null) candidates = fewer;
     }
-    candidates.sort((a, b) => (bins[a]?.load ?? 0) - (bins[b]?.load ?? 0)).reverse();
-    for (const b of candidates) {
-      const bin = bins[b];
-      if (!bin) continue;
-      bin.load += w;
-      bin.items.push(i);
-      where[i] = b;
-      place(i + 1);
-      bin.items.pop();
-      bin.load -= w;
-      if (timedOut) return;
-    }
-    for (const s of stockOrder) {
-      const st = inst.stocks[s];
-      if (!st || st.cap < w || (used[s] ?? 0) >= st.available) continue;
-      used[s] = (used[s] ?? 0) + 1;
+    for (const cand of candidates) {
+      const st = inst.stocks[cand.stock];
+      if (!st) continue;
+      let yTaken = 0;
+      let sizeTaken = 0;
+      cand.counts.forEach((c, k) => {
+        left[k] = (left[k] ?? 0) - c;
+        yTaken += c * (y[k] ?? 0);
+        sizeTaken += c * (size[k] ?? 0);
+      });
+      used[cand.stock] = (used[cand.stock] ?? 0) + 1;
       cost += st.price;
-      bins.push({ stock: s, load: w, items: [i] });
-      where[i] = bins.length - 1;
-      place(i + 1);
-      bins.pop();
+      yLeft -= yTaken;
+      sizeLeft -= sizeTaken;
+      stack.push({ stock: cand.stock, counts: cand.counts });
+      dfs();
+      stack.pop();
+      sizeLeft += sizeTaken;
+      yLeft += yTaken;
       cost -= st.price;
-      used[s] = (used[s] ?? 0) - 1;
+      used[cand.stock] = (used[cand.stock] ?? 0) - 1;
+      cand.counts.forEach((c, k) => (left[k] = (left[k] ?? 0) + c));
       if (timedOut) return;
     }
   };
 
-  place(0);
-  return { best, finished: !timedOut };
+  /**
+   * Martello–Toth dominance, as far as Korf checks it: the set must be maximal, and no piece left out
+   * may replace one piece, or two, of the set (other than the one the board is built around) whose
+   * sizes it covers while still fitting.
+   */
+  const undominated = (counts: readonly number[], room: number, k0: number): boolean => {
+    const excluded: number[] = [];
+    for (let k = K - 1; k >= 0; k--) if ((left[k] ?? 0) > (counts[k] ?? 0)) excluded.push(size[k] ?? 0);
+    // excluded is increasing; the smallest left out must not fit in what remains.
+    if ((excluded[0] ?? Number.POSITIVE_INFINITY) <= room) return false;
+    const smallestAtLeast = (x: number): number => {
+      let lo = 0;
+      let hi = excluded.length;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if ((excluded[mid] ?? 0) < x) lo = mid + 1;
+        else hi = mid;
+      }
+      return excluded[lo] ?? Number.POSITIVE_INFINITY;
+    };
+    const free = (k: number): number => (counts[k] ?? 0) - (k === k0 ? 1 : 0);
+    for (let a = 0; a < K; a++) {
+      if (free(a) <= 0) continue;
+      const za = size[a] ?? 0;
+      if (smallestAtLeast(za + 1) <= za + room) return false;
+      for (let b = a; b < K; b++) {
+        if (free(b) <= 0 || (b === a && free(a) < 2)) continue;
+        const z = za + (size[b] ?? 0);
+        if (smallestAtLeast(z) <= z + room) return false;
+      }
+    }
+    return true;
+  };
+
+  dfs();
+  return { best, finished: !timedOut && !truncated };
 }
 
 // ---------- entry points ----------
@@ -698,23 +1083,34 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
   const deadline = started + (req.timeLimitMs ?? 2000);
   const inst = new Instance(req);
   const all = inst.pieces.map((_, i) => i);
-  const lbAll = lowerBound(inst, all);
+  let lb = lowerBound(inst, all);
 
   let best = pickBest([...baselines(inst).map((s) => downgrade(inst, s)), ...baselines(inst)]);
-  if (best.score.unplaced > 0 || best.score.cost > lbAll) {
+  if (best.score.unplaced > 0 || best.score.cost > lb) {
     const mbs = downgrade(inst, minimumSlack(inst, deadline));
     if (better(mbs.score, best.score)) best = mbs;
   }
 
-  let finished = false;
-  if (best.score.unplaced === 0 && best.score.cost === lbAll) {
-    finished = true;
-  } else if (inst.pieces.length <= EXACT_SEARCH_MAX_PIECES) {
-    const result = exactSearch(inst, best.score.unplaced === 0 ? best : null, deadline);
-    if (result.best && better(result.best.score, best.score)) best = result.best;
-    finished = result.finished;
-  } else {
-    best = improve(inst, best, lbAll, deadline);
+  let finished = best.score.unplaced === 0 && best.score.cost <= lb;
+  if (!finished) {
+    const kinds = kindsOf(inst);
+    // The LP gets a share of the time; its duals are a valid bound wherever it stops.
+    const lpDeadline = Math.min(deadline, started + Math.max(1, (req.timeLimitMs ?? 2000) / 4));
+    const dual = dualBound(inst, kinds, columnGenerationDuals(inst, kinds, lpDeadline));
+    lb = Math.max(lb, achievableCost(inst.stocks, Math.ceil(dual.value - 1e-3 - 1e-9 * Math.abs(dual.value))));
+    finished = best.score.unplaced === 0 && best.score.cost <= lb;
+    if (!finished) {
+      // A depth-first search that has not closed the gap by then is usually stuck deep in the tree, where
+      // ruin and recreate still finds better plans (u120_00 in bench/cutlist), so it gets the rest.
+      const searchDeadline = Date.now() + 0.6 * Math.max(0, deadline - Date.now());
+      const result = completionSearch(inst, kinds, dual, best.score.unplaced === 0 ? best : null, searchDeadline);
+      if (result.best && better(result.best.score, best.score)) best = result.best;
+      finished = result.finished || (best.score.unplaced === 0 && best.score.cost <= lb);
+      if (!finished && best.score.unplaced === 0) {
+        best = improve(inst, best, lb, deadline);
+        finished = best.score.cost <= lb;
+      }
+    }
   }
 
   if (best.score.unplaced > 0) {
@@ -722,7 +1118,6 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
     const placed = best.bins.flatMap((b) => b.items);
     return render(req, inst, best, lowerBound(inst, placed), false);
   }
-  const optimal = finished || best.score.cost === lbAll;
   // A finished search proves the cost, so the bound can be raised to it.
-  return render(req, inst, best, optimal ? best.score.cost : lbAll, optimal);
+  return render(req, inst, best, finished ? best.score.cost : lb, finished);
 }

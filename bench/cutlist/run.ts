@@ -1,0 +1,188 @@
+// Linear cut planner benchmark (issue: linear cut planning). Pure, no services:
+//   npx tsx bench/cutlist/run.ts [--large]
+// Prints boards against the proven optimum and the time for the Falkenauer u120 and t60 instances (u250 and
+// t120 too with --large), then the median time to a proven optimum for generated woodworking cut lists.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { planLinearCuts, type LinearCutPlan, type LinearCutRequest } from '@/lib/cutlist';
+
+const DATA = process.env.KERFLINE_BENCH_DATA ?? join(process.cwd(), '..', 'shared', 'bench-data');
+const BINPACKING = join(DATA, 'binpacking');
+const TIME_LIMIT_MS = 2000;
+const LARGE = process.argv.includes('--large');
+const SETS = [
+  { name: 'u120', file: 'orlib/binpack1.txt' },
+  { name: 't60', file: 'orlib/binpack5.txt' },
+  ...(LARGE
+    ? [
+        { name: 'u250', file: 'orlib/binpack2.txt' },
+        { name: 't120', file: 'orlib/binpack6.txt' },
+      ]
+    : []),
+];
+
+interface Instance {
+  id: string;
+  capacity: number;
+  sizes: number[];
+}
+
+interface Optimum {
+  best_known_bins: number;
+  proven_optimal: boolean;
+}
+
+/** OR-Library bin packing file, by whitespace tokens: P, then per instance id, "C n B" and n sizes (binpacking/SOURCES.md §1). */
+function parseOrlib(text: string): Instance[] {
+  const tokens = text.split(/\s+/).filter((t) => t !== '');
+  let at = 0;
+  const next = (): string => {
+    const t = tokens[at++];
+    if (t === undefined) throw new Error('OR-Library file ends early');
+    return t;
+  };
+  const count = Number(next());
+  const out: Instance[] = [];
+  for (let k = 0; k < count; k++) {
+    const id = next();
+    const capacity = Number(next());
+    const n = Number(next());
+    next(); // B, the published heuristic's bins: not always the optimum, so optima.json is used instead.
+    const sizes = Array.from({ length: n }, () => Number(next()));
+    out.push({ id, capacity, sizes });
+  }
+  return out;
+}
+
+/** One part per distinct size, as a cut list would list them. */
+function binPackingRequest(inst: Instance): LinearCutRequest {
+  const counts = new Map<number, number>();
+  for (const s of inst.sizes) counts.set(s, (counts.get(s) ?? 0) + 1);
+  return {
+    kerf: 0,
+    endTrim: 0,
+    parts: [...counts.entries()].map(([length, quantity]) => ({ id: `w${length}`, length, quantity })),
+    stock: [{ id: 'bin', length: inst.capacity, price: 1 }],
+    timeLimitMs: TIME_LIMIT_MS,
+  };
+}
+
+/** Every piece cut once and no board over its length; the planner's own tests check far more. */
+function checkPlan(req: LinearCutRequest, plan: LinearCutPlan): string | null {
+  const wanted = req.parts.reduce((a, p) => a + p.quantity, 0);
+  const cut = plan.boards.reduce((a, b) => a + b.cuts.length, 0);
+  if (cut !== wanted || plan.unplaced.length > 0) return `cut ${cut} of ${wanted} pieces`;
+  for (const b of plan.boards) {
+    const used = b.cuts.reduce((a, c) => a + c.length, 0) + req.kerf * (b.cuts.length - 1);
+    if (used > b.length + 1e-6) return `board over length (${used} > ${b.length})`;
+  }
+  return null;
+}
+
+function timed(req: LinearCutRequest): { plan: LinearCutPlan; ms: number } {
+  const t0 = performance.now();
+  const plan = planLinearCuts(req);
+  return { plan, ms: performance.now() - t0 };
+}
+
+function median(xs: readonly number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  if (s.length === 0) return Number.NaN;
+  const mid = Math.floor(s.length / 2);
+  return s.length % 2 === 1 ? (s[mid] ?? Number.NaN) : ((s[mid - 1] ?? 0) + (s[mid] ?? 0)) / 2;
+}
+
+/** mulberry32 (Tommy Ettinger's public-domain generator): tiny, seedable, good enough for test data. */
+function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const WOOD_CASES = 50;
+const WOOD_MAX_PIECES = 60;
+
+/** A furniture-like cut list: 5–12 parts of 6–90 in to the 1/16 in, 1–8 of each, at most 60 pieces, from 8/10/12 ft 2x4s. */
+function woodworkingRequest(random: () => number): LinearCutRequest {
+  const int = (lo: number, hi: number): number => lo + Math.floor(random() * (hi - lo + 1));
+  const distinct = int(5, 12);
+  const parts: LinearCutRequest['parts'] = [];
+  let pieces = 0;
+  for (let i = 0; i < distinct && pieces < WOOD_MAX_PIECES; i++) {
+    const quantity = Math.min(int(1, 8), WOOD_MAX_PIECES - pieces);
+    pieces += quantity;
+    parts.push({ id: `part${i}`, length: int(6 * 16, 90 * 16) / 16, quantity });
+  }
+  return {
+    kerf: 0.125,
+    endTrim: 0,
+    parts,
+    stock: [
+      { id: '8ft', length: 96, price: 4.5 },
+      { id: '10ft', length: 120, price: 6.2 },
+      { id: '12ft', length: 144, price: 8.1 },
+    ],
+    timeLimitMs: TIME_LIMIT_MS,
+  };
+}
+
+function main(): void {
+  const optima = JSON.parse(readFileSync(join(BINPACKING, 'optima.json'), 'utf8')) as Record<string, Optimum>;
+  const times: number[] = [];
+  let instances = 0;
+  let hits = 0;
+  let proven = 0;
+  let invalid = 0;
+  console.log(`Falkenauer instances, one stock of price 1, kerf 0, timeLimitMs ${TIME_LIMIT_MS} (data: ${BINPACKING})`);
+  console.log('  id        boards  optimum  optimal     ms');
+  for (const set of SETS) {
+    for (const inst of parseOrlib(readFileSync(join(BINPACKING, set.file), 'utf8'))) {
+      const opt = optima[inst.id];
+      if (!opt?.proven_optimal) throw new Error(`optima.json has no proven optimum for ${inst.id}`);
+      const req = binPackingRequest(inst);
+      const { plan, ms } = timed(req);
+      const problem = checkPlan(req, plan);
+      instances++;
+      times.push(ms);
+      if (problem) invalid++;
+      else if (plan.boards.length === opt.best_known_bins) hits++;
+      if (plan.optimal) proven++;
+      const mark = problem ? `  INVALID: ${problem}` : plan.boards.length > opt.best_known_bins ? '  MISSED' : '';
+      console.log(
+        `  ${inst.id.padEnd(9)} ${String(plan.boards.length).padStart(6)}  ${String(opt.best_known_bins).padStart(7)}  ${String(plan.optimal).padEnd(7)} ${ms.toFixed(0).padStart(6)}${mark}`,
+      );
+    }
+  }
+  console.log(
+    `Totals: ${hits}/${instances} at the optimum, ${proven}/${instances} proven optimal by the plan, ${invalid} invalid; time max ${Math.max(...times).toFixed(0)} ms, median ${median(times).toFixed(0)} ms`,
+  );
+
+  const random = mulberry32(20240611);
+  const woodTimes: number[] = [];
+  const provedTimes: number[] = [];
+  let woodInvalid = 0;
+  let woodPieces = 0;
+  for (let c = 0; c < WOOD_CASES; c++) {
+    const req = woodworkingRequest(random);
+    woodPieces += req.parts.reduce((a, p) => a + p.quantity, 0);
+    const { plan, ms } = timed(req);
+    if (checkPlan(req, plan)) woodInvalid++;
+    woodTimes.push(ms);
+    if (plan.optimal) provedTimes.push(ms);
+    else console.log(`  woodworking case ${c}: not proven, $${plan.totalCost.toFixed(2)} against bound $${plan.lowerBound.toFixed(2)}, ${ms.toFixed(0)} ms`);
+  }
+  console.log(
+    `Woodworking cut lists (${WOOD_CASES} cases, ${(woodPieces / WOOD_CASES).toFixed(1)} pieces on average, 8/10/12 ft at $4.50/$6.20/$8.10, kerf 1/8 in):`,
+  );
+  // Unproven cases ran to the time limit, so counting them at their time keeps the median honest.
+  console.log(
+    `  proved optimal ${provedTimes.length}/${WOOD_CASES}, ${woodInvalid} invalid; median time to a proven optimum ${median(woodTimes).toFixed(1)} ms (over proved cases only ${median(provedTimes).toFixed(1)} ms), max ${Math.max(...woodTimes).toFixed(0)} ms`,
+  );
+}
+
+main();

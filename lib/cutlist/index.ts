@@ -11,3 +11,16 @@ export {
   type LinearStock,
   type LinearUnplaced,
 } from './linear';
+export {
+  isGuillotine,
+  planSheetCuts,
+  type SheetCutPlan,
+  type SheetCutRequest,
+  type SheetGrain,
+  type SheetLayout,
+  type SheetPart,
+  type SheetPlacement,
+  type SheetPurchase,
+  type SheetStock,
+  type SheetUnplaced,
+} from './sheet';

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { DEMO_CHANNEL, seedDemo } from './seeds/demo';
 import { seedDemoEpisode } from './seeds/demo-episode';
+import { seedDemoStock } from './seeds/demo-stock';
 
 type SeedStep = { key: string; run: (trx: Knex.Transaction) => Promise<void> };
 
@@ -13,6 +14,13 @@ const steps: SeedStep[] = [
     run: async (trx) => {
       const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
       if (channel) await seedDemoEpisode(trx, channel.id as string);
+    },
+  },
+  {
+    key: 'demo_stock_seeded',
+    run: async (trx) => {
+      const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
+      if (channel) await seedDemoStock(trx, channel.id as string);
     },
   },
 ];

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import * as foundation from './20261201000000_foundation';
 import * as episodes from './20261201100000_episodes';
+import * as cutlist from './20261202000000_cutlist';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -9,6 +10,7 @@ type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Prom
 const migrations: Record<string, Migration> = {
   '20261201000000_foundation': foundation,
   '20261201100000_episodes': episodes,
+  '20261202000000_cutlist': cutlist,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

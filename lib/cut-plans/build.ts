@@ -1,0 +1,207 @@
+/** Turns a parts list and the stock rack into a cut plan: one planner run per stock item. No I/O. */
+import { planLinearCuts, planSheetCuts } from '@/lib/cutlist';
+import { boardFeet, parseNominalProfile, softwoodBoardFeet } from '@/lib/lumber';
+import type { CutSettingsDto, LumberOffer, SheetOffer, StockItemDto } from '@/lib/stock/schemas';
+
+export type PlanPart = {
+  id: string;
+  name: string;
+  quantity: number;
+  lengthIn: number;
+  widthIn: number | null;
+  thicknessIn: number | null;
+  grain: 'length' | 'any';
+  stockItemId: string | null;
+  cutCount?: number;
+};
+
+export type PlanPiece = { partId: string; name: string; pieceIndex: number; x: number; y: number; lengthIn: number; widthIn: number; rotated: boolean };
+export type PlanBoard = { sizeKey: string; lengthIn: number; widthIn: number; pieces: PlanPiece[]; offcutIn: number; keepOffcut: boolean };
+export type PlanPurchase = { sizeKey: string; lengthIn: number; widthIn: number | null; count: number; unitCents: number; costCents: number };
+export type PlanUnplaced = { partId: string; name: string; quantity: number; reason: string };
+
+export type StockPlan = {
+  stock: Pick<StockItemDto, 'id' | 'kind' | 'name' | 'thicknessIn' | 'widthIn'>;
+  boards: PlanBoard[];
+  purchase: PlanPurchase[];
+  costCents: number;
+  lowerBoundCents: number;
+  optimal: boolean;
+  /** Lumber only: board feet bought. */
+  boardFeet: number | null;
+  /** Sheets only: square feet bought. */
+  squareFeet: number | null;
+  wastePercent: number;
+  unplaced: PlanUnplaced[];
+};
+
+export type CutPlan = {
+  groups: StockPlan[];
+  /** Parts with no stock chosen yet. */
+  noStock: PlanUnplaced[];
+  costCents: number;
+  boardFeet: number;
+  optimal: boolean;
+  pieceCount: number;
+  /** Pieces of each part already cut, for the cut list tick-off. */
+  cutCounts: Record<string, number>;
+};
+
+const EPS = 1e-6;
+const sizeKey = (lengthIn: number, widthIn?: number) => (widthIn === undefined ? `${round4(lengthIn)}` : `${round4(widthIn)}x${round4(lengthIn)}`);
+const round4 = (n: number) => Math.round(n * 10000) / 10000;
+
+function lumberUnitCents(stock: StockItemDto, lengthIn: number, offer: LumberOffer): number {
+  if (stock.kind !== 'hardwood') return offer.priceCents;
+  return Math.round(boardFeet(stock.thicknessIn, stock.widthIn ?? 0, lengthIn) * (stock.pricePerBoardFootCents ?? 0));
+}
+
+function lumberBoardFeet(stock: StockItemDto, lengthIn: number): number {
+  if (stock.kind === 'softwood') return softwoodBoardFeet(parseNominalProfile(stock.nominal), lengthIn);
+  return boardFeet(stock.thicknessIn, stock.widthIn ?? 0, lengthIn);
+}
+
+function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSettingsDto, timeLimitMs: number): StockPlan {
+  const width = stock.widthIn ?? 0;
+  const unplaced: PlanUnplaced[] = [];
+  const fits = parts.filter((p) => {
+    if (p.thicknessIn !== null && p.thicknessIn > stock.thicknessIn + EPS) {
+      unplaced.push({ partId: p.id, name: p.name, quantity: p.quantity, reason: `Thicker than the ${stock.name}.` });
+      return false;
+    }
+    if (p.widthIn !== null && p.widthIn > width + EPS) {
+      unplaced.push({ partId: p.id, name: p.name, quantity: p.quantity, reason: `Wider than the ${stock.name}; glue up a panel or choose wider stock.` });
+      return false;
+    }
+    return true;
+  });
+  const offers = stock.offers as LumberOffer[];
+  const result = planLinearCuts({
+    kerf: settings.kerfIn,
+    endTrim: settings.endTrimIn,
+    parts: fits.map((p) => ({ id: p.id, length: p.lengthIn, quantity: p.quantity, label: p.name })),
+    stock: offers.map((o) => ({ id: sizeKey(o.lengthIn), length: o.lengthIn, price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
+    timeLimitMs,
+  });
+  const names = new Map(parts.map((p) => [p.id, p]));
+  const seen = new Map<string, number>();
+  const boards: PlanBoard[] = result.boards.map((b) => ({
+    sizeKey: b.stockId,
+    lengthIn: b.length,
+    widthIn: width,
+    pieces: b.cuts.map((c) => {
+      const index = seen.get(c.partId) ?? 0;
+      seen.set(c.partId, index + 1);
+      const part = names.get(c.partId);
+      return { partId: c.partId, name: part?.name ?? '', pieceIndex: index, x: 0, y: c.start, lengthIn: c.length, widthIn: part?.widthIn ?? width, rotated: false };
+    }),
+    offcutIn: b.offcut,
+    keepOffcut: b.offcut >= settings.minOffcutIn && b.offcut > 0,
+  }));
+  const purchase = result.purchase.map((p) => {
+    const offer = offers.find((o) => sizeKey(o.lengthIn) === p.stockId);
+    const lengthIn = offer?.lengthIn ?? 0;
+    const unitCents = offer ? lumberUnitCents(stock, lengthIn, offer) : 0;
+    return { sizeKey: p.stockId, lengthIn, widthIn: null, count: p.count, unitCents, costCents: unitCents * p.count };
+  });
+  const bought = boards.reduce((a, b) => a + b.lengthIn, 0);
+  const used = boards.reduce((a, b) => a + b.pieces.reduce((s, c) => s + c.lengthIn, 0), 0);
+  return {
+    stock: pickStock(stock),
+    boards,
+    purchase,
+    costCents: purchase.reduce((a, p) => a + p.costCents, 0),
+    lowerBoundCents: Math.round(result.lowerBound * 100),
+    optimal: result.optimal && unplaced.length === 0,
+    boardFeet: round4(boards.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn), 0)),
+    squareFeet: null,
+    wastePercent: bought > 0 ? round4((100 * (bought - used)) / bought) : 0,
+    unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
+  };
+}
+
+function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSettingsDto, timeLimitMs: number): StockPlan {
+  const unplaced: PlanUnplaced[] = [];
+  const fits = parts.filter((p) => {
+    if (p.widthIn === null) {
+      unplaced.push({ partId: p.id, name: p.name, quantity: p.quantity, reason: 'Needs a width to be cut from sheet goods.' });
+      return false;
+    }
+    if (p.thicknessIn !== null && p.thicknessIn > stock.thicknessIn + EPS) {
+      unplaced.push({ partId: p.id, name: p.name, quantity: p.quantity, reason: `Thicker than the ${stock.name}.` });
+      return false;
+    }
+    return true;
+  });
+  const offers = stock.offers as SheetOffer[];
+  const result = planSheetCuts({
+    kerf: settings.kerfIn,
+    parts: fits.map((p) => ({ id: p.id, width: p.widthIn ?? 0, length: p.lengthIn, quantity: p.quantity, label: p.name, grain: p.grain })),
+    stock: offers.map((o) => ({ id: sizeKey(o.lengthIn, o.widthIn), width: o.widthIn, length: o.lengthIn, price: o.priceCents / 100 })),
+    timeLimitMs,
+  });
+  const names = new Map(parts.map((p) => [p.id, p]));
+  const seen = new Map<string, number>();
+  const boards: PlanBoard[] = result.sheets.map((s) => ({
+    sizeKey: s.stockId,
+    lengthIn: s.length,
+    widthIn: s.width,
+    pieces: s.placements.map((c) => {
+      const index = seen.get(c.partId) ?? 0;
+      seen.set(c.partId, index + 1);
+      return { partId: c.partId, name: names.get(c.partId)?.name ?? '', pieceIndex: index, x: c.x, y: c.y, lengthIn: c.length, widthIn: c.width, rotated: c.rotated };
+    }),
+    offcutIn: 0,
+    keepOffcut: false,
+  }));
+  const purchase = result.purchase.map((p) => {
+    const offer = offers.find((o) => sizeKey(o.lengthIn, o.widthIn) === p.stockId);
+    const unitCents = offer?.priceCents ?? 0;
+    return { sizeKey: p.stockId, lengthIn: offer?.lengthIn ?? 0, widthIn: offer?.widthIn ?? null, count: p.count, unitCents, costCents: unitCents * p.count };
+  });
+  const bought = boards.reduce((a, b) => a + b.lengthIn * b.widthIn, 0);
+  const used = boards.reduce((a, b) => a + b.pieces.reduce((s, c) => s + c.lengthIn * c.widthIn, 0), 0);
+  return {
+    stock: pickStock(stock),
+    boards,
+    purchase,
+    costCents: purchase.reduce((a, p) => a + p.costCents, 0),
+    lowerBoundCents: Math.round(result.lowerBound * 100),
+    optimal: result.optimal && unplaced.length === 0,
+    boardFeet: null,
+    squareFeet: round4(bought / 144),
+    wastePercent: bought > 0 ? round4((100 * (bought - used)) / bought) : 0,
+    unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
+  };
+}
+
+const pickStock = (s: StockItemDto): StockPlan['stock'] => ({ id: s.id, kind: s.kind, name: s.name, thicknessIn: s.thicknessIn, widthIn: s.widthIn });
+
+/** One plan per stock item used; parts without stock are listed, not guessed. */
+export function buildCutPlan(parts: PlanPart[], stock: StockItemDto[], settings: CutSettingsDto, timeLimitMs = 1000): CutPlan {
+  const byStock = new Map<string, PlanPart[]>();
+  const noStock: PlanUnplaced[] = [];
+  const rack = new Map(stock.map((s) => [s.id, s]));
+  for (const p of parts) {
+    if (!p.stockItemId || !rack.has(p.stockItemId)) {
+      noStock.push({ partId: p.id, name: p.name, quantity: p.quantity, reason: 'Choose stock for this part.' });
+      continue;
+    }
+    byStock.set(p.stockItemId, [...(byStock.get(p.stockItemId) ?? []), p]);
+  }
+  const groups: StockPlan[] = [];
+  for (const s of stock) {
+    const group = byStock.get(s.id);
+    if (!group) continue;
+    groups.push(s.kind === 'sheet' ? planSheets(s, group, settings, timeLimitMs) : planLumber(s, group, settings, timeLimitMs));
+  }
+  return {
+    groups,
+    noStock,
+    costCents: groups.reduce((a, g) => a + g.costCents, 0),
+    boardFeet: round4(groups.reduce((a, g) => a + (g.boardFeet ?? 0), 0)),
+    optimal: groups.every((g) => g.optimal) && noStock.length === 0,
+    pieceCount: groups.reduce((a, g) => a + g.boards.reduce((s, b) => s + b.pieces.length, 0), 0),
+    cutCounts: Object.fromEntries(parts.map((p) => [p.id, p.cutCount ?? 0])),
+  };
+}

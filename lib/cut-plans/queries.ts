@@ -1,0 +1,63 @@
+import 'server-only';
+import { db } from '@/db/client';
+import { findEpisode } from '@/lib/episodes/queries';
+import { notFound } from '@/lib/errors';
+import { listEpisodeParts, listSegmentParts } from '@/lib/parts/queries';
+import { getCutSettings, listStock } from '@/lib/stock/queries';
+import { buildCutPlan, type CutPlan } from './build';
+import type { ShoppingTickDto, ShoppingTickInput } from './schemas';
+
+// Kept short so a page never waits long; the planner returns its best plan and says if it is proven.
+const WHOLE_MS = 1000;
+const LEVEL_MS = 300;
+
+export type EpisodePlanDto = {
+  whole: CutPlan;
+  levels: { level: number; plan: CutPlan }[];
+  ticks: ShoppingTickDto[];
+  lengthUnit: 'in' | 'mm';
+  minOffcutIn: number;
+  kerfIn: number;
+};
+
+export async function planEpisode(channelId: string, episodeId: string): Promise<EpisodePlanDto> {
+  await findEpisode(channelId, episodeId);
+  const [parts, stock, settings, ticks] = await Promise.all([
+    listEpisodeParts(channelId, episodeId),
+    listStock(channelId),
+    getCutSettings(channelId),
+    listTicks(episodeId),
+  ]);
+  const levelNumbers = [...new Set(parts.map((p) => p.level).filter((l): l is number => l !== null))].sort();
+  return {
+    whole: buildCutPlan(parts, stock, settings, WHOLE_MS),
+    levels: levelNumbers.map((level) => ({ level, plan: buildCutPlan(parts.filter((p) => p.level === level), stock, settings, LEVEL_MS) })),
+    ticks,
+    lengthUnit: settings.lengthUnit,
+    minOffcutIn: settings.minOffcutIn,
+    kerfIn: settings.kerfIn,
+  };
+}
+
+export async function planSegment(channelId: string, segmentId: string): Promise<{ plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number }> {
+  const [parts, stock, settings] = await Promise.all([listSegmentParts(channelId, segmentId), listStock(channelId), getCutSettings(channelId)]);
+  return { plan: buildCutPlan(parts, stock, settings, WHOLE_MS), lengthUnit: settings.lengthUnit, kerfIn: settings.kerfIn };
+}
+
+async function listTicks(episodeId: string): Promise<ShoppingTickDto[]> {
+  const rows: { stock_item_id: string; size_key: string; bought: number }[] = await db('shopping_ticks')
+    .where({ episode_id: episodeId })
+    .select('stock_item_id', 'size_key', 'bought');
+  return rows.map((r) => ({ stockItemId: r.stock_item_id, sizeKey: r.size_key, bought: r.bought }));
+}
+
+export async function setShoppingTick(channelId: string, episodeId: string, userId: string, input: ShoppingTickInput): Promise<ShoppingTickDto> {
+  await findEpisode(channelId, episodeId);
+  const stock = await db('stock_items').where({ id: input.stockItemId, channel_id: channelId }).first('id');
+  if (!stock) throw notFound('That stock item');
+  await db('shopping_ticks')
+    .insert({ episode_id: episodeId, stock_item_id: input.stockItemId, size_key: input.sizeKey, bought: input.bought, updated_by: userId })
+    .onConflict(['episode_id', 'stock_item_id', 'size_key'])
+    .merge({ bought: input.bought, updated_by: userId, updated_at: db.fn.now() });
+  return { stockItemId: input.stockItemId, sizeKey: input.sizeKey, bought: input.bought };
+}

@@ -1,0 +1,64 @@
+import { dressedSize, parseNominalProfile, plywoodActualThickness } from '@/lib/lumber';
+import { formatLength } from '@/lib/units';
+import type { CreateStockInput, LumberOffer, SheetOffer } from './schemas';
+
+export type StockDefinition = {
+  kind: CreateStockInput['kind'];
+  name: string;
+  species: string;
+  nominal: string;
+  thicknessIn: number;
+  widthIn: number | null;
+  pricePerBoardFootCents: number | null;
+  offers: (LumberOffer | SheetOffer)[];
+};
+
+const inch = (n: number) => formatLength(n, { unit: 'in' });
+
+/** Works out actual sizes and the display name of a stock item from what the user typed. */
+export function describeStock(input: CreateStockInput): StockDefinition {
+  switch (input.kind) {
+    case 'softwood': {
+      const size = dressedSize(parseNominalProfile(input.nominal));
+      return {
+        kind: 'softwood',
+        name: `${input.nominal} ${input.species}`,
+        species: input.species,
+        nominal: input.nominal,
+        thicknessIn: size.thickness,
+        widthIn: size.width,
+        pricePerBoardFootCents: null,
+        offers: sortOffers(input.offers.map((o) => ({ lengthIn: o.lengthIn, priceCents: o.price }))),
+      };
+    }
+    case 'hardwood':
+      return {
+        kind: 'hardwood',
+        name: `${input.nominal} ${input.species}, ${inch(input.widthIn)} wide`,
+        species: input.species,
+        nominal: input.nominal,
+        // Hardwood is sold and tallied on its rough thickness in quarters; the shop surfaces it.
+        thicknessIn: Number(input.nominal.split('/')[0]) / 4,
+        widthIn: input.widthIn,
+        pricePerBoardFootCents: input.pricePerBoardFoot,
+        offers: sortOffers(input.offers.map((o) => ({ lengthIn: o.lengthIn, priceCents: 0 }))),
+      };
+    case 'sheet': {
+      const actual = input.plywood ? plywoodActualThickness(input.nominal) : undefined;
+      return {
+        kind: 'sheet',
+        name: `${inch(input.nominal)} ${input.species}`,
+        species: input.species,
+        nominal: inch(input.nominal).replace('"', ''),
+        thicknessIn: actual ?? input.nominal,
+        widthIn: null,
+        pricePerBoardFootCents: null,
+        offers: sortOffers(input.offers.map((o) => ({ widthIn: o.widthIn, lengthIn: o.lengthIn, priceCents: o.price }))),
+      };
+    }
+  }
+}
+
+function sortOffers<T extends { lengthIn: number; widthIn?: number }>(offers: T[]): T[] {
+  return [...offers].sort((a, b) => (a.widthIn ?? 0) - (b.widthIn ?? 0) || a.lengthIn - b.lengthIn);
+}

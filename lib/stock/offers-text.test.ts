@@ -1,0 +1,25 @@
+import { describe, expect, it } from 'vitest';
+import { offersToText, parseOffersText } from './offers-text';
+
+describe('parseOffersText', () => {
+  it('reads lumber, hardwood and sheet sizes', () => {
+    expect(parseOffersText('softwood', '8ft 4.50; 10ft $6.20').offers).toEqual([
+      { lengthIn: '8ft', price: '4.50' },
+      { lengthIn: '10ft', price: '6.20' },
+    ]);
+    expect(parseOffersText('hardwood', '8ft\n10ft').offers).toEqual([{ lengthIn: '8ft' }, { lengthIn: '10ft' }]);
+    expect(parseOffersText('sheet', '48 x 96 68.00').offers).toEqual([{ widthIn: '48', lengthIn: '96', price: '68.00' }]);
+  });
+  it('explains a line it cannot read', () => {
+    expect(parseOffersText('softwood', '8ft').error).toMatch(/size then a price/);
+    expect(parseOffersText('sheet', '96 68').error).toMatch(/width x length/);
+    expect(parseOffersText('softwood', ' ').error).toMatch(/at least one/);
+  });
+  it('round-trips what the rack shows', () => {
+    const text = offersToText({
+      id: 'x', kind: 'sheet', name: 'n', species: 's', nominal: '3/4', thicknessIn: 0.71875, widthIn: null, pricePerBoardFootCents: null,
+      offers: [{ widthIn: 48, lengthIn: 96, priceCents: 6800 }],
+    });
+    expect(parseOffersText('sheet', text).offers).toEqual([{ widthIn: '48', lengthIn: '96', price: '68.00' }]);
+  });
+});

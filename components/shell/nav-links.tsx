@@ -7,6 +7,7 @@ const sections = [
   { href: '', label: 'Dashboard' },
   { href: '/episodes', label: 'Episodes' },
   { href: '/shots', label: 'Shots' },
+  { href: '/stock', label: 'Stock rack' },
   { href: '/sponsors', label: 'Sponsors' },
   { href: '/settings', label: 'Settings' },
 ] as const;

@@ -47,11 +47,16 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
             </div>
           </dl>
         </div>
-        {board.canEdit ? (
-          <Link href={`${base}/${episode.id}/edit`} className={buttonClasses('secondary')}>
-            Edit episode
+        <div className="flex flex-wrap gap-2">
+          <Link href={`${base}/${episode.id}/cut-plan`} className={buttonClasses('secondary')}>
+            Cut plan
           </Link>
-        ) : null}
+          {board.canEdit ? (
+            <Link href={`${base}/${episode.id}/edit`} className={buttonClasses('secondary')}>
+              Edit episode
+            </Link>
+          ) : null}
+        </div>
       </header>
       {board.canEdit && board.segments.length === 0 ? (
         <div className="mb-6">

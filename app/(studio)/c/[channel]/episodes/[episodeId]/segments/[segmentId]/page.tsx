@@ -3,15 +3,19 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ScriptView } from '@/components/script/script-view';
 import { ActionTimeForm } from '@/components/segments/action-time-form';
+import { PartsEditor } from '@/components/parts/parts-editor';
 import { LiveScriptEditor } from '@/components/segments/live-script-editor';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
+import { planSegment } from '@/lib/cut-plans/queries';
 import { findEpisode } from '@/lib/episodes/queries';
+import { listSegmentParts } from '@/lib/parts/queries';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { formatDuration, spokenSeconds } from '@/lib/runtime';
 import { findSegment } from '@/lib/segments/queries';
 import { kindLabels } from '@/lib/segments/schemas';
 import { getScript } from '@/lib/segments/script-queries';
+import { listStock } from '@/lib/stock/queries';
 
 export const metadata: Metadata = { title: 'Segment' };
 
@@ -28,6 +32,10 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
     ]),
   );
   if (segment.episodeId !== episode.id) notFound();
+  const build = segment.kind === 'build' && can(member.role, 'cutlist.read');
+  const cut = build
+    ? await Promise.all([listSegmentParts(member.channel.id, segment.id), listStock(member.channel.id), planSegment(member.channel.id, segment.id)])
+    : null;
   const canWrite = can(member.role, 'scripts.write');
   const spoken = spokenSeconds(segment.wordCount, member.channel.speakingRateWpm);
   const base = `/c/${member.channel.slug}/episodes/${episode.id}`;
@@ -76,6 +84,22 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
           </div>
         )}
       </section>
+      {cut ? (
+        <section aria-labelledby="parts-heading" className="mt-8">
+          <h2 id="parts-heading" className="mb-3 text-lg font-bold">
+            Parts list
+          </h2>
+          <PartsEditor
+            channelSlug={member.channel.slug}
+            segmentId={segment.id}
+            episodeId={episode.id}
+            canEdit={can(member.role, 'cutlist.edit')}
+            initialParts={cut[0]}
+            stock={cut[1]}
+            initialPlan={cut[2]}
+          />
+        </section>
+      ) : null}
     </>
   );
 }

@@ -1,0 +1,20 @@
+import type { Metadata } from 'next';
+import { StockRack } from '@/components/stock/stock-rack';
+import { PageHeader } from '@/components/ui/page-header';
+import { can } from '@/lib/auth/policy';
+import { requireMember } from '@/lib/auth/session';
+import { getCutSettings, listStock } from '@/lib/stock/queries';
+
+export const metadata: Metadata = { title: 'Stock rack' };
+
+export default async function StockPage({ params }: { params: Promise<{ channel: string }> }) {
+  const member = await requireMember((await params).channel, 'cutlist.read');
+  const [stock, settings] = await Promise.all([listStock(member.channel.id), getCutSettings(member.channel.id)]);
+  const canEdit = can(member.role, 'cutlist.edit');
+  return (
+    <>
+      <PageHeader title="Stock rack">The lumber and sheet goods your store sells, with the sizes on sale and their prices.{canEdit ? '' : ' Read-only for Editors.'}</PageHeader>
+      <StockRack channelSlug={member.channel.slug} canEdit={canEdit} initialStock={stock} initialSettings={settings} />
+    </>
+  );
+}

@@ -1,0 +1,166 @@
+'use client';
+
+import type { CutPlan, StockPlan } from '@/lib/cut-plans/build';
+import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
+import { formatLength } from '@/lib/units';
+import { BoardDiagram } from './board-diagram';
+
+export const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
+
+type Props = {
+  plan: CutPlan;
+  unit: 'in' | 'mm';
+  kerfIn: number;
+  shopping?: { ticks: ShoppingTickDto[]; onTick: (t: ShoppingTickDto) => void; disabled: boolean } | undefined;
+  cutting?: { onCut: (partId: string, cutCount: number) => void; disabled: boolean } | undefined;
+};
+
+export function CutPlanView({ plan, unit, kerfIn, shopping, cutting }: Props) {
+  const fmt = (n: number) => formatLength(n, { unit });
+  if (plan.groups.length === 0 && plan.noStock.length === 0) {
+    return <p className="text-sm text-ink-faint">No parts yet. Add parts to a Build segment to see what to buy and how to cut it.</p>;
+  }
+  const cutCounts = new Map(Object.entries(plan.cutCounts));
+  return (
+    <div className="space-y-6">
+      <dl className="grid grid-cols-2 gap-3 text-sm sm:grid-cols-4">
+        <Stat label="Stock to buy" value={money(plan.costCents)} />
+        <Stat label="Board feet" value={plan.boardFeet.toFixed(2)} />
+        <Stat label="Pieces" value={String(plan.pieceCount)} />
+        <Stat label="Kerf" value={fmt(kerfIn)} />
+      </dl>
+      <p role="status" className={`text-sm font-bold ${plan.optimal ? 'text-ok' : 'text-ink-soft'}`}>
+        {plan.optimal ? 'Proven least-cost plan.' : 'Best plan found in the time allowed; not proven least-cost.'}
+      </p>
+      {plan.noStock.length > 0 ? (
+        <div className="rounded-md border-l-4 border-attention bg-attention-soft px-4 py-3 text-sm text-attention-ink">
+          <p className="font-bold">Parts without stock</p>
+          <ul className="list-disc pl-5">
+            {plan.noStock.map((u) => (
+              <li key={u.partId}>
+                {u.quantity} × {u.name}: choose stock for it in the parts list.
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      {plan.groups.map((g) => (
+        <StockSection key={g.stock.id} group={g} fmt={fmt} unit={unit} shopping={shopping} cutting={cutting} cutCounts={cutCounts} />
+      ))}
+    </div>
+  );
+}
+
+function StockSection({
+  group: g,
+  fmt,
+  unit,
+  shopping,
+  cutting,
+  cutCounts,
+}: {
+  group: StockPlan;
+  fmt: (n: number) => string;
+  unit: 'in' | 'mm';
+  shopping: Props['shopping'];
+  cutting: Props['cutting'];
+  cutCounts: Map<string, number>;
+}) {
+  const sheet = g.stock.kind === 'sheet';
+  const sizeLabel = (p: { lengthIn: number; widthIn: number | null }) => (p.widthIn !== null ? `${fmt(p.widthIn)} × ${fmt(p.lengthIn)}` : fmt(p.lengthIn));
+  return (
+    <section aria-label={g.stock.name} className="break-inside-avoid rounded-card border border-paper-edge bg-white/60 p-4 shadow-card">
+      <h3 className="text-base font-bold">{g.stock.name}</h3>
+      <p className="text-xs text-ink-faint">
+        {sheet ? `${g.squareFeet?.toFixed(1)} sq ft` : `${g.boardFeet?.toFixed(2)} board feet`} · waste {g.wastePercent.toFixed(1)}% ·{' '}
+        {g.optimal ? 'proven least-cost' : `not proven (bound ${money(g.lowerBoundCents)})`}
+      </p>
+      <table className="mt-3 w-full text-left text-sm">
+        <caption className="sr-only">Buy: {g.stock.name}</caption>
+        <thead>
+          <tr className="border-b border-paper-edge text-xs text-ink-faint">
+            {shopping ? <th className="py-1 pr-2">Bought</th> : null}
+            <th className="py-1 pr-2">Size</th>
+            <th className="py-1 pr-2 text-right">Count</th>
+            <th className="py-1 pr-2 text-right">Each</th>
+            <th className="py-1 text-right">Cost</th>
+          </tr>
+        </thead>
+        <tbody>
+          {g.purchase.map((p) => {
+            const bought = shopping?.ticks.find((t) => t.stockItemId === g.stock.id && t.sizeKey === p.sizeKey)?.bought ?? 0;
+            const label = `${p.count} × ${g.stock.name}, ${sizeLabel(p)}`;
+            return (
+              <tr key={p.sizeKey} className="border-b border-paper-edge/60">
+                {shopping ? (
+                  <td className="py-1 pr-2">
+                    <input
+                      type="checkbox"
+                      className="h-6 w-6 accent-ok"
+                      aria-label={`Bought ${label}`}
+                      checked={bought >= p.count}
+                      disabled={shopping.disabled}
+                      onChange={(e) => shopping.onTick({ stockItemId: g.stock.id, sizeKey: p.sizeKey, bought: e.target.checked ? p.count : 0 })}
+                    />
+                  </td>
+                ) : null}
+                <td className="py-1 pr-2 font-mono">{sizeLabel(p)}</td>
+                <td className="py-1 pr-2 text-right font-mono">{p.count}</td>
+                <td className="py-1 pr-2 text-right font-mono">{money(p.unitCents)}</td>
+                <td className="py-1 text-right font-mono">{money(p.costCents)}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      {g.unplaced.length > 0 ? (
+        <ul className="mt-3 list-disc rounded-md bg-attention-soft py-2 pl-8 pr-3 text-sm text-attention-ink">
+          {g.unplaced.map((u) => (
+            <li key={u.partId}>
+              {u.quantity} × {u.name} not placed: {u.reason}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <ol className="mt-4 space-y-4">
+        {g.boards.map((b, i) => (
+          <li key={i}>
+            <BoardDiagram board={b} sheet={sheet} unit={unit} cutCounts={cutCounts} title={`${sheet ? 'Sheet' : 'Board'} ${i + 1}: ${sizeLabel({ lengthIn: b.lengthIn, widthIn: sheet ? b.widthIn : null })}`} />
+            {cutting ? (
+              <ul className="mt-2 flex flex-wrap gap-2" aria-label={`Cuts on ${sheet ? 'sheet' : 'board'} ${i + 1}`}>
+                {b.pieces.map((p) => {
+                  const done = (cutCounts.get(p.partId) ?? 0) > p.pieceIndex;
+                  return (
+                    <li key={`${p.partId}-${p.pieceIndex}`}>
+                      <label className="inline-flex min-h-touch cursor-pointer items-center gap-2 rounded-md border border-ink/20 bg-white px-3 text-sm">
+                        <input
+                          type="checkbox"
+                          className="h-5 w-5 accent-ok"
+                          checked={done}
+                          disabled={cutting.disabled}
+                          onChange={(e) => cutting.onCut(p.partId, Math.max(0, (cutCounts.get(p.partId) ?? 0) + (e.target.checked ? 1 : -1)))}
+                        />
+                        <span>
+                          Cut {p.name} <span className="font-mono">{fmt(p.lengthIn)}</span>
+                        </span>
+                      </label>
+                    </li>
+                  );
+                })}
+              </ul>
+            ) : null}
+          </li>
+        ))}
+      </ol>
+    </section>
+  );
+}
+
+function Stat({ label, value }: { label: string; value: string }) {
+  return (
+    <div className="rounded-md bg-paper-deep/70 px-3 py-2">
+      <dt className="text-xs text-ink-faint">{label}</dt>
+      <dd className="font-mono text-base">{value}</dd>
+    </div>
+  );
+}

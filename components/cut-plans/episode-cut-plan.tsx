@@ -1,0 +1,118 @@
+'use client';
+
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { ApiError, apiFetch } from '@/lib/api/client';
+import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
+import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
+import { CutPlanView, money } from './cut-plan-view';
+import { SafetyNote } from './safety-note';
+
+type Props = { channelSlug: string; episodeId: string; levelLabels: string[]; canEdit: boolean; initial: EpisodePlanDto };
+
+export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, initial }: Props) {
+  const key = ['cut-plan', 'episode', episodeId];
+  const client = useQueryClient();
+  const [scope, setScope] = useState<'whole' | number>('whole');
+  const [error, setError] = useState<string | undefined>();
+  const plan = useQuery({
+    queryKey: key,
+    queryFn: () => apiFetch<EpisodePlanDto>(`/api/channels/${channelSlug}/episodes/${episodeId}/cut-plan`),
+    initialData: initial,
+    staleTime: 5_000,
+  });
+  const onError = (e: unknown) => setError(e instanceof ApiError ? e.message : 'Could not save.');
+  const tick = useMutation({
+    mutationFn: (t: ShoppingTickDto) => apiFetch(`/api/channels/${channelSlug}/episodes/${episodeId}/shopping`, { method: 'PUT', body: t }),
+    onMutate: (t) => {
+      setError(undefined);
+      client.setQueryData<EpisodePlanDto>(key, (d) =>
+        d && { ...d, ticks: [...d.ticks.filter((x) => !(x.stockItemId === t.stockItemId && x.sizeKey === t.sizeKey)), t] },
+      );
+    },
+    onError,
+    onSettled: () => client.invalidateQueries({ queryKey: key }),
+  });
+  const cut = useMutation({
+    mutationFn: ({ partId, cutCount }: { partId: string; cutCount: number }) =>
+      apiFetch(`/api/channels/${channelSlug}/parts/${partId}`, { method: 'PATCH', body: { cutCount } }),
+    onMutate: ({ partId, cutCount }) => {
+      setError(undefined);
+      client.setQueryData<EpisodePlanDto>(key, (d) => {
+        if (!d) return d;
+        const patch = (p: EpisodePlanDto['whole']) => ({ ...p, cutCounts: { ...p.cutCounts, [partId]: cutCount } });
+        return { ...d, whole: patch(d.whole), levels: d.levels.map((l) => ({ ...l, plan: patch(l.plan) })) };
+      });
+    },
+    onError,
+    onSettled: () => client.invalidateQueries({ queryKey: key }),
+  });
+
+  const data = plan.data;
+  const levelName = (n: number) => `Level ${n}${levelLabels[n - 1] ? ` · ${levelLabels[n - 1]}` : ''}`;
+  const shown = scope === 'whole' ? data.whole : data.levels.find((l) => l.level === scope)?.plan ?? data.whole;
+  const separately = data.levels.reduce((a, l) => a + l.plan.costCents, 0);
+  return (
+    <div className="space-y-6">
+      {error ? <Alert tone="attention">{error}</Alert> : null}
+      {data.levels.length > 1 ? (
+        <section aria-labelledby="compare-heading" className="rounded-card border border-paper-edge bg-white/60 p-4 print:hidden">
+          <h2 id="compare-heading" className="font-bold">
+            Levels together or apart
+          </h2>
+          <table className="mt-2 w-full max-w-lg text-left text-sm">
+            <tbody>
+              {data.levels.map((l) => (
+                <tr key={l.level} className="border-b border-paper-edge/60">
+                  <th scope="row" className="py-1 font-normal">
+                    {levelName(l.level)} alone
+                  </th>
+                  <td className="py-1 text-right font-mono">{money(l.plan.costCents)}</td>
+                </tr>
+              ))}
+              <tr className="border-b border-paper-edge/60">
+                <th scope="row" className="py-1 font-normal">
+                  Each level bought separately
+                </th>
+                <td className="py-1 text-right font-mono">{money(separately)}</td>
+              </tr>
+              <tr>
+                <th scope="row" className="py-1 font-bold">
+                  Whole episode, shared stock
+                </th>
+                <td className="py-1 text-right font-mono font-bold">{money(data.whole.costCents)}</td>
+              </tr>
+            </tbody>
+          </table>
+          {separately > data.whole.costCents ? (
+            <p className="mt-2 text-sm text-ok">Buying for all levels at once saves {money(separately - data.whole.costCents)}.</p>
+          ) : null}
+        </section>
+      ) : null}
+      <div role="group" aria-label="Plan for" className="flex flex-wrap gap-2 print:hidden">
+        <Button variant={scope === 'whole' ? 'primary' : 'secondary'} aria-pressed={scope === 'whole'} onClick={() => setScope('whole')}>
+          Whole episode
+        </Button>
+        {data.levels.map((l) => (
+          <Button key={l.level} variant={scope === l.level ? 'primary' : 'secondary'} aria-pressed={scope === l.level} onClick={() => setScope(l.level)}>
+            {levelName(l.level)}
+          </Button>
+        ))}
+        <Button variant="quiet" onClick={() => window.print()}>
+          Print
+        </Button>
+        {plan.isFetching ? <span className="self-center text-sm text-ink-faint">Recomputing…</span> : null}
+      </div>
+      <SafetyNote />
+      <CutPlanView
+        plan={shown}
+        unit={data.lengthUnit}
+        kerfIn={data.kerfIn}
+        shopping={scope === 'whole' && canEdit ? { ticks: data.ticks, onTick: (t) => tick.mutate(t), disabled: tick.isPending } : undefined}
+        cutting={canEdit ? { onCut: (partId, cutCount) => cut.mutate({ partId, cutCount }), disabled: cut.isPending } : undefined}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,175 @@
+'use client';
+
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import Link from 'next/link';
+import { useState } from 'react';
+import { CutPlanView } from '@/components/cut-plans/cut-plan-view';
+import { SafetyNote } from '@/components/cut-plans/safety-note';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { ApiError, apiFetch } from '@/lib/api/client';
+import type { CutPlan } from '@/lib/cut-plans/build';
+import type { FieldErrors } from '@/lib/errors';
+import type { PartDto } from '@/lib/parts/schemas';
+import type { StockItemDto } from '@/lib/stock/schemas';
+import { formatLength } from '@/lib/units';
+import { PartForm, type PartFormValues } from './part-form';
+
+type SegmentPlan = { plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number };
+type Props = {
+  channelSlug: string;
+  segmentId: string;
+  episodeId: string;
+  canEdit: boolean;
+  stock: StockItemDto[];
+  initialParts: PartDto[];
+  initialPlan: SegmentPlan;
+};
+
+export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock, initialParts, initialPlan }: Props) {
+  const client = useQueryClient();
+  const partsKey = ['parts', segmentId];
+  const api = `/api/channels/${channelSlug}`;
+  const parts = useQuery({ queryKey: partsKey, queryFn: () => apiFetch<{ parts: PartDto[] }>(`${api}/segments/${segmentId}/parts`).then((r) => r.parts), initialData: initialParts });
+  const plan = useQuery({ queryKey: ['cut-plan', 'segment', segmentId], queryFn: () => apiFetch<SegmentPlan>(`${api}/segments/${segmentId}/cut-plan`), initialData: initialPlan });
+  const [editing, setEditing] = useState<string | null>(null);
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [message, setMessage] = useState<string | undefined>();
+  const [formKey, setFormKey] = useState(0);
+  const unit = plan.data.lengthUnit;
+  const fmt = (n: number | null) => (n === null ? '—' : formatLength(n, { unit }));
+  const onError = (e: unknown) => {
+    setErrors(e instanceof ApiError ? e.fields : {});
+    setMessage(e instanceof ApiError ? e.message : 'Could not save the part.');
+  };
+  const refresh = () => Promise.all([client.invalidateQueries({ queryKey: partsKey }), client.invalidateQueries({ queryKey: ['cut-plan'] })]);
+  const done = () => {
+    setErrors({});
+    setMessage(undefined);
+    return refresh();
+  };
+  const add = useMutation({
+    mutationFn: (v: PartFormValues) => apiFetch(`${api}/segments/${segmentId}/parts`, { method: 'POST', body: v }),
+    onSuccess: () => done().then(() => setFormKey((k) => k + 1)),
+    onError,
+  });
+  const save = useMutation({
+    mutationFn: ({ id, v }: { id: string; v: PartFormValues }) => apiFetch(`${api}/parts/${id}`, { method: 'PATCH', body: v }),
+    onSuccess: () => done().then(() => setEditing(null)),
+    onError,
+  });
+  const remove = useMutation({
+    mutationFn: (id: string) => apiFetch(`${api}/parts/${id}`, { method: 'DELETE' }),
+    onSuccess: () => done(),
+    onError,
+  });
+  const stockName = (id: string | null) => stock.find((s) => s.id === id)?.name ?? 'Not chosen';
+
+  return (
+    <div className="space-y-6">
+      {message ? <Alert tone="attention">{message}</Alert> : null}
+      {stock.length === 0 ? (
+        <Alert tone="info">
+          The stock rack is empty.{' '}
+          <Link href={`/c/${channelSlug}/stock`} className="underline">
+            Add the lumber and sheet goods you buy
+          </Link>{' '}
+          to plan cuts.
+        </Alert>
+      ) : null}
+      {parts.data.length === 0 ? (
+        <p className="text-sm text-ink-faint">No parts yet.{canEdit ? ' Add the finished pieces this build needs below.' : ''}</p>
+      ) : (
+        <div className="overflow-x-auto">
+          <table className="w-full min-w-[40rem] text-left text-sm">
+            <caption className="sr-only">Parts list</caption>
+            <thead>
+              <tr className="border-b border-paper-edge text-xs text-ink-faint">
+                <th className="py-1 pr-2">Part</th>
+                <th className="py-1 pr-2 text-right">Qty</th>
+                <th className="py-1 pr-2">Length</th>
+                <th className="py-1 pr-2">Width</th>
+                <th className="py-1 pr-2">Thick</th>
+                <th className="py-1 pr-2">Stock</th>
+                <th className="py-1 pr-2">Grain</th>
+                <th className="py-1 pr-2">Cut</th>
+                {canEdit ? <th className="py-1">Actions</th> : null}
+              </tr>
+            </thead>
+            <tbody>
+              {parts.data.map((p) =>
+                editing === p.id ? (
+                  <tr key={p.id}>
+                    <td colSpan={9} className="py-3">
+                      <PartForm
+                        stock={stock}
+                        unit={unit}
+                        part={p}
+                        errors={errors}
+                        pending={save.isPending}
+                        submitLabel="Save part"
+                        onSubmit={(v) => save.mutate({ id: p.id, v })}
+                        onCancel={() => {
+                          setEditing(null);
+                          setErrors({});
+                        }}
+                      />
+                    </td>
+                  </tr>
+                ) : (
+                  <tr key={p.id} className="border-b border-paper-edge/60">
+                    <td className="py-1 pr-2 font-bold">
+                      {p.name}
+                      {p.note ? <span className="block text-xs font-normal text-ink-faint">{p.note}</span> : null}
+                    </td>
+                    <td className="py-1 pr-2 text-right font-mono">{p.quantity}</td>
+                    <td className="py-1 pr-2 font-mono">{fmt(p.lengthIn)}</td>
+                    <td className="py-1 pr-2 font-mono">{fmt(p.widthIn)}</td>
+                    <td className="py-1 pr-2 font-mono">{fmt(p.thicknessIn)}</td>
+                    <td className="py-1 pr-2">{stockName(p.stockItemId)}</td>
+                    <td className="py-1 pr-2">{p.grain === 'length' ? 'Along length' : 'Any'}</td>
+                    <td className="py-1 pr-2 font-mono">
+                      {p.cutCount}/{p.quantity}
+                    </td>
+                    {canEdit ? (
+                      <td className="py-1">
+                        <div className="flex gap-1">
+                          <Button variant="quiet" aria-label={`Edit ${p.name}`} onClick={() => setEditing(p.id)}>
+                            Edit
+                          </Button>
+                          <Button variant="quiet" aria-label={`Delete ${p.name}`} disabled={remove.isPending} onClick={() => remove.mutate(p.id)}>
+                            Delete
+                          </Button>
+                        </div>
+                      </td>
+                    ) : null}
+                  </tr>
+                ),
+              )}
+            </tbody>
+          </table>
+        </div>
+      )}
+      {canEdit && editing === null ? (
+        <section aria-labelledby="add-part-heading" className="rounded-card border border-paper-edge bg-white/60 p-4">
+          <h3 id="add-part-heading" className="mb-2 font-bold">
+            Add a part
+          </h3>
+          <PartForm key={formKey} stock={stock} unit={unit} errors={errors} pending={add.isPending} submitLabel="Add part" onSubmit={(v) => add.mutate(v)} />
+        </section>
+      ) : null}
+      <section aria-labelledby="segment-plan-heading" className="space-y-3">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h3 id="segment-plan-heading" className="text-lg font-bold">
+            Cut plan for this build {plan.isFetching ? <span className="text-sm font-normal text-ink-faint">Recomputing…</span> : null}
+          </h3>
+          <Link href={`/c/${channelSlug}/episodes/${episodeId}/cut-plan`} className="text-sm font-bold text-blueprint underline">
+            Whole episode, shopping and cut lists
+          </Link>
+        </div>
+        {plan.data.plan.pieceCount > 0 ? <SafetyNote /> : null}
+        <CutPlanView plan={plan.data.plan} unit={unit} kerfIn={plan.data.kerfIn} />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,76 @@
+import type { Page } from '@playwright/test';
+import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+
+async function openStarterBuild(page: Page) {
+  await page.goto(`/c/${DEMO_SLUG}/episodes`);
+  await page.getByRole('link', { name: 'One Stool, Three Ways' }).first().click();
+  await page.getByRole('link', { name: 'Starter: pocket-screwed pine stool' }).click();
+  await expect(page.getByRole('heading', { name: 'Parts list' })).toBeVisible();
+}
+
+test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ page }) => {
+  const species = `Fir ${Date.now().toString(36)}`;
+  const stockName = `2x4 ${species}`;
+  await signIn(page, demo.shopHand);
+
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Stock rack' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Stock rack' })).toBeVisible();
+  await page.getByLabel('Species').fill(species);
+  await page.getByLabel('Profile').fill('2x4');
+  await page.getByLabel('Sizes on sale').fill('10ft');
+  await page.getByRole('button', { name: 'Add to rack' }).click();
+  await expect(page.getByText(/write a size then a price/)).toBeVisible();
+  await page.getByLabel('Sizes on sale').fill('10ft 6.20');
+  await page.getByRole('button', { name: 'Add to rack' }).click();
+  await expect(page.getByText(stockName, { exact: true })).toBeVisible();
+  // Source: NIST PS 20, dry dressed 2x4 = 1 1/2 x 3 1/2 in.
+  await expect(page.getByText('actual 1 1/2" × 3 1/2"').first()).toBeVisible();
+  await expectAccessible(page);
+
+  await openStarterBuild(page);
+  const add = page.getByRole('region', { name: 'Add a part' });
+  await add.getByLabel('Part').fill('Test rail');
+  await add.getByLabel('Qty').fill('14');
+  await add.getByLabel('Length').fill('32 3/2');
+  await add.getByLabel('Stock').selectOption({ label: stockName });
+  await add.getByRole('button', { name: 'Add part' }).click();
+  await expect(add.getByText(/Write a length like/)).toBeVisible();
+  await add.getByLabel('Length').fill("2' 8\"");
+  await add.getByRole('button', { name: 'Add part' }).click();
+  await expect(page.getByRole('cell', { name: 'Test rail' })).toBeVisible();
+  // Common practice: fourteen 32" pieces need five 10 ft boards with a 1/8" kerf.
+  const group = page.getByRole('region', { name: stockName });
+  await expect(group.getByRole('row', { name: /120" 5 \$6\.20 \$31\.00/ })).toBeVisible();
+  await expect(group.getByRole('img', { name: /Board 5: 120"/ })).toBeVisible();
+  await expect(page.getByText('Before you cut')).toBeVisible();
+  await expectAccessible(page);
+
+  await page.getByRole('link', { name: 'Whole episode, shopping and cut lists' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: /Cut plan/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Levels together or apart' })).toBeVisible();
+  const whole = page.getByRole('region', { name: stockName });
+  await whole.getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` }).check();
+  await whole.getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first().check();
+  await expect(whole.getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first()).toBeChecked();
+  await page.waitForLoadState('networkidle');
+  await page.reload();
+  await expect(page.getByRole('region', { name: stockName }).getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` })).toBeChecked();
+  await expect(page.getByRole('region', { name: stockName }).getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first()).toBeChecked();
+  await expectAccessible(page);
+
+  await page.getByRole('button', { name: /Level 1/ }).click();
+  await expect(page.getByRole('region', { name: stockName })).toBeVisible();
+});
+
+test('an editor reads the cut plan and the rack but cannot change them', async ({ page }) => {
+  await signIn(page, demo.editor);
+  await page.goto(`/c/${DEMO_SLUG}/stock`);
+  await expect(page.getByText('2x4 SPF', { exact: true })).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Add to rack' })).toHaveCount(0);
+  await openStarterBuild(page);
+  await expect(page.getByRole('region', { name: 'Add a part' })).toHaveCount(0);
+  await expect(page.getByRole('cell', { name: 'Leg' })).toBeVisible();
+  await page.getByRole('link', { name: 'Whole episode, shopping and cut lists' }).click();
+  await expect(page.getByRole('region', { name: '2x4 SPF' }).getByRole('img').first()).toBeVisible();
+  await expect(page.getByRole('checkbox')).toHaveCount(0);
+});

@@ -26,29 +26,32 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
   const onError = (e: unknown) => setError(e instanceof ApiError ? e.message : 'Could not save.');
   const tick = useMutation({
     mutationFn: (t: ShoppingTickDto) => apiFetch(`/api/channels/${channelSlug}/episodes/${episodeId}/shopping`, { method: 'PUT', body: t }),
-    onMutate: (t) => {
-      setError(undefined);
-      client.setQueryData<EpisodePlanDto>(key, (d) =>
-        d && { ...d, ticks: [...d.ticks.filter((x) => !(x.stockItemId === t.stockItemId && x.sizeKey === t.sizeKey)), t] },
-      );
-    },
     onError,
     onSettled: () => client.invalidateQueries({ queryKey: key }),
   });
+  // Optimistic and synchronous, so the checkbox a shop hand taps flips at once.
+  const markBought = (t: ShoppingTickDto) => {
+    setError(undefined);
+    client.setQueryData<EpisodePlanDto>(key, (d) =>
+      d && { ...d, ticks: [...d.ticks.filter((x) => !(x.stockItemId === t.stockItemId && x.sizeKey === t.sizeKey)), t] },
+    );
+    tick.mutate(t);
+  };
   const cut = useMutation({
     mutationFn: ({ partId, cutCount }: { partId: string; cutCount: number }) =>
       apiFetch(`/api/channels/${channelSlug}/parts/${partId}`, { method: 'PATCH', body: { cutCount } }),
-    onMutate: ({ partId, cutCount }) => {
-      setError(undefined);
-      client.setQueryData<EpisodePlanDto>(key, (d) => {
-        if (!d) return d;
-        const patch = (p: EpisodePlanDto['whole']) => ({ ...p, cutCounts: { ...p.cutCounts, [partId]: cutCount } });
-        return { ...d, whole: patch(d.whole), levels: d.levels.map((l) => ({ ...l, plan: patch(l.plan) })) };
-      });
-    },
     onError,
     onSettled: () => client.invalidateQueries({ queryKey: key }),
   });
+  const markCut = (partId: string, cutCount: number) => {
+    setError(undefined);
+    client.setQueryData<EpisodePlanDto>(key, (d) => {
+      if (!d) return d;
+      const patch = (p: EpisodePlanDto['whole']) => ({ ...p, cutCounts: { ...p.cutCounts, [partId]: cutCount } });
+      return { ...d, whole: patch(d.whole), levels: d.levels.map((l) => ({ ...l, plan: patch(l.plan) })) };
+    });
+    cut.mutate({ partId, cutCount });
+  };
 
   const data = plan.data;
   const levelName = (n: number) => `Level ${n}${levelLabels[n - 1] ? ` · ${levelLabels[n - 1]}` : ''}`;
@@ -110,8 +113,8 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
         plan={shown}
         unit={data.lengthUnit}
         kerfIn={data.kerfIn}
-        shopping={scope === 'whole' && canEdit ? { ticks: data.ticks, onTick: (t) => tick.mutate(t), disabled: tick.isPending } : undefined}
-        cutting={canEdit ? { onCut: (partId, cutCount) => cut.mutate({ partId, cutCount }), disabled: cut.isPending } : undefined}
+        shopping={scope === 'whole' && canEdit ? { ticks: data.ticks, onTick: markBought, disabled: false } : undefined}
+        cutting={canEdit ? { onCut: markCut, disabled: false } : undefined}
       />
     </div>
   );

@@ -11,6 +11,7 @@ async function openStarterBuild(page: Page) {
 test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ page }) => {
   const species = `Fir ${Date.now().toString(36)}`;
   const stockName = `2x4 ${species}`;
+  const partName = `Rail ${species}`;
   await signIn(page, demo.shopHand);
 
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Stock rack' }).click();
@@ -29,7 +30,7 @@ test('the shop hand stocks the rack, lists parts, and ticks off the shopping and
 
   await openStarterBuild(page);
   const add = page.getByRole('region', { name: 'Add a part' });
-  await add.getByLabel('Part').fill('Test rail');
+  await add.getByLabel('Part').fill(partName);
   await add.getByLabel('Qty').fill('14');
   await add.getByLabel('Length').fill('32 3/2');
   await add.getByLabel('Stock').selectOption({ label: stockName });
@@ -37,7 +38,7 @@ test('the shop hand stocks the rack, lists parts, and ticks off the shopping and
   await expect(add.getByText(/Write a length like/)).toBeVisible();
   await add.getByLabel('Length').fill("2' 8\"");
   await add.getByRole('button', { name: 'Add part' }).click();
-  await expect(page.getByRole('cell', { name: 'Test rail' })).toBeVisible();
+  await expect(page.getByRole('cell', { name: partName, exact: true })).toBeVisible();
   // Common practice: fourteen 32" pieces need five 10 ft boards with a 1/8" kerf.
   const group = page.getByRole('region', { name: stockName });
   await expect(group.getByRole('row', { name: /120" 5 \$6\.20 \$31\.00/ })).toBeVisible();
@@ -49,8 +50,14 @@ test('the shop hand stocks the rack, lists parts, and ticks off the shopping and
   await expect(page.getByRole('heading', { level: 1, name: /Cut plan/ })).toBeVisible();
   await expect(page.getByRole('heading', { name: 'Levels together or apart' })).toBeVisible();
   const whole = page.getByRole('region', { name: stockName });
-  await whole.getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` }).check();
-  await whole.getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first().check();
+  // The checkboxes are driven by the plan's data, which updates a tick after the click.
+  const bought = page.waitForResponse((r) => r.request().method() === 'PUT' && r.url().endsWith('/shopping'));
+  await whole.getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` }).click();
+  expect((await bought).status()).toBe(200);
+  await expect(whole.getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` })).toBeChecked();
+  const cutSaved = page.waitForResponse((r) => r.request().method() === 'PATCH' && r.url().includes('/parts/'));
+  await whole.getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first().click();
+  expect((await cutSaved).status()).toBe(200);
   await expect(whole.getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first()).toBeChecked();
   await page.waitForLoadState('networkidle');
   await page.reload();
@@ -69,7 +76,7 @@ test('an editor reads the cut plan and the rack but cannot change them', async (
   await expect(page.getByRole('button', { name: 'Add to rack' })).toHaveCount(0);
   await openStarterBuild(page);
   await expect(page.getByRole('region', { name: 'Add a part' })).toHaveCount(0);
-  await expect(page.getByRole('cell', { name: 'Leg' })).toBeVisible();
+  await expect(page.getByRole('cell', { name: 'Leg', exact: true })).toBeVisible();
   await page.getByRole('link', { name: 'Whole episode, shopping and cut lists' }).click();
   await expect(page.getByRole('region', { name: '2x4 SPF' }).getByRole('img').first()).toBeVisible();
   await expect(page.getByRole('checkbox')).toHaveCount(0);

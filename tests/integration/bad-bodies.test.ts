@@ -13,13 +13,21 @@ import * as episodesRoute from '@/app/api/channels/[channel]/episodes/route';
 import * as positionRoute from '@/app/api/channels/[channel]/segments/[segmentId]/position/route';
 import * as segmentRoute from '@/app/api/channels/[channel]/segments/[segmentId]/route';
 import * as scriptRoute from '@/app/api/channels/[channel]/segments/[segmentId]/script/route';
+import * as cutSettingsRoute from '@/app/api/channels/[channel]/cut-settings/route';
+import * as shoppingRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/shopping/route';
+import * as partRoute from '@/app/api/channels/[channel]/parts/[partId]/route';
+import * as partsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/parts/route';
+import * as stockItemRoute from '@/app/api/channels/[channel]/stock/[stockId]/route';
+import * as stockRoute from '@/app/api/channels/[channel]/stock/route';
 import { createInvitation } from '@/lib/crew/queries';
+import { createPart } from '@/lib/parts/queries';
+import { createStock } from '@/lib/stock/queries';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew, uniqueEmail } from './helpers';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null)),
 );
 const rawBody = fc.oneof(
@@ -34,11 +42,17 @@ let crew: Awaited<ReturnType<typeof makeCrew>>;
 let invitationId: string;
 let episodeId: string;
 let segmentId: string;
+let buildId: string;
+let stockId: string;
+let partId: string;
 beforeAll(async () => {
   crew = await makeCrew();
   const outlined = await makeOutlinedEpisode(crew);
   episodeId = outlined.episode.id;
   segmentId = outlined.segments[2]!.id;
+  buildId = outlined.segments.find((x) => x.kind === 'build')!.id;
+  stockId = (await createStock(crew.channel.id, { kind: 'softwood', species: 'SPF', nominal: '2x4', offers: [{ lengthIn: 96, price: 448 }] })).id;
+  partId = (await createPart(crew.channel.id, buildId, { name: 'Leg', quantity: 4, lengthIn: 20, widthIn: null, thicknessIn: null, stockItemId: stockId, grain: 'any', note: '' })).id;
   invitationId = (await createInvitation(crew.channel.id, crew.host.id, { email: uniqueEmail('fuzz'), role: 'editor' })).invitation.id;
 });
 
@@ -56,6 +70,12 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'update segment', fn: segmentRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, segmentId } },
   { name: 'save script', fn: scriptRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId } },
   { name: 'move segment', fn: positionRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId } },
+  { name: 'add stock', fn: stockRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },
+  { name: 'replace stock', fn: stockItemRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, stockId } },
+  { name: 'cut settings', fn: cutSettingsRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug } },
+  { name: 'add part', fn: partsRoute.POST, method: 'POST', params: { channel: crew.channel.slug, segmentId: buildId } },
+  { name: 'update part', fn: partRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, partId } },
+  { name: 'shopping tick', fn: shoppingRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, episodeId } },
 ];
 
 describe('no body makes a 500', () => {

@@ -10,7 +10,8 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['lib/**/*.test.ts', 'db/**/*.test.ts'], environment: 'node' },
+        // Property tests share two cores with the planners' own searches, so 5 s is too tight.
+        test: { name: 'unit', include: ['lib/**/*.test.ts', 'db/**/*.test.ts'], environment: 'node', testTimeout: 30_000 },
       },
       {
         resolve: { alias },

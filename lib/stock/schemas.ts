@@ -69,7 +69,8 @@ const lumberOffers = <T extends z.ZodType>(item: T) =>
 
 const uniqueSizes = (offers: { lengthIn: number; widthIn?: number }[]) =>
   new Set(offers.map((o) => `${o.widthIn ?? ''}x${o.lengthIn.toFixed(4)}`)).size === offers.length;
-const duplicateMessage = { message: 'Each size is listed once.', path: ['offers'] };
+// The refinement sits on the offers array, so its issue already carries the path `offers`.
+const duplicateMessage = { message: 'Each size is listed once.' };
 
 export const createStockSchema = z.discriminatedUnion(
   'kind',

@@ -118,3 +118,60 @@ describe('no script tree makes a 500', () => {
     );
   });
 });
+
+// Rack, part and settings bodies near the real shape: shop-notation lengths, sizes and prices, right and wrong.
+const shopLength = fc.oneof(
+  fc.stringMatching(/^[0-9 '"/.\-xXftinchesmc’″]{0,14}$/),
+  fc.constantFrom('32 1/2', "2' 8\"", '813mm', '8ft', '10 ft', '1-1/2', '3/4', '32 3/2', '1/0', '0/0', '.5', '99999999999999999999999', "9999999999999999999'"),
+  fc.double(),
+  fc.integer({ min: -5, max: 2000 }),
+);
+const shopText = fc.oneof(fc.string({ maxLength: 90 }), fc.constantFrom('2x4', '2 x 10', '2x5x', '4/4', '16/4', '17/4', '0/4', '3/4', 'SPF', ''));
+const price = fc.oneof(fc.constantFrom('4.50', '$6.20', '0', '0.001', '-1', '1e3', '100000.01'), fc.double(), fc.integer({ min: -10, max: 20_000_000 }));
+const offer = fc.record({ lengthIn: shopLength, widthIn: shopLength, price }, { requiredKeys: [] });
+const stockBody = fc.record(
+  {
+    kind: fc.constantFrom('softwood', 'hardwood', 'sheet', 'plastic'),
+    species: shopText,
+    nominal: fc.oneof(shopText, shopLength),
+    widthIn: shopLength,
+    pricePerBoardFoot: price,
+    plywood: fc.oneof(fc.boolean(), fc.constant('yes')),
+    offers: fc.array(offer, { maxLength: 14 }),
+  },
+  { requiredKeys: ['kind'] },
+);
+const partFields = (stockItemId: string) => ({
+  name: shopText,
+  quantity: fc.oneof(fc.integer({ min: -2, max: 600 }), fc.double()),
+  lengthIn: shopLength,
+  widthIn: fc.oneof(shopLength, fc.constant(null)),
+  thicknessIn: fc.oneof(shopLength, fc.constant(null)),
+  stockItemId: fc.oneof(fc.constant(stockItemId), fc.uuid(), fc.constant(null), fc.constant('x')),
+  grain: fc.constantFrom('length', 'any', 'across'),
+  note: fc.string({ maxLength: 210 }),
+});
+const settingsBody = fc.record({ kerfIn: shopLength, endTrimIn: shopLength, minOffcutIn: shopLength, lengthUnit: fc.constantFrom('in', 'mm', 'cubit') }, { requiredKeys: [] });
+
+describe('no rack, part or settings body makes a 500', () => {
+  it('for shop-notation bodies of the right shape', async () => {
+    const ch = crew.channel.slug;
+    const runs: [string, Parameters<typeof call>[0], string, Record<string, string>, fc.Arbitrary<unknown>][] = [
+      ['add stock', stockRoute.POST, 'POST', { channel: ch }, stockBody],
+      ['replace stock', stockItemRoute.PUT, 'PUT', { channel: ch, stockId }, stockBody],
+      ['add part', partsRoute.POST, 'POST', { channel: ch, segmentId: buildId }, fc.record(partFields(stockId), { requiredKeys: [] })],
+      ['update part', partRoute.PATCH, 'PATCH', { channel: ch, partId }, fc.record({ ...partFields(stockId), cutCount: fc.integer({ min: -1, max: 600 }) }, { requiredKeys: [] })],
+      ['cut settings', cutSettingsRoute.PATCH, 'PATCH', { channel: ch }, settingsBody],
+    ];
+    for (const [name, fn, method, params, body] of runs) {
+      await fc.assert(
+        fc.asyncProperty(body, async (b) => {
+          const res = await call(fn, method, { as: crew.host, params, body: b });
+          expect(res.status, `${name}: ${JSON.stringify(b)}`).toBeLessThan(500);
+          if (res.status === 400 && res.json.error?.code === 'invalid_input') expect(Object.keys(res.json.error.fields ?? {}).length).toBeGreaterThan(0);
+        }),
+        { numRuns: 80 },
+      );
+    }
+  });
+});

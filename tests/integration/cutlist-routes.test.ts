@@ -11,7 +11,7 @@ import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
 import { createPart } from '@/lib/parts/queries';
 import type { PartDto } from '@/lib/parts/schemas';
 import { createStock } from '@/lib/stock/queries';
-import type { StockItemDto } from '@/lib/stock/schemas';
+import type { CutSettingsDto, StockItemDto } from '@/lib/stock/schemas';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew } from './helpers';
 import { describeRouteMatrix, type Crew, type RouteCase } from './route-matrix';
@@ -197,5 +197,218 @@ describe('parts and plans', () => {
     const plan = await episodePlan(c, episode.id);
     expect(plan.whole.groups).toEqual([]);
     expect(plan.whole.noStock).toMatchObject([{ name: 'Leg', quantity: 14 }]);
+  });
+});
+
+const settingsOf = async (c: Crew) => {
+  const res = await call(cutSettingsRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug } });
+  expect(res.status).toBe(200);
+  return res.json.settings as CutSettingsDto;
+};
+const partsOf = async (c: Crew, segmentId: string) => {
+  const res = await call(partsRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug, segmentId } });
+  expect(res.status).toBe(200);
+  return res.json.parts as PartDto[];
+};
+const purchaseOf = (plan: EpisodePlanDto) =>
+  (plan.whole.groups[0]?.purchase ?? []).map((p) => ({ sizeKey: p.sizeKey, count: p.count, costCents: p.costCents })).sort((a, b) => a.sizeKey.localeCompare(b.sizeKey));
+
+describe('lengths and sizes as typed', () => {
+  it('reads fractions, feet and inches, and millimetres, and names the field of a typo', async () => {
+    const c = await makeCrew();
+    const { build } = await planned(c);
+    const add = (lengthIn: unknown) => call(partsRoute.POST, 'POST', { as: c.shopHand, params: { channel: c.channel.slug, segmentId: build.id }, body: { name: 'Rail', quantity: 2, lengthIn } });
+    expect(((await add('32 1/2')).json.part as PartDto).lengthIn).toBe(32.5);
+    expect(((await add('2\' 8"')).json.part as PartDto).lengthIn).toBe(32);
+    // Source: 1 inch = 25.4 mm exactly (international yard and pound, 1959).
+    expect(((await add('813mm')).json.part as PartDto).lengthIn).toBeCloseTo(813 / 25.4, 9);
+    for (const typo of ['32 3/2', '', 'thirty', '0', '-3']) {
+      const res = await add(typo);
+      expect(res.status, typo).toBe(400);
+      expect(Object.keys(res.json.error?.fields ?? {}), typo).toEqual(['lengthIn']);
+    }
+    // The three good lengths plus the leg; nothing from the refused ones.
+    expect((await partsOf(c, build.id)).map((p) => p.name)).toEqual(['Leg', 'Rail', 'Rail', 'Rail']);
+  });
+
+  it('names the field of a bad softwood profile, hardwood quarters and offer lengths', async () => {
+    const c = await makeCrew();
+    const post = (body: unknown) => call(stockRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug }, body });
+    for (const nominal of ['2x5x', '2x7', 'two by four', '']) {
+      const res = await post({ ...spf, nominal });
+      expect(res.status, nominal).toBe(400);
+      expect(Object.keys(res.json.error?.fields ?? {}), nominal).toEqual(['nominal']);
+    }
+    const offer = await post({ ...spf, offers: [{ lengthIn: '8 3/2ft', price: '4.50' }] });
+    expect(offer.json.error?.fields?.['offers.0.lengthIn']).toBeTruthy();
+    const twice = await post({ ...spf, offers: [{ lengthIn: '8ft', price: '4.50' }, { lengthIn: '96', price: '4.60' }] });
+    expect(twice.json.error?.fields).toEqual({ offers: 'Each size is listed once.' });
+    const quarters = await post({ kind: 'hardwood', species: 'Ash', nominal: '17/4', widthIn: '6', pricePerBoardFoot: '9', offers: [{ lengthIn: '8ft' }] });
+    expect(Object.keys(quarters.json.error?.fields ?? {})).toEqual(['nominal']);
+    expect((await call(stockRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug } })).json.stock).toEqual([]);
+  });
+
+  it('starts from the default cut settings, takes fractions, and refuses an empty change', async () => {
+    const c = await makeCrew();
+    // Common practice: a full-kerf blade is about 1/8".
+    expect(await settingsOf(c)).toEqual({ kerfIn: 0.125, endTrimIn: 0, minOffcutIn: 12, lengthUnit: 'in' });
+    const patch = (body: unknown) => call(cutSettingsRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug }, body });
+    expect((await patch({ kerfIn: '3/32', lengthUnit: 'mm' })).json.settings).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 12, lengthUnit: 'mm' });
+    expect((await patch({ minOffcutIn: "1' 6\"" })).json.settings).toMatchObject({ kerfIn: 3 / 32, minOffcutIn: 18, lengthUnit: 'mm' });
+    const empty = await patch({});
+    expect(empty.status).toBe(400);
+    const bad = await patch({ kerfIn: '1/8', endTrimIn: '25' });
+    expect(Object.keys(bad.json.error?.fields ?? {})).toEqual(['endTrimIn']);
+    // The refused change wrote nothing, not even its valid kerf.
+    expect(await settingsOf(c)).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 18, lengthUnit: 'mm' });
+  });
+});
+
+describe('plans follow the rack and the settings', () => {
+  it('buys 10 ft and 8 ft boards with a 1/8" kerf, and only 8 ft boards with no kerf', async () => {
+    const c = await makeCrew();
+    const { episode, stock } = await planned(c);
+    const put = await call(stockItemRoute.PUT, 'PUT', {
+      as: c.host,
+      params: { channel: c.channel.slug, stockId: stock.id },
+      body: { ...spf, offers: [{ lengthIn: '8ft', price: '4.50' }, { lengthIn: '10ft', price: '6.20' }] },
+    });
+    expect(put.status).toBe(200);
+    // With a 1/8" kerf three 32" legs need 96 1/4", so an 8 ft board holds two and a 10 ft board three:
+    // 4 x $6.20 + 1 x $4.50 = $29.30 is the cheapest way to 14 legs.
+    expect(purchaseOf(await episodePlan(c, episode.id))).toEqual([
+      { sizeKey: '120', count: 4, costCents: 2480 },
+      { sizeKey: '96', count: 1, costCents: 450 },
+    ]);
+    const zero = await call(cutSettingsRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug }, body: { kerfIn: 0 } });
+    expect(zero.json.settings).toMatchObject({ kerfIn: 0 });
+    const plan = await episodePlan(c, episode.id);
+    // No kerf: three legs fill an 8 ft board exactly, so five 8 ft boards.
+    expect(purchaseOf(plan)).toEqual([{ sizeKey: '96', count: 5, costCents: 2250 }]);
+    expect(plan.kerfIn).toBe(0);
+    expect(plan.whole.pieceCount).toBe(14);
+  });
+
+  it('plans each level on its own and the segment plan holds only its parts', async () => {
+    const c = await makeCrew();
+    const { episode, segments, stock } = await planned(c);
+    const level3 = segments.find((s) => s.kind === 'build' && s.level === 3)!;
+    const add = await call(partsRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug, segmentId: level3.id }, body: { name: 'Stretcher', quantity: 2, lengthIn: '20', stockItemId: stock.id } });
+    expect(add.status).toBe(201);
+    const plan = await episodePlan(c, episode.id);
+    expect(plan.levels.map((l) => l.level)).toEqual([1, 3]);
+    expect(plan.levels[0]?.plan.pieceCount).toBe(14);
+    expect(plan.levels[1]?.plan.pieceCount).toBe(2);
+    expect(plan.whole.pieceCount).toBe(16);
+    const seg = await call(segmentPlanRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug, segmentId: level3.id } });
+    expect(seg.status).toBe(200);
+    const segPlan = seg.json as unknown as { plan: EpisodePlanDto['whole']; kerfIn: number; lengthUnit: string };
+    expect(segPlan).toMatchObject({ kerfIn: 0.125, lengthUnit: 'in' });
+    expect(segPlan.plan.pieceCount).toBe(2);
+    expect(segPlan.plan.groups[0]?.purchase).toMatchObject([{ sizeKey: '120', count: 1 }]);
+  });
+
+  it('lists parts without stock and cut counts, and updates one tick per size', async () => {
+    const c = await makeCrew();
+    const { episode, build, stock, part } = await planned(c);
+    await call(partsRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug, segmentId: build.id }, body: { name: 'Shelf', quantity: 1, lengthIn: '30' } });
+    await call(partRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug, partId: part.id }, body: { cutCount: 4 } });
+    const tick = (bought: number) => call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '120', bought } });
+    expect((await tick(2)).json.tick).toEqual({ stockItemId: stock.id, sizeKey: '120', bought: 2 });
+    await tick(4);
+    const plan = await episodePlan(c, episode.id);
+    expect(plan.ticks).toEqual([{ stockItemId: stock.id, sizeKey: '120', bought: 4 }]);
+    expect(plan.whole.noStock).toMatchObject([{ name: 'Shelf', quantity: 1 }]);
+    expect(plan.whole.optimal).toBe(false);
+    expect(plan.whole.cutCounts[part.id]).toBe(4);
+  });
+
+  it('clears stockItemId on the parts of a deleted stock item', async () => {
+    const c = await makeCrew();
+    const { episode, build, stock } = await planned(c);
+    expect((await call(stockItemRoute.DELETE, 'DELETE', { as: c.shopHand, params: { channel: c.channel.slug, stockId: stock.id } })).status).toBe(204);
+    expect(await partsOf(c, build.id)).toMatchObject([{ name: 'Leg', stockItemId: null, quantity: 14 }]);
+    expect((await episodePlan(c, episode.id)).ticks).toEqual([]);
+    const again = await call(stockItemRoute.DELETE, 'DELETE', { as: c.shopHand, params: { channel: c.channel.slug, stockId: stock.id } });
+    expect(again.status).toBe(404);
+  });
+});
+
+describe('ids of another channel', () => {
+  it('are not found even for the host of this channel', async () => {
+    const c = await makeCrew();
+    const other = await makeCrew();
+    const theirs = await planned(other);
+    const as = { as: c.host };
+    const ch = c.channel.slug;
+    expect((await call(stockItemRoute.PUT, 'PUT', { ...as, params: { channel: ch, stockId: theirs.stock.id }, body: spf })).status).toBe(404);
+    expect((await call(stockItemRoute.DELETE, 'DELETE', { ...as, params: { channel: ch, stockId: theirs.stock.id } })).status).toBe(404);
+    expect((await call(partsRoute.GET, 'GET', { ...as, params: { channel: ch, segmentId: theirs.build.id } })).status).toBe(404);
+    expect((await call(partsRoute.POST, 'POST', { ...as, params: { channel: ch, segmentId: theirs.build.id }, body: { name: 'Leg', quantity: 1, lengthIn: '10' } })).status).toBe(404);
+    expect((await call(partRoute.PATCH, 'PATCH', { ...as, params: { channel: ch, partId: theirs.part.id }, body: { cutCount: 1 } })).status).toBe(404);
+    expect((await call(partRoute.DELETE, 'DELETE', { ...as, params: { channel: ch, partId: theirs.part.id } })).status).toBe(404);
+    expect((await call(segmentPlanRoute.GET, 'GET', { ...as, params: { channel: ch, segmentId: theirs.build.id } })).status).toBe(404);
+    expect((await call(episodePlanRoute.GET, 'GET', { ...as, params: { channel: ch, episodeId: theirs.episode.id } })).status).toBe(404);
+    expect((await call(shoppingRoute.PUT, 'PUT', { ...as, params: { channel: ch, episodeId: theirs.episode.id }, body: { stockItemId: theirs.stock.id, sizeKey: '120', bought: 1 } })).status).toBe(404);
+    // Their rack and parts are as they were.
+    expect(await partsOf(other, theirs.build.id)).toMatchObject([{ id: theirs.part.id, cutCount: 0, stockItemId: theirs.stock.id }]);
+    expect((await episodePlan(other, theirs.episode.id)).ticks).toEqual([]);
+  });
+
+  it('refuses another channel’s stock on a new part and on a tick of this episode', async () => {
+    const c = await makeCrew();
+    const other = await makeCrew();
+    const { episode, build } = await planned(c);
+    const foreign = await addStock(other);
+    const add = await call(partsRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug, segmentId: build.id }, body: { name: 'Apron', quantity: 2, lengthIn: '20', stockItemId: foreign.id } });
+    expect(add.status).toBe(400);
+    expect(Object.keys(add.json.error?.fields ?? {})).toEqual(['stockItemId']);
+    expect((await partsOf(c, build.id)).map((p) => p.name)).toEqual(['Leg']);
+    const tick = await call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: foreign.id, sizeKey: '120', bought: 1 } });
+    expect(tick.status).toBe(404);
+    expect((await episodePlan(c, episode.id)).ticks).toEqual([]);
+  });
+});
+
+describe('no half-writes', () => {
+  it('a refused part change leaves every field as it was', async () => {
+    const c = await makeCrew();
+    const { part } = await planned(c);
+    const patch = (body: unknown) => call(partRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug, partId: part.id }, body });
+    expect((await patch({ cutCount: 6 })).status).toBe(200);
+    const tooFew = await patch({ quantity: 4, cutCount: 5, name: 'Short leg' });
+    expect(tooFew.status).toBe(400);
+    expect(Object.keys(tooFew.json.error?.fields ?? {})).toEqual(['cutCount']);
+    expect((await patch({ name: 'Short leg', grain: 'diagonal' })).status).toBe(400);
+    expect((await patch({ name: 'Short leg', colour: 'red' })).json.error?.fields?.colour).toBeTruthy();
+    expect(await partsOf(c, part.segmentId)).toEqual([{ ...part, cutCount: 6 }]);
+    // Lowering the quantity below what is cut keeps the cut count within it.
+    expect((await patch({ quantity: 4 })).json.part).toMatchObject({ quantity: 4, cutCount: 4 });
+    expect((await patch({ stockItemId: null })).json.part).toMatchObject({ stockItemId: null, quantity: 4 });
+  });
+
+  it('a refused stock change leaves the item as it was, and a rename onto a taken name is a conflict', async () => {
+    const c = await makeCrew();
+    const { stock } = await planned(c);
+    const cedar = await call(stockRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug }, body: { ...spf, species: 'Cedar' } });
+    expect(cedar.status).toBe(201);
+    const cedarId = (cedar.json.stockItem as StockItemDto).id;
+    const rename = await call(stockItemRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, stockId: cedarId }, body: spf });
+    expect(rename.status).toBe(409);
+    const bad = await call(stockItemRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, stockId: stock.id }, body: { ...spf, nominal: '2x6', offers: [{ lengthIn: '32 3/2', price: '5' }] } });
+    expect(bad.status).toBe(400);
+    const rack = (await call(stockRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug } })).json.stock as StockItemDto[];
+    expect(rack.map((s) => s.name)).toEqual(['2x4 Cedar', '2x4 SPF']);
+    expect(rack[1]).toEqual(stock);
+  });
+});
+
+describe('shopping tick sizes', () => {
+  it('names the field of a size key too long to store', async () => {
+    const c = await makeCrew();
+    const { episode, stock } = await planned(c);
+    const res = await call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '9'.repeat(41), bought: 1 } });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.json.error?.fields ?? {})).toEqual(['sizeKey']);
   });
 });

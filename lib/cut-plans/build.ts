@@ -1,7 +1,7 @@
 /** Turns a parts list and the stock rack into a cut plan: one planner run per stock item. No I/O. */
 import { planLinearCuts, planSheetCuts } from '@/lib/cutlist';
 import { boardFeet, parseNominalProfile, softwoodBoardFeet } from '@/lib/lumber';
-import type { CutSettingsDto, LumberOffer, SheetOffer, StockItemDto } from '@/lib/stock/schemas';
+import { offerSizeKey, type CutSettingsDto, type LumberOffer, type SheetOffer, type StockItemDto } from '@/lib/stock/schemas';
 
 export type PlanPart = {
   id: string;
@@ -48,7 +48,7 @@ export type CutPlan = {
 };
 
 const EPS = 1e-6;
-const sizeKey = (lengthIn: number, widthIn?: number) => (widthIn === undefined ? `${round4(lengthIn)}` : `${round4(widthIn)}x${round4(lengthIn)}`);
+const sizeKey = offerSizeKey;
 const round4 = (n: number) => Math.round(n * 10000) / 10000;
 
 function lumberUnitCents(stock: StockItemDto, lengthIn: number, offer: LumberOffer): number {
@@ -75,7 +75,7 @@ function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
     }
     return true;
   });
-  const offers = stock.offers as LumberOffer[];
+  const offers = cheapestPerSize(stock.offers as LumberOffer[]);
   const result = planLinearCuts({
     kerf: settings.kerfIn,
     endTrim: settings.endTrimIn,
@@ -133,7 +133,7 @@ function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
     }
     return true;
   });
-  const offers = stock.offers as SheetOffer[];
+  const offers = cheapestPerSize(stock.offers as SheetOffer[]);
   const result = planSheetCuts({
     kerf: settings.kerfIn,
     parts: fits.map((p) => ({ id: p.id, width: p.widthIn ?? 0, length: p.lengthIn, quantity: p.quantity, label: p.name, grain: p.grain })),
@@ -173,6 +173,17 @@ function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
     wastePercent: bought > 0 ? round4((100 * (bought - used)) / bought) : 0,
     unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
   };
+}
+
+/** Rows saved before the rack refused sizes a hair apart may hold two offers of one size key; the planner needs one. */
+function cheapestPerSize<T extends { lengthIn: number; widthIn?: number; priceCents: number }>(offers: T[]): T[] {
+  const byKey = new Map<string, T>();
+  for (const o of offers) {
+    const key = sizeKey(o.lengthIn, o.widthIn);
+    const seen = byKey.get(key);
+    if (!seen || o.priceCents < seen.priceCents) byKey.set(key, o);
+  }
+  return [...byKey.values()];
 }
 
 const pickStock = (s: StockItemDto): StockPlan['stock'] => ({ id: s.id, kind: s.kind, name: s.name, thicknessIn: s.thicknessIn, widthIn: s.widthIn });

@@ -67,8 +67,12 @@ const lumberLength = lengthInput('a board length', 480, 6);
 const lumberOffers = <T extends z.ZodType>(item: T) =>
   z.array(item, { error: 'List the sizes on sale.' }).min(1, 'List at least one size on sale.').max(12, 'List at most 12 sizes.');
 
-const uniqueSizes = (offers: { lengthIn: number; widthIn?: number }[]) =>
-  new Set(offers.map((o) => `${o.widthIn ?? ''}x${o.lengthIn.toFixed(4)}`)).size === offers.length;
+const round4 = (n: number) => Math.round(n * 10000) / 10000;
+/** One size on sale, to 1/10000 inch: "96" for a board, "48x96" for a sheet. The planner and the shopping ticks use it too. */
+export const offerSizeKey = (lengthIn: number, widthIn?: number) => (widthIn === undefined ? `${round4(lengthIn)}` : `${round4(widthIn)}x${round4(lengthIn)}`);
+
+// Same key as the planner: sizes it would take as one must be refused here, not fail the plan.
+const uniqueSizes = (offers: { lengthIn: number; widthIn?: number }[]) => new Set(offers.map((o) => offerSizeKey(o.lengthIn, o.widthIn))).size === offers.length;
 // The refinement sits on the offers array, so its issue already carries the path `offers`.
 const duplicateMessage = { message: 'Each size is listed once.' };
 

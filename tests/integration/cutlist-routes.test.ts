@@ -7,6 +7,7 @@ import * as segmentPlanRoute from '@/app/api/channels/[channel]/segments/[segmen
 import * as partsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/parts/route';
 import * as stockItemRoute from '@/app/api/channels/[channel]/stock/[stockId]/route';
 import * as stockRoute from '@/app/api/channels/[channel]/stock/route';
+import { db } from '@/db/client';
 import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
 import { createPart } from '@/lib/parts/queries';
 import type { PartDto } from '@/lib/parts/schemas';
@@ -410,5 +411,54 @@ describe('shopping tick sizes', () => {
     const res = await call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '9'.repeat(41), bought: 1 } });
     expect(res.status).toBe(400);
     expect(Object.keys(res.json.error?.fields ?? {})).toEqual(['sizeKey']);
+  });
+});
+
+describe('sizes a hair apart', () => {
+  // The planner keys sizes to 1/10000 inch: 96.00035 and 96.0004 are both "96.0004".
+  const hairApart = [
+    { lengthIn: 96.00035, price: '4.50' },
+    { lengthIn: 96.0004, price: '4.60' },
+  ];
+
+  it('are one size to the rack, as they are to the planner', async () => {
+    const c = await makeCrew();
+    const res = await call(stockRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug }, body: { ...spf, offers: hairApart } });
+    expect(res.status).toBe(400);
+    expect(res.json.error?.fields).toEqual({ offers: 'Each size is listed once.' });
+  });
+
+  it('still plan when a row saved earlier holds both', async () => {
+    const c = await makeCrew();
+    const { episode, build, stock } = await planned(c);
+    await db('stock_items')
+      .where({ id: stock.id })
+      .update({ offers: JSON.stringify(hairApart.map((o, i) => ({ lengthIn: o.lengthIn, priceCents: 450 + 10 * i }))) });
+    await call(partRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug, partId: (await partsOf(c, build.id))[0]!.id }, body: { quantity: 2, lengthIn: 30 } });
+    const plan = await episodePlan(c, episode.id);
+    // One 8 ft board at the cheaper of the two prices.
+    expect(plan.whole.groups[0]?.purchase).toMatchObject([{ sizeKey: '96.0004', count: 1, unitCents: 450 }]);
+  });
+});
+
+describe('sheet goods in a plan', () => {
+  it('buys whole sheets by width x length and lists a part with no width as unplaced', async () => {
+    const c = await makeCrew();
+    const { episode, segments } = await makeOutlinedEpisode(c);
+    const build = segments.find((s) => s.kind === 'build' && s.level === 2)!;
+    const ply = await call(stockRoute.POST, 'POST', {
+      as: c.host,
+      params: { channel: c.channel.slug },
+      body: { kind: 'sheet', species: 'Birch plywood', nominal: '3/4', offers: [{ widthIn: '4ft', lengthIn: '8ft', price: '72' }] },
+    });
+    const plyId = (ply.json.stockItem as StockItemDto).id;
+    const add = (body: Record<string, unknown>) => call(partsRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug, segmentId: build.id }, body: { stockItemId: plyId, ...body } });
+    expect((await add({ name: 'Side', quantity: 2, lengthIn: '30', widthIn: '24', grain: 'length' })).status).toBe(201);
+    expect((await add({ name: 'Cleat', quantity: 1, lengthIn: '20' })).status).toBe(201);
+    const group = (await episodePlan(c, episode.id)).whole.groups[0]!;
+    expect(group.purchase).toMatchObject([{ sizeKey: '48x96', count: 1, unitCents: 7200, costCents: 7200 }]);
+    expect(group.boards[0]?.pieces).toHaveLength(2);
+    expect(group.unplaced).toMatchObject([{ name: 'Cleat', reason: 'Needs a width to be cut from sheet goods.' }]);
+    expect(group.squareFeet).toBe(32);
   });
 });

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { describeStock } from '../../lib/stock/describe';
+import { stockRow } from '../../lib/stock/describe';
 import type { CreateStockInput } from '../../lib/stock/schemas';
 
 // Invented demo rack: prices are made up but in a realistic range for a home-centre and a hardwood dealer.
@@ -38,19 +38,8 @@ const partsByLevel: Record<number, DemoPart[]> = {
 export async function seedDemoStock(trx: Knex.Transaction, channelId: string): Promise<void> {
   const ids = new Map<string, string>();
   for (const item of rack) {
-    const d = describeStock(item);
     const [row] = await trx('stock_items')
-      .insert({
-        channel_id: channelId,
-        kind: d.kind,
-        name: d.name,
-        species: d.species,
-        nominal: d.nominal,
-        thickness_in: d.thicknessIn,
-        width_in: d.widthIn,
-        price_per_bf_cents: d.pricePerBoardFootCents,
-        offers: JSON.stringify(d.offers),
-      })
+      .insert({ channel_id: channelId, ...stockRow(item) })
       .returning<{ id: string; name: string }[]>(['id', 'name']);
     if (row) ids.set(row.name, row.id);
   }

@@ -62,3 +62,18 @@ export function describeStock(input: CreateStockInput): StockDefinition {
 function sortOffers<T extends { lengthIn: number; widthIn?: number }>(offers: T[]): T[] {
   return [...offers].sort((a, b) => (a.widthIn ?? 0) - (b.widthIn ?? 0) || a.lengthIn - b.lengthIn);
 }
+
+/** The stock_items columns for a definition, shared by the rack's queries and the demo seed. */
+export function stockRow(input: CreateStockInput) {
+  const d = describeStock(input);
+  return {
+    kind: d.kind,
+    name: d.name,
+    species: d.species,
+    nominal: d.nominal,
+    thickness_in: d.thicknessIn,
+    width_in: d.widthIn,
+    price_per_bf_cents: d.pricePerBoardFootCents,
+    offers: JSON.stringify(d.offers),
+  };
+}

@@ -1,7 +1,7 @@
 import 'server-only';
 import { db } from '@/db/client';
 import { notFound } from '@/lib/errors';
-import { describeStock } from './describe';
+import { stockRow } from './describe';
 import { DEFAULT_CUT_SETTINGS, type CreateStockInput, type CutSettingsDto, type CutSettingsInput, type StockItemDto } from './schemas';
 
 type StockRow = {
@@ -37,23 +37,9 @@ export async function listStock(channelId: string): Promise<StockItemDto[]> {
   return rows.map(toStockDto);
 }
 
-function toRow(input: CreateStockInput) {
-  const d = describeStock(input);
-  return {
-    kind: d.kind,
-    name: d.name,
-    species: d.species,
-    nominal: d.nominal,
-    thickness_in: d.thicknessIn,
-    width_in: d.widthIn,
-    price_per_bf_cents: d.pricePerBoardFootCents,
-    offers: JSON.stringify(d.offers),
-  };
-}
-
 export async function createStock(channelId: string, input: CreateStockInput): Promise<StockItemDto> {
   const [row] = await db('stock_items')
-    .insert({ channel_id: channelId, ...toRow(input) })
+    .insert({ channel_id: channelId, ...stockRow(input) })
     .returning<StockRow[]>(stockColumns);
   if (!row) throw new Error('insert returned no row');
   return toStockDto(row);
@@ -63,7 +49,7 @@ export async function createStock(channelId: string, input: CreateStockInput): P
 export async function updateStock(channelId: string, stockId: string, input: CreateStockInput): Promise<StockItemDto> {
   const [row] = await db('stock_items')
     .where({ id: stockId, channel_id: channelId })
-    .update({ ...toRow(input), updated_at: db.fn.now() })
+    .update({ ...stockRow(input), updated_at: db.fn.now() })
     .returning<StockRow[]>(stockColumns);
   if (!row) throw notFound('That stock item');
   return toStockDto(row);

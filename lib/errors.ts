@@ -72,6 +72,7 @@ function fromPgError(err: PgError): AppError | null {
     case '22003':
     case '22007':
     case '22008':
+    case '22021':
       return new AppError('bad_request', 'A value is not in the expected form.');
     default:
       return null;

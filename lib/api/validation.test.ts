@@ -28,6 +28,10 @@ describe('readJsonBody', () => {
     expect(await codeOf(readJsonBody(req('{"a":')))).toBe('malformed_json');
     expect(await codeOf(readJsonBody(req('   ')))).toBe('malformed_json');
   });
+  it('refuses a NUL character in any string, naming the field, since PostgreSQL text cannot store it', async () => {
+    const err = await readJsonBody(req(JSON.stringify({ shots: [{ description: 'a\u0000b' }] }))).catch((e: unknown) => e);
+    expect(err).toMatchObject({ code: 'invalid_input', fields: { 'shots.0.description': 'Text cannot contain NUL characters.' } });
+  });
   it('refuses bodies over the cap with 413 while reading', async () => {
     expect(await codeOf(readJsonBody(req(JSON.stringify({ a: 'x'.repeat(2000) })), 1000))).toBe('payload_too_large');
   });

@@ -33,11 +33,34 @@ export async function readJsonBody(req: Request, maxBytes = DEFAULT_MAX_BODY_BYT
   const bytes = await readCapped(req, maxBytes);
   const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
   if (text.trim() === '') throw new AppError('malformed_json', 'The request body is empty; send a JSON object.');
+  let value: unknown;
   try {
-    return JSON.parse(text) as unknown;
+    value = JSON.parse(text) as unknown;
   } catch {
     throw new AppError('malformed_json', 'The request body is not valid JSON.');
   }
+  const nul = findNul(value, []);
+  if (nul) throw invalidInput({ [nul.join('.') || '_']: 'Text cannot contain NUL characters.' });
+  return value;
+}
+
+// PostgreSQL text cannot hold U+0000 (SQLSTATE 22021), so it is refused here, named by its field.
+function findNul(value: unknown, path: string[]): string[] | null {
+  if (typeof value === 'string') return value.includes('\u0000') ? path : null;
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const hit = findNul(value[i], [...path, String(i)]);
+      if (hit) return hit;
+    }
+    return null;
+  }
+  if (value && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) {
+      const hit = findNul(v, [...path, k]);
+      if (hit) return hit;
+    }
+  }
+  return null;
 }
 
 const tooLarge = (maxBytes: number) =>

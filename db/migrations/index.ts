@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import * as foundation from './20261201000000_foundation';
 import * as episodes from './20261201100000_episodes';
 import * as cutlist from './20261202000000_cutlist';
+import * as shots from './20261202100000_shots';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -11,6 +12,7 @@ const migrations: Record<string, Migration> = {
   '20261201000000_foundation': foundation,
   '20261201100000_episodes': episodes,
   '20261202000000_cutlist': cutlist,
+  '20261202100000_shots': shots,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

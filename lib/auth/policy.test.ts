@@ -11,6 +11,7 @@ const expected: Record<Capability, string> = {
   'shots.edit': 'H', // create, edit and assign shots
   'shots.editAssigned': 'HS', // shop hand: edit own assigned
   'shots.changeState': 'HS',
+  'safety.review': 'H', // issue 4: a Host ticks "Safety reviewed"
   'cutlist.edit': 'HS', // parts list, stock rack, cut plans
   'cutlist.read': 'HSE',
   'clips.upload': 'HS',

@@ -15,7 +15,7 @@ export const stageLabels: Record<EpisodeStage, string> = {
 export const DEFAULT_LEVEL_LABELS = ['Starter', 'Intermediate', 'Advanced'] as const;
 export const MAX_RUNTIME_SECONDS = 10 * 3600;
 
-const dateSchema = z
+export const dateSchema = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2027-03-14.')
   .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), 'That date does not exist.');

@@ -19,7 +19,15 @@ import * as partRoute from '@/app/api/channels/[channel]/parts/[partId]/route';
 import * as partsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/parts/route';
 import * as stockItemRoute from '@/app/api/channels/[channel]/stock/[stockId]/route';
 import * as stockRoute from '@/app/api/channels/[channel]/stock/route';
+import * as shotBulkRoute from '@/app/api/channels/[channel]/segments/[segmentId]/shots/bulk/route';
+import * as segmentShotsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/shots/route';
+import * as toolsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/tools/route';
+import * as safetyReviewRoute from '@/app/api/channels/[channel]/segments/[segmentId]/safety-review/route';
+import * as shotRoute from '@/app/api/channels/[channel]/shots/[shotId]/route';
+import * as shotPositionRoute from '@/app/api/channels/[channel]/shots/[shotId]/position/route';
+import * as shotStateRoute from '@/app/api/channels/[channel]/shots/[shotId]/state/route';
 import { createInvitation } from '@/lib/crew/queries';
+import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
 import { createStock } from '@/lib/stock/queries';
 import { makeOutlinedEpisode } from './episode-fixtures';
@@ -27,8 +35,8 @@ import { call, makeCrew, uniqueEmail } from './helpers';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', '__proto__', 'x'),
-  fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null)),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', '__proto__', 'x'),
+  fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
   fc.jsonValue().map((v) => JSON.stringify(v) ?? 'null'),
@@ -45,6 +53,7 @@ let segmentId: string;
 let buildId: string;
 let stockId: string;
 let partId: string;
+let shotId: string;
 beforeAll(async () => {
   crew = await makeCrew();
   const outlined = await makeOutlinedEpisode(crew);
@@ -53,6 +62,7 @@ beforeAll(async () => {
   buildId = outlined.segments.find((x) => x.kind === 'build')!.id;
   stockId = (await createStock(crew.channel.id, { kind: 'softwood', species: 'SPF', nominal: '2x4', offers: [{ lengthIn: 96, price: 448 }] })).id;
   partId = (await createPart(crew.channel.id, buildId, { name: 'Leg', quantity: 4, lengthIn: 20, widthIn: null, thicknessIn: null, stockItemId: stockId, grain: 'any', note: '' })).id;
+  shotId = (await createShot(crew.channel.id, buildId, { description: 'Rip the legs', framing: 'wide', camera: 'a_cam', assigneeId: crew.shopHand.id, dueDate: null, notes: '' })).id;
   invitationId = (await createInvitation(crew.channel.id, crew.host.id, { email: uniqueEmail('fuzz'), role: 'editor' })).invitation.id;
 });
 
@@ -76,6 +86,13 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'add part', fn: partsRoute.POST, method: 'POST', params: { channel: crew.channel.slug, segmentId: buildId } },
   { name: 'update part', fn: partRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, partId } },
   { name: 'shopping tick', fn: shoppingRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, episodeId } },
+  { name: 'add shot', fn: segmentShotsRoute.POST, method: 'POST', params: { channel: crew.channel.slug, segmentId: buildId } },
+  { name: 'paste shots', fn: shotBulkRoute.POST, method: 'POST', params: { channel: crew.channel.slug, segmentId: buildId } },
+  { name: 'update shot', fn: shotRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, shotId } },
+  { name: 'move shot', fn: shotPositionRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, shotId } },
+  { name: 'shot state', fn: shotStateRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, shotId } },
+  { name: 'segment tools', fn: toolsRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId: buildId } },
+  { name: 'safety review', fn: safetyReviewRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId: buildId } },
 ];
 
 describe('no body makes a 500', () => {
@@ -171,6 +188,51 @@ describe('no rack, part or settings body makes a 500', () => {
           if (res.status === 400 && res.json.error?.code === 'invalid_input') expect(Object.keys(res.json.error.fields ?? {}).length).toBeGreaterThan(0);
         }),
         { numRuns: 80 },
+      );
+    }
+  });
+});
+
+// Shot bodies near the real shape: framings, cameras and states right and wrong, dates real and not.
+const day = fc.oneof(fc.constantFrom('2027-01-16', '2027-02-30', '2027-1-6', '', 'today', null), fc.string({ maxLength: 12 }));
+const shotBody = (assignee: string) =>
+  fc.record(
+    {
+      description: fc.oneof(fc.string({ maxLength: 320 }), fc.constantFrom('  ', 'CU: glue')),
+      framing: fc.constantFrom('wide', 'close_up', 'dutch', ''),
+      camera: fc.constantFrom('a_cam', 'top_cam', 'drone'),
+      assigneeId: fc.oneof(fc.constant(assignee), fc.uuid(), fc.constant(null), fc.constant('none')),
+      dueDate: day,
+      notes: fc.string({ maxLength: 1010 }),
+    },
+    { requiredKeys: [] },
+  );
+const pasted = fc.array(fc.oneof(fc.string({ maxLength: 40 }), fc.constantFrom('CU:', 'Wide / Top cam: plane', '- 1. POV: chisel', 'XCU', ':', 'Insert: ')), { maxLength: 120 }).map((l) => l.join('\n'));
+
+describe('no shot body makes a 500', () => {
+  it('for shot-shaped bodies', async () => {
+    const ch = crew.channel.slug;
+    const runs: [string, Parameters<typeof call>[0], string, Record<string, string>, fc.Arbitrary<unknown>][] = [
+      ['add shot', segmentShotsRoute.POST, 'POST', { channel: ch, segmentId: buildId }, shotBody(crew.shopHand.id)],
+      ['update shot', shotRoute.PATCH, 'PATCH', { channel: ch, shotId }, shotBody(crew.shopHand.id)],
+      ['paste shots', shotBulkRoute.POST, 'POST', { channel: ch, segmentId: buildId }, fc.record({ text: pasted, assigneeId: fc.constantFrom(crew.editor.id, null), dueDate: day }, { requiredKeys: ['text'] })],
+      [
+        'shot state',
+        shotStateRoute.PUT,
+        'PUT',
+        { channel: ch, shotId },
+        fc.record({ state: fc.constantFrom('planned', 'captured', 'retake', 'lost'), reason: fc.string({ maxLength: 310 }), afterId: fc.oneof(fc.uuid(), fc.constant(null), fc.constant(shotId)) }, { requiredKeys: [] }),
+      ],
+      ['segment tools', toolsRoute.PUT, 'PUT', { channel: ch, segmentId: buildId }, fc.record({ tools: fc.array(fc.constantFrom('router', 'other', 'lathe', 'table_saw')), otherTool: fc.string({ maxLength: 90 }) }, { requiredKeys: [] })],
+    ];
+    for (const [name, fn, method, params, body] of runs) {
+      await fc.assert(
+        fc.asyncProperty(body, async (b) => {
+          const res = await call(fn, method, { as: crew.host, params, body: b });
+          expect(res.status, `${name}: ${JSON.stringify(b)}`).toBeLessThan(500);
+          if (res.status === 400 && res.json.error?.code === 'invalid_input') expect(Object.keys(res.json.error.fields ?? {}).length).toBeGreaterThan(0);
+        }),
+        { numRuns: 60 },
       );
     }
   });

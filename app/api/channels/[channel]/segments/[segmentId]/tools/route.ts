@@ -1,0 +1,11 @@
+import { route } from '@/lib/api/handler';
+import { getSegmentSafety, setSegmentTools } from '@/lib/shots/safety-queries';
+import { segmentShotsParamsSchema, segmentToolsSchema } from '@/lib/shots/schemas';
+
+export const GET = route({ params: segmentShotsParamsSchema, channel: 'member' }, async ({ member, params }) => ({
+  safety: await getSegmentSafety(member.channel.id, params.segmentId),
+}));
+
+export const PUT = route({ params: segmentShotsParamsSchema, body: segmentToolsSchema, channel: 'episodes.edit' }, async ({ member, params, body }) => ({
+  safety: await setSegmentTools(member.channel.id, params.segmentId, body),
+}));

@@ -1,0 +1,127 @@
+import { z } from 'zod';
+import { channelSlugSchema } from '@/lib/channels/schemas';
+import { dateSchema } from '@/lib/episodes/schemas';
+import { cameras, framings, MAX_DESCRIPTION, shotStates, type Camera, type Framing, type ShotState } from './catalog';
+import { tools, type Tool } from './safety';
+
+const fields = {
+  description: z
+    .string({ error: 'Say what the shot shows.' })
+    .trim()
+    .min(1, 'Say what the shot shows.')
+    .max(MAX_DESCRIPTION, `Keep the description under ${MAX_DESCRIPTION} characters.`),
+  framing: z.enum(framings, { error: 'Choose a framing.' }),
+  camera: z.enum(cameras, { error: 'Choose a camera.' }),
+  assigneeId: z.uuid({ error: 'Choose someone from the crew.' }).nullable(),
+  dueDate: dateSchema.nullable(),
+  notes: z.string({ error: 'Notes are text.' }).trim().max(1000, 'Keep notes under 1000 characters.'),
+};
+
+export const createShotSchema = z.strictObject({
+  description: fields.description,
+  framing: fields.framing.default('medium'),
+  camera: fields.camera.default('a_cam'),
+  assigneeId: fields.assigneeId.default(null),
+  dueDate: fields.dueDate.default(null),
+  notes: fields.notes.default(''),
+});
+export type CreateShotInput = z.infer<typeof createShotSchema>;
+
+export const bulkShotsSchema = z.strictObject({
+  text: z.string({ error: 'Paste one shot per line.' }).max(20_000, 'Paste at most 100 shots at a time.'),
+  assigneeId: fields.assigneeId.default(null),
+  dueDate: fields.dueDate.default(null),
+});
+export type BulkShotsInput = z.infer<typeof bulkShotsSchema>;
+
+export const updateShotSchema = z
+  .strictObject({
+    description: fields.description.optional(),
+    framing: fields.framing.optional(),
+    camera: fields.camera.optional(),
+    assigneeId: fields.assigneeId.optional(),
+    dueDate: fields.dueDate.optional(),
+    notes: fields.notes.optional(),
+  })
+  .refine((v) => Object.values(v).some((x) => x !== undefined), 'Change at least one field.');
+export type UpdateShotInput = z.infer<typeof updateShotSchema>;
+
+export const moveShotSchema = z.strictObject({
+  afterId: z.uuid({ error: 'Name the shot to follow, or null for first.' }).nullable(),
+});
+
+export const shotStateSchema = z
+  .strictObject({
+    state: z.enum(shotStates, { error: 'Choose Planned, Captured or Retake.' }),
+    reason: z.string({ error: 'The reason is text.' }).trim().max(300, 'Keep the reason under 300 characters.').optional(),
+    // Where the card lands in its board column; omitted keeps its place.
+    afterId: z.uuid({ error: 'Name the card to follow, or null for top.' }).nullable().optional(),
+  })
+  .superRefine((v, ctx) => {
+    if (v.state === 'retake' && !v.reason) ctx.addIssue({ code: 'custom', path: ['reason'], message: 'Say why it needs a retake.' });
+  });
+export type ShotStateInput = z.infer<typeof shotStateSchema>;
+
+export const segmentToolsSchema = z
+  .strictObject({
+    tools: z.array(z.enum(tools, { error: 'Choose tools from the list.' }), { error: 'Choose tools from the list.' }).max(tools.length),
+    otherTool: z.string({ error: 'Name the other tool.' }).trim().max(80, 'Keep the tool name under 80 characters.').default(''),
+  })
+  .superRefine((v, ctx) => {
+    if (v.tools.includes('other') && !v.otherTool) ctx.addIssue({ code: 'custom', path: ['otherTool'], message: 'Name the other tool.' });
+  });
+export type SegmentToolsInput = z.infer<typeof segmentToolsSchema>;
+
+export const safetyReviewSchema = z.strictObject({ reviewed: z.boolean({ error: 'Say whether the safety review is done.' }) });
+
+export const boardQuerySchema = z.object({
+  episodeId: z.uuid({ error: 'Not an episode.' }).optional(),
+  segmentId: z.uuid({ error: 'Not a segment.' }).optional(),
+  assigneeId: z.union([z.uuid(), z.literal('none')], { error: 'Not a crew member.' }).optional(),
+  camera: z.enum(cameras, { error: 'Not a camera.' }).optional(),
+});
+export type BoardQuery = z.infer<typeof boardQuerySchema>;
+
+export const segmentShotsParamsSchema = z.object({ channel: channelSlugSchema, segmentId: z.uuid() });
+export const shotParamsSchema = z.object({ channel: channelSlugSchema, shotId: z.uuid() });
+
+export type ShotDto = {
+  id: string;
+  segmentId: string;
+  number: number;
+  position: string;
+  boardPosition: string;
+  framing: Framing;
+  camera: Camera;
+  description: string;
+  assigneeId: string | null;
+  assigneeName: string | null;
+  dueDate: string | null;
+  notes: string;
+  state: ShotState;
+  retakeReason: string | null;
+  stateChangedBy: string | null;
+  stateChangedAt: string | null;
+};
+
+/** A shot with where it lives, for the board, "My shots" and e-mail. */
+export type BoardShotDto = ShotDto & {
+  episodeId: string;
+  episodeTitle: string;
+  shootDate: string | null;
+  segmentTitle: string;
+  segmentPosition: string;
+  tools: Tool[];
+  safetyPending: boolean;
+};
+
+export type SegmentSafetyDto = {
+  segmentId: string;
+  tools: Tool[];
+  otherTool: string;
+  needsReview: boolean;
+  reviewedBy: string | null;
+  reviewedAt: string | null;
+};
+
+export type ShotProgress = { total: number; captured: number; retake: number };

@@ -1,8 +1,11 @@
 'use client';
 
+import Link from 'next/link';
+import { usePathname } from 'next/navigation';
 import { signOut } from 'next-auth/react';
 
 export function UserMenu({ name, email, roleLabel }: { name: string; email: string; roleLabel: string }) {
+  const slug = /^\/c\/([^/]+)/.exec(usePathname() ?? '')?.[1];
   return (
     <details className="relative">
       <summary className="flex min-h-touch cursor-pointer list-none items-center gap-2 rounded-md px-3 text-sm font-bold hover:bg-paper-deep">
@@ -16,6 +19,11 @@ export function UserMenu({ name, email, roleLabel }: { name: string; email: stri
         <p className="font-bold">{name}</p>
         <p className="truncate font-mono text-xs text-ink-soft">{email}</p>
         <p className="mt-1 text-xs text-ink-faint">{roleLabel} on this channel</p>
+        {slug ? (
+          <Link href={`/c/${slug}/settings#profile`} className="mt-3 flex min-h-touch items-center justify-center rounded-md border border-ink/30 text-sm font-bold hover:bg-paper">
+            Your profile and e-mail
+          </Link>
+        ) : null}
         <button
           type="button"
           onClick={() => void signOut({ callbackUrl: '/sign-in' })}

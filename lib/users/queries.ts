@@ -3,8 +3,8 @@ import { db } from '@/db/client';
 import { hashPassword } from '@/lib/auth/password';
 import { createChannelWithHost } from '@/lib/channels/queries';
 import type { ChannelDto } from '@/lib/channels/schemas';
-import { conflict } from '@/lib/errors';
-import type { SignUpInput, UserDto } from './schemas';
+import { conflict, notFound } from '@/lib/errors';
+import type { ProfileDto, SignUpInput, UpdateProfileInput, UserDto } from './schemas';
 
 type UserRow = { id: string; email: string; name: string; password_hash: string };
 
@@ -38,4 +38,25 @@ export async function signUp(input: SignUpInput): Promise<{ user: UserDto; chann
     const channel = await createChannelWithHost(trx, input.channelName, row.id);
     return { user: toUserDto(row), channel };
   });
+}
+
+type ProfileRow = { id: string; email: string; name: string; email_opt_out: boolean };
+const toProfileDto = (r: ProfileRow): ProfileDto => ({ ...toUserDto(r), emailOptOut: r.email_opt_out });
+
+export async function getProfile(userId: string): Promise<ProfileDto> {
+  const row: ProfileRow | undefined = await db('users').where({ id: userId }).first(['id', 'email', 'name', 'email_opt_out']);
+  if (!row) throw notFound('Your account');
+  return toProfileDto(row);
+}
+
+export async function updateProfile(userId: string, input: UpdateProfileInput): Promise<ProfileDto> {
+  const [row] = await db('users')
+    .where({ id: userId })
+    .update({
+      ...(input.name !== undefined && { name: input.name }),
+      ...(input.emailOptOut !== undefined && { email_opt_out: input.emailOptOut }),
+    })
+    .returning<ProfileRow[]>(['id', 'email', 'name', 'email_opt_out']);
+  if (!row) throw notFound('Your account');
+  return toProfileDto(row);
 }

@@ -39,3 +39,13 @@ export const credentialsSchema = z.object({
 });
 
 export type UserDto = { id: string; email: string; name: string };
+
+export const updateProfileSchema = z
+  .strictObject({
+    name: personNameSchema.optional(),
+    emailOptOut: z.boolean({ error: 'Say whether to turn shot e-mails off.' }).optional(),
+  })
+  .refine((v) => v.name !== undefined || v.emailOptOut !== undefined, 'Change at least one field.');
+export type UpdateProfileInput = z.infer<typeof updateProfileSchema>;
+
+export type ProfileDto = UserDto & { emailOptOut: boolean };

@@ -7,6 +7,7 @@ import * as invitationsRoute from '@/app/api/channels/[channel]/invitations/rout
 import * as channelsRoute from '@/app/api/channels/route';
 import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
 import * as signUpRoute from '@/app/api/sign-up/route';
+import * as profileRoute from '@/app/api/profile/route';
 import * as episodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/route';
 import * as segmentsRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/segments/route';
 import * as episodesRoute from '@/app/api/channels/[channel]/episodes/route';
@@ -35,7 +36,7 @@ import { call, makeCrew, uniqueEmail } from './helpers';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
@@ -69,6 +70,7 @@ beforeAll(async () => {
 const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: string; params: Record<string, string> }[] => [
   { name: 'sign-up', fn: signUpRoute.POST, method: 'POST', params: {} },
   { name: 'create channel', fn: channelsRoute.POST, method: 'POST', params: {} },
+  { name: 'profile', fn: profileRoute.PATCH, method: 'PATCH', params: {} },
   { name: 'channel settings', fn: channelRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug } },
   { name: 'change role', fn: memberRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, userId: crew.editor.id } },
   { name: 'invite', fn: invitationsRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },

@@ -1,18 +1,21 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { ProfileForm } from '@/components/profile/profile-form';
 import { ChannelSettingsForm } from '@/components/settings/channel-settings-form';
 import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
+import { getProfile } from '@/lib/users/queries';
 
 export const metadata: Metadata = { title: 'Settings' };
 
 export default async function SettingsPage({ params }: { params: Promise<{ channel: string }> }) {
   const member = await requireMember((await params).channel);
   const host = can(member.role, 'channel.settings');
+  const profile = await getProfile(member.userId);
   return (
     <>
-      <PageHeader title="Settings">Channel settings{host ? ' and crew' : ''}.</PageHeader>
+      <PageHeader title="Settings">Your profile, channel settings{host ? ' and crew' : ''}.</PageHeader>
       {host ? (
         <nav aria-label="Settings sections" className="mb-6">
           <Link href={`/c/${member.channel.slug}/settings/crew`} className="font-bold text-blueprint underline">
@@ -20,6 +23,12 @@ export default async function SettingsPage({ params }: { params: Promise<{ chann
           </Link>
         </nav>
       ) : null}
+      <section id="profile" aria-labelledby="profile-heading" className="mb-6 max-w-xl rounded-card border border-paper-edge bg-white/60 p-5 shadow-card">
+        <h2 id="profile-heading" className="text-lg font-bold">
+          Your profile
+        </h2>
+        <ProfileForm profile={profile} />
+      </section>
       <section aria-labelledby="channel-heading" className="max-w-xl rounded-card border border-paper-edge bg-white/60 p-5 shadow-card">
         <h2 id="channel-heading" className="text-lg font-bold">
           Channel

@@ -108,6 +108,7 @@ export function RunningOrderBoard({ channelSlug, initialBoard }: { channelSlug: 
     channelSlug,
     episode,
     forecast: forecastById.get(segmentId),
+    shotProgress: board.shotProgress[segmentId],
     position: index + 1,
   });
 

@@ -7,6 +7,7 @@ import { useId, useRef, useState, type ReactNode } from 'react';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
 import { formatDuration, type SegmentForecast } from '@/lib/runtime';
 import { kindLabels, type SegmentDto } from '@/lib/segments/schemas';
+import type { ShotProgress } from '@/lib/shots/schemas';
 import { kindSwatches } from './runtime-bar';
 import { levelText, SegmentEditForm } from './segment-edit-form';
 
@@ -18,6 +19,7 @@ type ItemProps = {
   episode: EpisodeDto;
   segment: SegmentDto;
   forecast: SegmentForecast | undefined;
+  shotProgress: ShotProgress | undefined;
   position: number;
 };
 
@@ -111,6 +113,7 @@ function SegmentCardBody({
   episode,
   segment,
   forecast,
+  shotProgress,
   position,
   handle,
   actions,
@@ -157,12 +160,41 @@ function SegmentCardBody({
           </span>
           <span className="font-mono text-xs tabular-nums text-ink-soft">starts {formatDuration(forecast?.startSeconds ?? 0)}</span>
         </p>
-        <div className="sm:col-start-1 sm:row-start-2">
+        <div className="flex flex-wrap items-center gap-x-3 gap-y-1 sm:col-start-1 sm:row-start-2">
           <ScriptBadge hasScript={segment.hasScript} />
+          <ShotProgressLine progress={shotProgress} />
         </div>
       </div>
       {actions}
     </article>
+  );
+}
+
+/**
+ * This card's slice of the board query the running order already holds. `select` re-renders a card only
+ * when its own numbers change; no refetch on mount, so picking a card up for a drag costs no request.
+ */
+function ShotProgressLine({ progress }: { progress: ShotProgress | undefined }) {
+  if (!progress || progress.total === 0) return <span className="text-xs text-ink-faint">No shots yet</span>;
+  const { total, captured, retake } = progress;
+  return (
+    <span className="flex flex-wrap items-center gap-x-2 text-xs">
+      <span className="text-ink-soft">
+        Shots{' '}
+        <span aria-hidden="true" className="font-mono font-bold tabular-nums text-ink">
+          {captured}/{total}
+        </span>
+        <span className="sr-only">
+          {captured} of {total}
+        </span>{' '}
+        captured
+      </span>
+      {retake > 0 ? (
+        <span className="rounded-full bg-attention-soft px-2 py-0.5 font-bold text-attention-ink">
+          {retake} {retake === 1 ? 'retake' : 'retakes'}
+        </span>
+      ) : null}
+    </span>
   );
 }
 

@@ -13,11 +13,11 @@ type Props = { channelSlug: string; channelName: string; role: Role; channels: C
 
 export function AppShell({ channelSlug, channelName, role, channels, user, children }: Props) {
   return (
-    <div className="min-h-screen md:grid md:grid-cols-[15rem_1fr]">
+    <div className="min-h-screen md:grid md:grid-cols-[15rem_1fr] print:block print:min-h-0 print:bg-white print:text-black">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:bg-white focus:p-2">
         Skip to content
       </a>
-      <aside className="border-b border-paper-edge bg-paper-deep md:min-h-screen md:border-b-0 md:border-r">
+      <aside className="border-b border-paper-edge bg-paper-deep md:min-h-screen md:border-b-0 md:border-r print:hidden">
         <div className="flex items-center justify-between gap-2 px-4 py-3 md:block md:space-y-4 md:py-5">
           <Link href={`/c/${channelSlug}`} aria-label="Kerfline dashboard">
             <Logo className="text-lg" />
@@ -32,10 +32,10 @@ export function AppShell({ channelSlug, channelName, role, channels, user, child
         <NavLinks channelSlug={channelSlug} />
       </aside>
       <div className="flex min-w-0 flex-col">
-        <div className="flex items-center justify-end border-b border-paper-edge px-4 py-2 md:px-8">
+        <div className="flex items-center justify-end border-b border-paper-edge px-4 py-2 md:px-8 print:hidden">
           <UserMenu name={user.name} email={user.email} roleLabel={roleLabels[role]} />
         </div>
-        <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-6 md:px-8">
+        <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-6 md:px-8 print:max-w-none print:p-0">
           {children}
         </main>
       </div>

@@ -88,6 +88,7 @@ describe('reorderBoard', () => {
     forecast: { segments: [], totalSeconds: 0 },
     speakingRateWpm: 150,
     canEdit: true,
+    shotProgress: {},
   } satisfies BoardDto;
 
   it('reorders segments and recomputes start times at the speaking rate', () => {

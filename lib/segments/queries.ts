@@ -8,6 +8,7 @@ import { findEpisode, lockEpisode } from '@/lib/episodes/queries';
 import { threeLevelBuild } from '@/lib/episodes/starter';
 import { invalidInput, notFound } from '@/lib/errors';
 import { forecastEpisode } from '@/lib/runtime';
+import { shotProgressForEpisode } from '@/lib/shots/queries';
 import type { BoardDto, CreateSegmentInput, Level, SegmentDto, SegmentKind, UpdateSegmentInput } from './schemas';
 
 type SegmentRow = {
@@ -49,10 +50,14 @@ const toSegmentDto = (r: SegmentRow): SegmentDto => ({
   scriptVersion: r.script_version,
 });
 
-/** The whole board in two statements, however many segments the episode has. */
+/** The whole board in three statements, however many segments the episode has. */
 export async function getBoard(member: Membership, episodeId: string): Promise<BoardDto> {
+  // The episode lookup is the channel check; the other two only run once it passed.
   const episode = await findEpisode(member.channel.id, episodeId);
-  const rows: SegmentRow[] = await db('segments as s').where('s.episode_id', episodeId).orderBy('s.position').select(segmentColumns);
+  const [rows, shotProgress]: [SegmentRow[], BoardDto['shotProgress']] = await Promise.all([
+    db('segments as s').where('s.episode_id', episodeId).orderBy('s.position').select(segmentColumns),
+    shotProgressForEpisode(episodeId),
+  ]);
   const segments = rows.map(toSegmentDto);
   const wpm = member.channel.speakingRateWpm;
   return {
@@ -61,6 +66,7 @@ export async function getBoard(member: Membership, episodeId: string): Promise<B
     forecast: forecastEpisode(segments.map((s) => ({ id: s.id, wordCount: s.wordCount, actionSeconds: s.actionSeconds })), wpm),
     speakingRateWpm: wpm,
     canEdit: can(member.role, 'episodes.edit'),
+    shotProgress,
   };
 }
 

@@ -3,6 +3,7 @@ import { channelSlugSchema } from '@/lib/channels/schemas';
 import { durationSchema } from '@/lib/episodes/schemas';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
 import type { EpisodeForecast } from '@/lib/runtime';
+import type { ShotProgress } from '@/lib/shots/schemas';
 
 export const segmentKinds = ['cold_open', 'build', 'sponsor_read', 'interlude', 'outro'] as const;
 export type SegmentKind = (typeof segmentKinds)[number];
@@ -60,4 +61,6 @@ export type BoardDto = {
   forecast: EpisodeForecast;
   speakingRateWpm: number;
   canEdit: boolean;
+  /** By segment id; a segment without live shots has no entry. */
+  shotProgress: Record<string, ShotProgress>;
 };

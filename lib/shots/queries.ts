@@ -402,3 +402,12 @@ export async function shotProgressForEpisode(episodeId: string, trx: Db = db): P
     );
   return Object.fromEntries(rows.map((r) => [r.segment_id, { total: r.total, captured: r.captured, retake: r.retake }]));
 }
+
+/** Live shots of one episode in running order, archived or not (the shoot-day sheet prints either). */
+export async function listEpisodeShots(channelId: string, episodeId: string): Promise<ShotDto[]> {
+  const rows: ShotRow[] = await channelShots(db, channelId)
+    .where('e.id', episodeId)
+    .orderBy([{ column: 's.position' }, { column: 'sh.position' }])
+    .select(shotColumns);
+  return rows.map(toShotDto);
+}

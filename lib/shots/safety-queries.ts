@@ -85,3 +85,13 @@ export async function listPendingSafety(channelId: string, episodeId?: string): 
     .filter((r) => needsSafetyReview(r.tools))
     .map((r) => ({ segmentId: r.id, segmentTitle: r.title, episodeId: r.episode_id, episodeTitle: r.episode_title, tools: r.tools }));
 }
+
+/** Safety of every segment of an episode, keyed by segment id, in one statement. */
+export async function listEpisodeSafety(channelId: string, episodeId: string): Promise<Map<string, SegmentSafetyDto>> {
+  const rows: SafetyRow[] = await db('segments as s')
+    .join('episodes as e', 'e.id', 's.episode_id')
+    .leftJoin('users as u', 'u.id', 's.safety_reviewed_by')
+    .where({ 's.episode_id': episodeId, 'e.channel_id': channelId })
+    .select('s.id', 's.tools', 's.other_tool', 'u.name as reviewer', 's.safety_reviewed_at');
+  return new Map(rows.map((r) => [r.id, toSafetyDto(r)]));
+}

@@ -51,6 +51,9 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
           <Link href={`${base}/${episode.id}/cut-plan`} className={buttonClasses('secondary')}>
             Cut plan
           </Link>
+          <Link href={`${base}/${episode.id}/shoot-sheet`} className={buttonClasses('secondary')}>
+            Shoot-day sheet
+          </Link>
           {board.canEdit ? (
             <Link href={`${base}/${episode.id}/edit`} className={buttonClasses('secondary')}>
               Edit episode

@@ -5,16 +5,21 @@ import { ScriptView } from '@/components/script/script-view';
 import { ActionTimeForm } from '@/components/segments/action-time-form';
 import { PartsEditor } from '@/components/parts/parts-editor';
 import { LiveScriptEditor } from '@/components/segments/live-script-editor';
+import { SafetyPanel } from '@/components/shots/safety-panel';
+import { ShotList } from '@/components/shots/shot-list';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { planSegment } from '@/lib/cut-plans/queries';
 import { findEpisode } from '@/lib/episodes/queries';
+import { listCrew } from '@/lib/crew/queries';
 import { listSegmentParts } from '@/lib/parts/queries';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { formatDuration, spokenSeconds } from '@/lib/runtime';
 import { findSegment } from '@/lib/segments/queries';
 import { kindLabels } from '@/lib/segments/schemas';
 import { getScript } from '@/lib/segments/script-queries';
+import { listSegmentShots } from '@/lib/shots/queries';
+import { getSegmentSafety } from '@/lib/shots/safety-queries';
 import { listStock } from '@/lib/stock/queries';
 
 export const metadata: Metadata = { title: 'Segment' };
@@ -24,11 +29,14 @@ type Params = { channel: string; episodeId: string; segmentId: string };
 export default async function SegmentPage({ params }: { params: Promise<Params> }) {
   const { channel, episodeId, segmentId } = await params;
   const member = await requireMember(channel);
-  const [episode, segment, script] = await orNotFound(
+  const [episode, segment, script, shots, safety, crew] = await orNotFound(
     Promise.all([
       findEpisode(member.channel.id, uuidOr404(episodeId)),
       findSegment(member.channel.id, uuidOr404(segmentId)),
       getScript(member.channel.id, segmentId),
+      listSegmentShots(member.channel.id, segmentId),
+      getSegmentSafety(member.channel.id, segmentId),
+      listCrew(member.channel.id),
     ]),
   );
   if (segment.episodeId !== episode.id) notFound();
@@ -37,6 +45,8 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
     ? await Promise.all([listSegmentParts(member.channel.id, segment.id), listStock(member.channel.id), planSegment(member.channel.id, segment.id)])
     : null;
   const canWrite = can(member.role, 'scripts.write');
+  // Only a Host or a Shop hand may hold a shot.
+  const assignable = crew.filter((c) => c.role === 'host' || c.role === 'shop_hand').map((c) => ({ userId: c.userId, name: c.name }));
   const spoken = spokenSeconds(segment.wordCount, member.channel.speakingRateWpm);
   const base = `/c/${member.channel.slug}/episodes/${episode.id}`;
   return (
@@ -83,6 +93,27 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
             <ScriptView doc={script.doc} />
           </div>
         )}
+      </section>
+      <section aria-labelledby="safety-heading" className="mt-8">
+        <h2 id="safety-heading" className="mb-3 text-lg font-bold">
+          Shop safety
+        </h2>
+        <SafetyPanel
+          channelSlug={member.channel.slug}
+          segmentId={segment.id}
+          initialSafety={safety}
+          canEditTools={can(member.role, 'episodes.edit')}
+          canReview={can(member.role, 'safety.review')}
+        />
+      </section>
+      <section aria-labelledby="shots-heading" className="mt-8">
+        <ShotList
+          channelSlug={member.channel.slug}
+          segmentId={segment.id}
+          initialShots={shots}
+          crew={assignable}
+          viewer={{ role: member.role, userId: member.userId }}
+        />
       </section>
       {cut ? (
         <section aria-labelledby="parts-heading" className="mt-8">

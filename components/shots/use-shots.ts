@@ -1,0 +1,150 @@
+'use client';
+
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { apiFetch } from '@/lib/api/client';
+import { moveAfter } from '@/lib/segments/order';
+import type { Tool } from '@/lib/shots/safety';
+import type { SegmentSafetyDto, ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
+
+export const segmentShotsKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId] as const;
+export const segmentSafetyKey = (slug: string, segmentId: string) => ['safety', slug, 'segment', segmentId] as const;
+const moveKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId, 'move'] as const;
+
+const api = (slug: string) => `/api/channels/${slug}`;
+
+// Numbers follow the list order, so an optimistic move or delete renumbers at once, as the server will.
+const renumber = (shots: ShotDto[]): ShotDto[] => shots.map((s, i) => (s.number === i + 1 ? s : { ...s, number: i + 1 }));
+
+export function useSegmentShots(slug: string, segmentId: string, initialShots: ShotDto[]) {
+  return useQuery({
+    queryKey: segmentShotsKey(slug, segmentId),
+    queryFn: () => apiFetch<{ shots: ShotDto[] }>(`${api(slug)}/segments/${segmentId}/shots`).then((r) => r.shots),
+    initialData: initialShots,
+  });
+}
+
+/** Settles a shot mutation: the segment's list refetches, and so does any other shot view under the same prefix. */
+function useRefreshShots(slug: string) {
+  const qc = useQueryClient();
+  return () => qc.invalidateQueries({ queryKey: ['shots', slug] });
+}
+
+export function useUpdateShot(slug: string, segmentId: string) {
+  const qc = useQueryClient();
+  const refresh = useRefreshShots(slug);
+  return useMutation({
+    mutationFn: ({ shotId, patch }: { shotId: string; patch: UpdateShotInput }) =>
+      apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}`, { method: 'PATCH', body: patch }).then((r) => r.shot),
+    onSuccess: (shot) => {
+      qc.setQueryData<ShotDto[]>(segmentShotsKey(slug, segmentId), (list) => list?.map((s) => (s.id === shot.id ? { ...shot, number: s.number } : s)));
+      return refresh();
+    },
+  });
+}
+
+export type DeleteVariables = { shotId: string; number: number };
+
+export function useDeleteShot(slug: string, segmentId: string) {
+  const qc = useQueryClient();
+  const key = segmentShotsKey(slug, segmentId);
+  const refresh = useRefreshShots(slug);
+  return useMutation({
+    mutationFn: ({ shotId }: DeleteVariables) => apiFetch<void>(`${api(slug)}/shots/${shotId}`, { method: 'DELETE' }),
+    onMutate: ({ shotId }: DeleteVariables) => {
+      void qc.cancelQueries({ queryKey: key, exact: true });
+      const previous = qc.getQueryData<ShotDto[]>(key);
+      if (previous) qc.setQueryData<ShotDto[]>(key, renumber(previous.filter((s) => s.id !== shotId)));
+      return { previous };
+    },
+    onError: (_err, _vars, context) => {
+      if (context?.previous) qc.setQueryData<ShotDto[]>(key, context.previous);
+    },
+    onSettled: refresh,
+  });
+}
+
+export function useRestoreShot(slug: string) {
+  const refresh = useRefreshShots(slug);
+  return useMutation({
+    mutationFn: (shotId: string) => apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}/restore`, { method: 'POST' }).then((r) => r.shot),
+    onSettled: refresh,
+  });
+}
+
+export function useDuplicateShot(slug: string) {
+  const refresh = useRefreshShots(slug);
+  return useMutation({
+    mutationFn: (shotId: string) => apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}/duplicate`, { method: 'POST' }).then((r) => r.shot),
+    onSettled: refresh,
+  });
+}
+
+export type MoveVariables = { shotId: string; afterId: string | null; number: number };
+
+export function useMoveShot(slug: string, segmentId: string) {
+  const qc = useQueryClient();
+  const key = segmentShotsKey(slug, segmentId);
+  return useMutation({
+    mutationKey: moveKey(slug, segmentId),
+    mutationFn: ({ shotId, afterId }: MoveVariables) =>
+      apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}/position`, { method: 'PUT', body: { afterId } }),
+    // Synchronous on purpose: the cache holds the new order before React paints the drop, so the row does not jump back.
+    onMutate: ({ shotId, afterId }: MoveVariables) => {
+      void qc.cancelQueries({ queryKey: key, exact: true });
+      const previous = qc.getQueryData<ShotDto[]>(key);
+      if (previous) qc.setQueryData<ShotDto[]>(key, renumber(moveAfter(previous, shotId, afterId)));
+      return { previous };
+    },
+    onError: (_err, _vars, context) => {
+      if (context?.previous) qc.setQueryData<ShotDto[]>(key, context.previous);
+    },
+    onSettled: () => {
+      // Only the last of several moves in flight refetches, so an early answer cannot undo a later move.
+      if (qc.isMutating({ mutationKey: moveKey(slug, segmentId) }) > 1) return;
+      return qc.invalidateQueries({ queryKey: ['shots', slug] });
+    },
+  });
+}
+
+export type BulkVariables = { text: string; assigneeId: string | null; dueDate: string | null };
+
+export function useBulkAddShots(slug: string, segmentId: string) {
+  const refresh = useRefreshShots(slug);
+  return useMutation({
+    mutationFn: (body: BulkVariables) =>
+      apiFetch<{ shots: ShotDto[] }>(`${api(slug)}/segments/${segmentId}/shots/bulk`, { method: 'POST', body }).then((r) => r.shots),
+    onSuccess: refresh,
+  });
+}
+
+export function useSegmentSafety(slug: string, segmentId: string, initialSafety: SegmentSafetyDto) {
+  return useQuery({
+    queryKey: segmentSafetyKey(slug, segmentId),
+    queryFn: () => apiFetch<{ safety: SegmentSafetyDto }>(`${api(slug)}/segments/${segmentId}/tools`).then((r) => r.safety),
+    initialData: initialSafety,
+  });
+}
+
+/** Tools and review change whether shots may be marked Captured, so the board refetches as well. */
+function useSafetyMutation<V>(slug: string, segmentId: string, request: (v: V) => Promise<{ safety: SegmentSafetyDto }>) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (v: V) => request(v).then((r) => r.safety),
+    onSuccess: (safety) => {
+      qc.setQueryData(segmentSafetyKey(slug, segmentId), safety);
+      return qc.invalidateQueries({ queryKey: ['shots', slug] });
+    },
+  });
+}
+
+export function useSaveTools(slug: string, segmentId: string) {
+  return useSafetyMutation(slug, segmentId, (body: { tools: Tool[]; otherTool: string }) =>
+    apiFetch<{ safety: SegmentSafetyDto }>(`${api(slug)}/segments/${segmentId}/tools`, { method: 'PUT', body }),
+  );
+}
+
+export function useSafetyReview(slug: string, segmentId: string) {
+  return useSafetyMutation(slug, segmentId, (reviewed: boolean) =>
+    apiFetch<{ safety: SegmentSafetyDto }>(`${api(slug)}/segments/${segmentId}/safety-review`, { method: 'PUT', body: { reviewed } }),
+  );
+}

@@ -1,0 +1,140 @@
+'use client';
+
+import { useMutation, useQuery, useQueryClient, type QueryKey } from '@tanstack/react-query';
+import { boardKey } from '@/components/board/use-board';
+import { apiFetch } from '@/lib/api/client';
+import { moveAfter } from '@/lib/segments/order';
+import type { BoardDto } from '@/lib/segments/schemas';
+import type { ShotState } from '@/lib/shots/catalog';
+import type { PendingSafetyDto } from '@/lib/shots/safety-queries';
+import type { BoardShotDto } from '@/lib/shots/schemas';
+import { filtersToSearch, type BoardFilters } from './board-query';
+
+export type BoardData = { shots: BoardShotDto[]; pendingSafety: PendingSafetyDto[] };
+
+const api = (slug: string) => `/api/channels/${slug}`;
+// Under the same ['shots', slug] prefix as the segment shot lists, so an edit in either view refreshes the other.
+export const shopBoardKey = (slug: string, filters: BoardFilters) => ['shots', slug, 'board', filtersToSearch(filters)] as const;
+const allBoardsKey = (slug: string) => ['shots', slug, 'board'] as const;
+export const myShotsKey = (slug: string) => ['shots', slug, 'mine'] as const;
+const shotMailKey = (slug: string) => ['shot-mail', slug] as const;
+const stateKey = (slug: string) => ['shot-state', slug] as const;
+
+export function useBoardShots(slug: string, filters: BoardFilters, initial: { filters: BoardFilters; data: BoardData }) {
+  const search = filtersToSearch(filters);
+  return useQuery({
+    queryKey: shopBoardKey(slug, filters),
+    queryFn: () => apiFetch<BoardData>(`${api(slug)}/shots${search ? `?${search}` : ''}`),
+    // The server's first view only answers the filters it was rendered for.
+    initialData: search === filtersToSearch(initial.filters) ? initial.data : undefined,
+    // Keeps the old cards on screen while the next filter loads, instead of a blank board.
+    placeholderData: (previous) => previous,
+  });
+}
+
+export function useMyShots(slug: string, initialShots: BoardShotDto[]) {
+  return useQuery({
+    queryKey: myShotsKey(slug),
+    queryFn: () => apiFetch<{ shots: BoardShotDto[] }>(`${api(slug)}/shots/mine`).then((r) => r.shots),
+    initialData: initialShots,
+  });
+}
+
+/** Segments of the chosen episode, for the Segment filter; shares the running order's cache. */
+export function useEpisodeSegments(slug: string, episodeId: string | undefined, initialBoard: BoardDto | null) {
+  return useQuery({
+    queryKey: boardKey(slug, episodeId ?? ''),
+    queryFn: () => apiFetch<BoardDto>(`${api(slug)}/episodes/${episodeId}/board`),
+    enabled: episodeId !== undefined,
+    initialData: initialBoard && initialBoard.episode.id === episodeId ? initialBoard : undefined,
+    select: (board) => board.segments,
+  });
+}
+
+export type StateChange = {
+  shot: BoardShotDto;
+  state: ShotState;
+  reason?: string;
+  /** The card above it in the target column (null = top); undefined keeps its place on the board. */
+  afterId?: string | null;
+};
+
+function applyChange(shots: BoardShotDto[], v: StateChange, viewerName: string, now: string, reorder: boolean): BoardShotDto[] {
+  const next = shots.map((s) => {
+    if (s.id !== v.shot.id) return s;
+    const reason = v.state === 'retake' ? (v.reason ?? s.retakeReason) : null;
+    const changing = s.state !== v.state || reason !== s.retakeReason;
+    return changing ? { ...s, state: v.state, retakeReason: reason, stateChangedBy: viewerName, stateChangedAt: now } : s;
+  });
+  return reorder && v.afterId !== undefined ? moveAfter(next, v.shot.id, v.afterId) : next;
+}
+
+const replaceShot = (shots: BoardShotDto[], shot: BoardShotDto) => shots.map((s) => (s.id === shot.id ? shot : s));
+
+/**
+ * One state change for the board, the phone list and "My shots": the card moves at once in every
+ * cached view and goes back where it was if the server refuses (a pending safety review, say).
+ */
+export function useChangeShotState(slug: string, viewerName: string) {
+  const qc = useQueryClient();
+  const { mutateAsync } = useMutation({
+    mutationKey: stateKey(slug),
+    mutationFn: ({ shot, state, reason, afterId }: StateChange) =>
+      apiFetch<{ shot: BoardShotDto }>(`${api(slug)}/shots/${shot.id}/state`, {
+        method: 'PUT',
+        body: { state, ...(reason !== undefined && { reason }), ...(afterId !== undefined && { afterId }) },
+      }).then((r) => r.shot),
+    onSuccess: (shot) => {
+      for (const [key, data] of qc.getQueriesData<BoardData>({ queryKey: allBoardsKey(slug) })) {
+        if (data) qc.setQueryData<BoardData>(key, { ...data, shots: replaceShot(data.shots, shot) });
+      }
+      const mine = qc.getQueryData<BoardShotDto[]>(myShotsKey(slug));
+      if (mine) qc.setQueryData(myShotsKey(slug), replaceShot(mine, shot));
+    },
+    onSettled: () => {
+      // With several changes in flight only the last refetches, so an early answer cannot undo a later move.
+      if (qc.isMutating({ mutationKey: stateKey(slug) }) > 1) return;
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: ['shots', slug] }),
+        // Running orders show shot progress per segment.
+        qc.invalidateQueries({ queryKey: ['board', slug] }),
+      ]);
+    },
+  });
+
+  return (v: StateChange): Promise<BoardShotDto> => {
+    // Written here rather than in onMutate, which TanStack runs a tick later: the cache must hold the new
+    // column in the same render as the drop, or the card is drawn back in its old column for a frame.
+    // Cancelling first (it reverts at once) stops a refetch in flight from overwriting the move.
+    void qc.cancelQueries({ queryKey: allBoardsKey(slug) });
+    void qc.cancelQueries({ queryKey: myShotsKey(slug) });
+    const now = new Date().toISOString();
+    const boards = qc.getQueriesData<BoardData>({ queryKey: allBoardsKey(slug) });
+    const mine = qc.getQueryData<BoardShotDto[]>(myShotsKey(slug));
+    for (const [key, data] of boards) {
+      if (data) qc.setQueryData<BoardData>(key, { ...data, shots: applyChange(data.shots, v, viewerName, now, true) });
+    }
+    if (mine) qc.setQueryData<BoardShotDto[]>(myShotsKey(slug), applyChange(mine, v, viewerName, now, false));
+    return mutateAsync(v).catch((err: unknown) => {
+      for (const [key, data] of boards as [QueryKey, BoardData | undefined][]) qc.setQueryData(key, data);
+      if (mine) qc.setQueryData(myShotsKey(slug), mine);
+      throw err;
+    });
+  };
+}
+
+export function useShotMail(slug: string, initialWaiting: number) {
+  const qc = useQueryClient();
+  const waiting = useQuery({
+    queryKey: shotMailKey(slug),
+    queryFn: () => apiFetch<{ waiting: number }>(`${api(slug)}/shot-mail`).then((r) => r.waiting),
+    initialData: initialWaiting,
+    // Assignments made in another tab or by the worker change the count.
+    refetchInterval: 60_000,
+  });
+  const send = useMutation({
+    mutationFn: () => apiFetch<{ sent: number; failed: number }>(`${api(slug)}/shot-mail`, { method: 'POST' }),
+    onSettled: () => qc.invalidateQueries({ queryKey: shotMailKey(slug) }),
+  });
+  return { waiting, send };
+}

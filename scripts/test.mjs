@@ -95,13 +95,14 @@ async function vitest(env, { unitOnly }) {
   if (counts.failed) failedSteps.push('vitest');
 }
 
-async function e2e(env) {
+async function build(env) {
   heading('build (next build)');
-  const build = await ensureBuild({ env });
-  if (!build.ok) {
-    fail('build (end-to-end tests not run)');
-    return;
-  }
+  const result = await ensureBuild({ env });
+  if (!result.ok) fail('build (upload and end-to-end tests not run against it)');
+  return result.ok;
+}
+
+async function e2e(env) {
   heading('playwright');
   const result = await run(process.execPath, [bin('@playwright/test/cli.js'), 'test'], {
     env: toolEnv({ ...env, E2E_PORT: String(E2E_PORT) }),
@@ -139,9 +140,11 @@ async function main() {
   }
   await typecheck();
   await lint();
+  // The upload tests run the built app, so the build comes before Vitest.
+  const built = services ? await build({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' }) : false;
   if (services) await vitest(testEnv(services.urls.it, services, secret), { unitOnly: false });
   else await vitest({ NEXTAUTH_SECRET: secret, NEXTAUTH_URL: APP_URL, APP_URL, MAIL_FROM }, { unitOnly: true });
-  if (services && !SKIP_E2E) await e2e({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
+  if (built && !SKIP_E2E) await e2e({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
 }
 
 async function finish(code) {

@@ -3,6 +3,7 @@ import * as foundation from './20261201000000_foundation';
 import * as episodes from './20261201100000_episodes';
 import * as cutlist from './20261202000000_cutlist';
 import * as shots from './20261202100000_shots';
+import * as clips from './20261203000000_clips';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -13,6 +14,7 @@ const migrations: Record<string, Migration> = {
   '20261201100000_episodes': episodes,
   '20261202000000_cutlist': cutlist,
   '20261202100000_shots': shots,
+  '20261203000000_clips': clips,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -30,6 +30,7 @@ type ShotRow = {
   retake_reason: string | null;
   state_changed_by_name: string | null;
   state_changed_at: Date | null;
+  clip_count: number;
 };
 type BoardShotRow = ShotRow & {
   episode_id: string;
@@ -59,6 +60,7 @@ const shotColumns = [
   'sh.retake_reason',
   'cu.name as state_changed_by_name',
   'sh.state_changed_at',
+  db.raw('(select count(*) from clips cl where cl.shot_id = sh.id)::int as clip_count'),
 ];
 const boardColumns = [...shotColumns, 'e.id as episode_id', 'e.title as episode_title', 'e.shoot_date', 's.title as segment_title', 's.position as segment_position', 's.tools', 's.safety_reviewed_at'];
 
@@ -79,6 +81,7 @@ const toShotDto = (r: ShotRow): ShotDto => ({
   retakeReason: r.retake_reason,
   stateChangedBy: r.state_changed_by_name,
   stateChangedAt: r.state_changed_at ? r.state_changed_at.toISOString() : null,
+  clipCount: r.clip_count,
 });
 const toBoardShotDto = (r: BoardShotRow): BoardShotDto => ({
   ...toShotDto(r),

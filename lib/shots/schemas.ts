@@ -102,6 +102,8 @@ export type ShotDto = {
   retakeReason: string | null;
   stateChangedBy: string | null;
   stateChangedAt: string | null;
+  /** Clips uploaded to this shot: more than 0 means it has footage. */
+  clipCount: number;
 };
 
 /** A shot with where it lives, for the board, "My shots" and e-mail. */

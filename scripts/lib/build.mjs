@@ -5,7 +5,7 @@ import path from 'node:path';
 import { ROOT, childEnv, log, run } from './proc.mjs';
 
 /** Folders whose every file feeds the build (missing ones are skipped). */
-export const BUILD_INPUT_DIRS = ['app', 'components', 'lib', 'db', 'public', 'styles', 'types'];
+export const BUILD_INPUT_DIRS = ['app', 'components', 'lib', 'db', 'storage', 'public', 'styles', 'types'];
 
 /** Single files that feed the build (missing ones are skipped). */
 export const BUILD_INPUT_FILES = [

@@ -4,7 +4,8 @@ import path from 'node:path';
 import { ROOT, SetupError, childEnv, isRoot, log, output, run, sleep, warn } from './proc.mjs';
 
 /** Debian packages `npm start` needs. Extend here when the app needs more system tools. */
-export const START_DEB_PACKAGES = ['postgresql'];
+// ffmpeg: ffprobe reads a clip's duration, resolution and codec, ffmpeg makes its poster frame.
+export const START_DEB_PACKAGES = ['postgresql', 'ffmpeg'];
 
 /** `npm test` needs everything start needs, plus a browser for Playwright (/usr/bin/chromium). */
 export const TEST_DEB_PACKAGES = [...START_DEB_PACKAGES, 'chromium'];

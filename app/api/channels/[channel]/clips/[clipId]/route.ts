@@ -1,0 +1,18 @@
+import { noContent, route } from '@/lib/api/handler';
+import { deleteClipRow, findClip } from '@/lib/clips/queries';
+import { clipParamsSchema } from '@/lib/clips/schemas';
+import { clipStore } from '@/storage/tus-server';
+
+export const GET = route({ params: clipParamsSchema, channel: 'clips.read' }, async ({ member, params }) => {
+  const { uploadId: _uploadId, ...clip } = await findClip(member.channel.id, params.clipId);
+  return { clip };
+});
+
+// The route lets a Shop hand in; deleteClipRow then holds them to their own uploads.
+export const DELETE = route({ params: clipParamsSchema, channel: 'clips.deleteOwn' }, async ({ member, params }) => {
+  const { uploadId } = await deleteClipRow(member, params.clipId);
+  const store = clipStore();
+  // The row is gone first, so a failed file removal leaves bytes, never a clip without bytes.
+  await Promise.all([store.remove(uploadId), store.removePoster(params.clipId)]).catch((err: unknown) => console.error('clip file removal', err));
+  return noContent();
+});

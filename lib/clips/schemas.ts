@@ -1,0 +1,41 @@
+import { z } from 'zod';
+import { channelSlugSchema } from '@/lib/channels/schemas';
+import { ACCEPTED_TYPE } from './names';
+
+/** Upload-Metadata as tus-js-client sends it: every value a string. */
+export const uploadMetadataSchema = z.object({
+  segmentId: z.uuid({ error: 'Name the segment the clip belongs to (segmentId).' }),
+  shotId: z.uuid({ error: 'shotId is not a shot.' }).optional(),
+  filename: z.string({ error: 'Send the file name (filename).' }).min(1, 'Send the file name (filename).').max(1000, 'The file name is too long.'),
+  filetype: z.string({ error: 'Send the file type (filetype).' }).min(1, 'Send the file type (filetype).').max(127),
+});
+export type UploadMetadata = z.infer<typeof uploadMetadataSchema>;
+// SVG is a document that can carry script, not a still from a camera.
+export const isAcceptedType = (t: string) => ACCEPTED_TYPE.test(t) && !/^image\/svg/i.test(t);
+
+export const segmentClipsParamsSchema = z.object({ channel: channelSlugSchema, segmentId: z.uuid() });
+export const clipParamsSchema = z.object({ channel: channelSlugSchema, clipId: z.uuid() });
+export const clipFileQuerySchema = z.object({ download: z.enum(['1'], { error: 'download is 1 or absent.' }).optional() });
+
+export type ProbeState = 'pending' | 'done' | 'failed' | 'unavailable';
+
+export type ClipDto = {
+  id: string;
+  segmentId: string;
+  shotId: string | null;
+  uploadedBy: string | null;
+  uploaderName: string | null;
+  originalName: string;
+  mimeType: string;
+  sizeBytes: number;
+  sha256: string;
+  probeState: ProbeState;
+  probeNote: string | null;
+  durationSeconds: number | null;
+  width: number | null;
+  height: number | null;
+  frameRate: number | null;
+  codec: string | null;
+  hasPoster: boolean;
+  createdAt: string;
+};

@@ -1,0 +1,78 @@
+import { createReadStream } from 'node:fs';
+import { copyFile, mkdir, readdir, rm, stat } from 'node:fs/promises';
+import path from 'node:path';
+import type { Readable } from 'node:stream';
+import { FileStore } from '@tus/file-store';
+import type { ClipStore } from './clip-store';
+
+// Upload ids are made by the server (hex); anything else never names a file.
+const SAFE_ID = /^[a-f0-9]{32}$/;
+const SAFE_CLIP = /^[0-9a-f-]{36}$/;
+
+export class DiskClipStore implements ClipStore {
+  readonly tus: FileStore;
+
+  constructor(
+    private readonly directory: string,
+    private readonly posterDir: string,
+  ) {
+    this.tus = new FileStore({ directory });
+  }
+
+  private file(uploadId: string): string {
+    if (!SAFE_ID.test(uploadId)) throw new Error(`not an upload id: ${uploadId}`);
+    return path.join(this.directory, uploadId);
+  }
+
+  private poster(clipId: string): string {
+    if (!SAFE_CLIP.test(clipId)) throw new Error(`not a clip id: ${clipId}`);
+    return path.join(this.posterDir, `${clipId}.jpg`);
+  }
+
+  async read(uploadId: string, range?: { start: number; end: number }): Promise<Readable> {
+    const file = this.file(uploadId);
+    await stat(file);
+    return createReadStream(file, range ? { start: range.start, end: range.end } : {});
+  }
+
+  async remove(uploadId: string): Promise<void> {
+    await this.tus.remove(uploadId).catch(async () => {
+      await rm(this.file(uploadId), { force: true });
+      await rm(`${this.file(uploadId)}.json`, { force: true });
+    });
+  }
+
+  async listUnfinished(): Promise<{ uploadId: string; touchedAt: Date }[]> {
+    await mkdir(this.directory, { recursive: true });
+    const names = await readdir(this.directory);
+    const out: { uploadId: string; touchedAt: Date }[] = [];
+    for (const name of names) {
+      if (!SAFE_ID.test(name)) continue;
+      const upload = await this.tus.getUpload(name).catch(() => null);
+      if (!upload || (upload.size !== undefined && upload.offset === upload.size)) continue;
+      const [data, info] = await Promise.all([stat(this.file(name)).catch(() => null), stat(`${this.file(name)}.json`).catch(() => null)]);
+      const touched = Math.max(data?.mtimeMs ?? 0, info?.mtimeMs ?? 0);
+      out.push({ uploadId: name, touchedAt: new Date(touched) });
+    }
+    return out;
+  }
+
+  localPath(uploadId: string): string {
+    return this.file(uploadId);
+  }
+
+  async savePoster(clipId: string, jpegPath: string): Promise<void> {
+    await mkdir(this.posterDir, { recursive: true });
+    await copyFile(jpegPath, this.poster(clipId));
+  }
+
+  async readPoster(clipId: string): Promise<Readable | null> {
+    const file = this.poster(clipId);
+    const found = await stat(file).catch(() => null);
+    return found ? createReadStream(file) : null;
+  }
+
+  async removePoster(clipId: string): Promise<void> {
+    await rm(this.poster(clipId), { force: true });
+  }
+}

@@ -1,0 +1,68 @@
+import 'server-only';
+import { execFile } from 'node:child_process';
+import { rm } from 'node:fs/promises';
+import os from 'node:os';
+import path from 'node:path';
+import { promisify } from 'node:util';
+import { claimClipJob, completeClipJob, retryClipJob, type ClipJob } from '@/lib/clips/queries';
+import { parseProbe, type MediaInfo } from '@/lib/clips/probe';
+import type { ClipStore } from './clip-store';
+
+const run = promisify(execFile);
+type ExecError = Error & { code?: string | number; stderr?: string };
+
+const firstLine = (s: string | undefined) => (s ?? '').split('\n').find((l) => l.trim() !== '')?.trim() ?? '';
+
+async function probe(file: string): Promise<MediaInfo> {
+  const { stdout } = await run('ffprobe', ['-v', 'error', '-print_format', 'json', '-show_format', '-show_streams', file], { timeout: 120_000, maxBuffer: 8 * 1024 * 1024 });
+  return parseProbe(JSON.parse(stdout));
+}
+
+/** One frame, 480 px wide, a second in (or the first frame of a short clip or a still). */
+async function poster(file: string, info: MediaInfo, out: string): Promise<void> {
+  const seek = info.durationSeconds !== null && info.durationSeconds > 2 ? ['-ss', '1'] : [];
+  await run('ffmpeg', ['-v', 'error', '-y', ...seek, '-i', file, '-frames:v', '1', '-vf', 'scale=480:-2', out], { timeout: 120_000 });
+}
+
+export async function processClipJob(store: ClipStore, job: ClipJob): Promise<void> {
+  const file = store.localPath(job.uploadId);
+  if (!file) return completeClipJob(job, { state: 'unavailable', note: 'Media details are read only for clips stored on this server.', poster: false });
+  let info: MediaInfo;
+  try {
+    info = await probe(file);
+  } catch (err) {
+    const e = err as ExecError;
+    if (e.code === 'ENOENT') return completeClipJob(job, { state: 'unavailable', note: 'ffprobe is not installed on the server, so duration and resolution are unknown.', poster: false });
+    if (typeof e.code === 'number' || e instanceof SyntaxError) {
+      return completeClipJob(job, { state: 'failed', note: `ffprobe could not read this file: ${firstLine(e.stderr) || e.message}`, poster: false });
+    }
+    return retryClipJob(job, e.message);
+  }
+  const hasPicture = info.width !== null && !job.mimeType.startsWith('audio/');
+  let made = false;
+  let note: string | null = null;
+  if (hasPicture) {
+    const out = path.join(os.tmpdir(), `kerfline-poster-${job.clipId}.jpg`);
+    try {
+      await poster(file, info, out);
+      await store.savePoster(job.clipId, out);
+      made = true;
+    } catch (err) {
+      note = `No poster frame: ${firstLine((err as ExecError).stderr) || (err as Error).message}`;
+    } finally {
+      await rm(out, { force: true });
+    }
+  }
+  await completeClipJob(job, { state: 'done', note, info, poster: made });
+}
+
+/** Works through queued media jobs; returns how many it finished. */
+export async function runClipJobs(store: ClipStore, max = 10): Promise<number> {
+  let done = 0;
+  for (; done < max; done++) {
+    const job = await claimClipJob();
+    if (!job) break;
+    await processClipJob(store, job).catch((err: unknown) => retryClipJob(job, err instanceof Error ? err.message : String(err)));
+  }
+  return done;
+}

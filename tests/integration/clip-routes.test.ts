@@ -1,0 +1,91 @@
+import fs from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import * as clipRoute from '@/app/api/channels/[channel]/clips/[clipId]/route';
+import * as segmentClipsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/clips/route';
+import * as boardRoute from '@/app/api/channels/[channel]/shots/route';
+import { db } from '@/db/client';
+import { recordClipOnce } from '@/lib/clips/queries';
+import type { ClipDto } from '@/lib/clips/schemas';
+import type { BoardShotDto } from '@/lib/shots/schemas';
+import { removeStaleUploads } from '@/storage/cleanup';
+import { clipStore } from '@/storage/tus-server';
+import { call, makeCrew } from './helpers';
+import { describeRouteMatrix, type Crew, type RouteCase } from './route-matrix';
+import { makeShotEpisode } from './shot-fixtures';
+
+const hex = () => [...crypto.getRandomValues(new Uint8Array(16))].map((b) => b.toString(16).padStart(2, '0')).join('');
+
+/** A clip row as ingest writes it, uploaded by `by` (the shop hand unless named). */
+async function makeClip(c: Crew, by = c.shopHand.id) {
+  const { build, shopShot } = await makeShotEpisode(c);
+  const { clipId } = await recordClipOnce({
+    uploadId: hex(),
+    segmentId: build.id,
+    shotId: shopShot.id,
+    uploadedBy: by,
+    originalName: 'A001.mp4',
+    mimeType: 'video/mp4',
+    sizeBytes: 1234,
+    sha256: 'a'.repeat(64),
+  });
+  return { clipId, build, shopShot };
+}
+
+const ch = (c: Crew) => ({ channel: c.channel.slug });
+const cases: RouteCase[] = [
+  { name: 'GET segment clips', fn: segmentClipsRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), segmentId: (await makeClip(c)).build.id }), okStatus: 200 },
+  { name: 'GET clip', fn: clipRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), clipId: (await makeClip(c)).clipId }), okStatus: 200 },
+  { name: 'DELETE clip (the shop hand’s own)', fn: clipRoute.DELETE, method: 'DELETE', allowed: ['host', 'shop_hand'], params: async (c) => ({ ...ch(c), clipId: (await makeClip(c)).clipId }), okStatus: 204 },
+];
+describeRouteMatrix(cases);
+
+describe('clips', () => {
+  it('lists a segment’s clips with their details, and marks the shot as having footage', async () => {
+    const c = await makeCrew();
+    const { build, clipId } = await makeClip(c);
+    const res = await call(segmentClipsRoute.GET, 'GET', { as: c.editor, params: { ...ch(c), segmentId: build.id } });
+    const clips = (res.json as { clips: ClipDto[] }).clips;
+    expect(clips).toEqual([expect.objectContaining({ id: clipId, originalName: 'A001.mp4', sizeBytes: 1234, probeState: 'pending', uploaderName: c.shopHand.name })]);
+    expect(clips[0]).not.toHaveProperty('uploadId');
+    const board = (await call(boardRoute.GET, 'GET', { as: c.editor, params: ch(c) })).json as { shots: BoardShotDto[] };
+    expect(board.shots.find((s) => s.clipCount > 0)).toBeTruthy();
+  });
+
+  it('writes one row per upload however often the finish is recorded', async () => {
+    const c = await makeCrew();
+    const { build } = await makeShotEpisode(c);
+    const clip = { uploadId: hex(), segmentId: build.id, shotId: null, uploadedBy: c.host.id, originalName: 'x', mimeType: 'video/mp4', sizeBytes: 1, sha256: 'b'.repeat(64) };
+    const [a, b] = await Promise.all([recordClipOnce(clip), recordClipOnce(clip)]);
+    expect(a.clipId).toBe(b.clipId);
+    expect([a.created, b.created].sort()).toEqual([false, true]);
+    expect(await db('clip_jobs').where({ clip_id: a.clipId })).toHaveLength(1);
+  });
+
+  it('lets a shop hand delete only their own uploads; a host deletes any', async () => {
+    const c = await makeCrew();
+    const { clipId } = await makeClip(c, c.host.id);
+    expect((await call(clipRoute.DELETE, 'DELETE', { as: c.shopHand, params: { ...ch(c), clipId } })).status).toBe(403);
+    expect((await call(clipRoute.DELETE, 'DELETE', { as: c.editor, params: { ...ch(c), clipId } })).status).toBe(403);
+    expect(await db('clips').where({ id: clipId })).toHaveLength(1);
+    expect((await call(clipRoute.DELETE, 'DELETE', { as: c.host, params: { ...ch(c), clipId } })).status).toBe(204);
+    expect(await db('clips').where({ id: clipId })).toHaveLength(0);
+  });
+});
+
+describe('stale uploads', () => {
+  it('removes unfinished uploads untouched for longer than the limit, with their files, and keeps the rest', async () => {
+    const store = clipStore();
+    const fresh = await store.tus.create({ id: hex(), size: 100, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
+    const old = await store.tus.create({ id: hex(), size: 100, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
+    const oldPath = store.localPath(old.id)!;
+    const past = new Date(Date.now() - 8 * 24 * 3600 * 1000);
+    fs.utimesSync(oldPath, past, past);
+    fs.utimesSync(`${oldPath}.json`, past, past);
+    const removed = await removeStaleUploads(store, 7 * 24 * 3600 * 1000);
+    expect(removed).toContain(old.id);
+    expect(removed).not.toContain(fresh.id);
+    expect(fs.existsSync(oldPath)).toBe(false);
+    expect(fs.existsSync(store.localPath(fresh.id)!)).toBe(true);
+    await store.remove(fresh.id);
+  });
+});

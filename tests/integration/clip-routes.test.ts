@@ -89,3 +89,23 @@ describe('stale uploads', () => {
     await store.remove(fresh.id);
   });
 });
+
+describe('media jobs', () => {
+  it('marks a clip ffprobe cannot read as failed with a note, instead of failing the upload', async () => {
+    const { Readable } = await import('node:stream');
+    const { processClipJob } = await import('@/storage/media-job');
+    const c = await makeCrew();
+    const { build } = await makeShotEpisode(c);
+    const store = clipStore();
+    const uploadId = hex();
+    await store.tus.create({ id: uploadId, size: 64, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
+    await store.tus.write(Readable.from([Buffer.alloc(64, 7)]), uploadId, 0);
+    const { clipId } = await recordClipOnce({ uploadId, segmentId: build.id, shotId: null, uploadedBy: c.host.id, originalName: 'noise.mp4', mimeType: 'video/mp4', sizeBytes: 64, sha256: 'c'.repeat(64) });
+    const job = await db('clip_jobs').where({ clip_id: clipId }).first('id', 'attempts');
+    await processClipJob(store, { id: String(job.id), clipId, uploadId, mimeType: 'video/mp4', attempts: 1 });
+    const clip = await db('clips').where({ id: clipId }).first('probe_state', 'probe_note', 'has_poster');
+    expect(clip).toMatchObject({ probe_state: 'failed', has_poster: false });
+    expect(clip.probe_note).toMatch(/ffprobe could not read this file/);
+    expect(await db('clip_jobs').where({ clip_id: clipId })).toHaveLength(0);
+  });
+});

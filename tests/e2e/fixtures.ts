@@ -1,5 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test as base, type Page } from '@playwright/test';
+import type { SegmentDto } from '@/lib/segments/schemas';
 import accounts from '../../db/seeds/demo-accounts.json';
 
 export const demo = {
@@ -37,6 +38,18 @@ export async function waitForMail(address: string): Promise<CaughtMail> {
     }, { timeout: 15_000 })
     .toBe(true);
   return found!;
+}
+
+/** A fresh episode made through the API as the signed-in host, so this test owns its shots. */
+export async function newEpisode(page: Page, title: string) {
+  const api = `/api/channels/${DEMO_SLUG}`;
+  const ep = await page.request.post(`${api}/episodes`, { data: { title, stage: 'shoot', shootDate: '2027-02-06' } });
+  expect(ep.status()).toBe(201);
+  const { episode } = (await ep.json()) as { episode: { id: string } };
+  const st = await page.request.post(`${api}/episodes/${episode.id}/starter`);
+  const { segments } = (await st.json()) as { segments: SegmentDto[] };
+  const build = segments.find((s) => s.kind === 'build' && s.level === 1)!;
+  return { episodeId: episode.id, build, segmentUrl: `/c/${DEMO_SLUG}/episodes/${episode.id}/segments/${build.id}` };
 }
 
 export const test = base;

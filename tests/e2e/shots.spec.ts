@@ -1,6 +1,4 @@
-import type { Page } from '@playwright/test';
-import type { SegmentDto } from '@/lib/segments/schemas';
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+import { DEMO_SLUG, demo, expect, expectAccessible, newEpisode, signIn, test } from './fixtures';
 
 type CaughtMail = { subject: string; text: string; to: { address: string }[] };
 
@@ -18,18 +16,6 @@ async function mailContaining(address: string, needle: string): Promise<CaughtMa
     )
     .toBeGreaterThan(0);
   return found[0]!;
-}
-
-/** A fresh episode made through the API as the signed-in host, so this test owns its shots. */
-async function newEpisode(page: Page, title: string) {
-  const api = `/api/channels/${DEMO_SLUG}`;
-  const ep = await page.request.post(`${api}/episodes`, { data: { title, stage: 'shoot', shootDate: '2027-02-06' } });
-  expect(ep.status()).toBe(201);
-  const { episode } = (await ep.json()) as { episode: { id: string } };
-  const st = await page.request.post(`${api}/episodes/${episode.id}/starter`);
-  const { segments } = (await st.json()) as { segments: SegmentDto[] };
-  const build = segments.find((s) => s.kind === 'build' && s.level === 1)!;
-  return { episodeId: episode.id, build, segmentUrl: `/c/${DEMO_SLUG}/episodes/${episode.id}/segments/${build.id}` };
 }
 
 test('host pastes and assigns shots, the shop hand gets one e-mail and works them on a phone, the host sees progress', async ({ browser }) => {

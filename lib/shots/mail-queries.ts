@@ -59,9 +59,16 @@ async function sendBurst(trx: Knex.Transaction, burst: { user_id: string; channe
   const member = await trx('memberships').where({ user_id: burst.user_id, channel_id: burst.channel_id }).first('role');
   await trx('shot_mail_bursts').where(burst).delete();
   if (!user || !channel) return false;
-  const held: MailShotRow[] = member
-    ? await shotsOfChannel(trx, burst.channel_id).where('sh.assignee_id', burst.user_id).whereNull('sh.deleted_at').orderBy(['e.title', 's.position', 'sh.position']).select(mailShotColumns)
-    : [];
+  // Someone who left the crew hears nothing more from the channel; what they were told is forgotten.
+  if (!member) {
+    await trx('shot_notices').where({ user_id: burst.user_id }).whereIn('shot_id', shotsOfChannel(trx, burst.channel_id).select('sh.id')).delete();
+    return false;
+  }
+  const held: MailShotRow[] = await shotsOfChannel(trx, burst.channel_id)
+    .where('sh.assignee_id', burst.user_id)
+    .whereNull('sh.deleted_at')
+    .orderBy(['e.title', 's.position', 'sh.position'])
+    .select(mailShotColumns);
   const told: MailShotRow[] = await shotsOfChannel(trx, burst.channel_id)
     .join('shot_notices as n', 'n.shot_id', 'sh.id')
     .where('n.user_id', burst.user_id)

@@ -76,4 +76,14 @@ describe('assignment e-mail', () => {
     expect((await call(shotMailRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug } })).json).toEqual({ sent: 0, failed: 0 });
     expect(await mailsTo(c.shopHand.email)).toHaveLength(0);
   });
+
+  it('sends nothing to someone who has left the crew', async () => {
+    const c = await makeCrew();
+    const { segments } = await makeOutlinedEpisode(c);
+    const build = segments.find((s) => s.kind === 'build')!;
+    await call(bulkRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug, segmentId: build.id }, body: { text: 'Wide: the shop', assigneeId: c.shopHand.id } });
+    await db('memberships').where({ channel_id: c.channel.id, user_id: c.shopHand.id }).delete();
+    expect((await call(shotMailRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug } })).json).toEqual({ sent: 0, failed: 0 });
+    expect(await mailsTo(c.shopHand.email)).toHaveLength(0);
+  });
 });

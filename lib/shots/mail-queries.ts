@@ -116,10 +116,11 @@ async function sendBurst(trx: Knex.Transaction, burst: { user_id: string; channe
 }
 
 /**
- * Sends every burst that is due (or, with `channelId`, every open burst of that channel: "Send to crew").
+ * Sends every burst that is due, of one channel or all; with `now: true` every open burst of the channel
+ * goes whether due or not ("Send to crew").
  * Each burst is its own transaction, so a mail server failure leaves that burst open for the next try.
  */
-export async function sendShotMail(opts: { channelId?: string } = {}): Promise<{ sent: number; failed: number }> {
+export async function sendShotMail(opts: { channelId?: string; now?: boolean } = {}): Promise<{ sent: number; failed: number }> {
   let sent = 0;
   let failed = 0;
   const skip = new Set<string>();
@@ -130,7 +131,7 @@ export async function sendShotMail(opts: { channelId?: string } = {}): Promise<{
         const burst: { user_id: string; channel_id: string } | undefined = await trx('shot_mail_bursts')
           .modify((q) => {
             if (opts.channelId) q.where('channel_id', opts.channelId);
-            else q.where('due_at', '<=', trx.fn.now());
+            if (!(opts.channelId && opts.now)) q.where('due_at', '<=', trx.fn.now());
             if (skip.size) q.whereRaw(`not (user_id::text || ':' || channel_id::text = any(?))`, [[...skip]]);
           })
           .orderBy('due_at')

@@ -33,7 +33,7 @@ describe('assignment e-mail', () => {
     expect((await patch(layout!.id, { assigneeId: null })).status).toBe(200);
 
     // Nothing is due yet: the burst waits for more changes.
-    await sendShotMail();
+    await sendShotMail({ channelId: c.channel.id });
     expect(await mailsTo(c.shopHand.email)).toHaveLength(0);
 
     const flush = await call(shotMailRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug } });
@@ -58,7 +58,7 @@ describe('assignment e-mail', () => {
     // The next burst says what changed since: the glue shot went to the host.
     expect((await patch(glue!.id, { assigneeId: c.host.id })).status).toBe(200);
     await db('shot_mail_bursts').where({ channel_id: c.channel.id }).update({ due_at: db.raw(`now() - interval '1 second'`) });
-    await sendShotMail();
+    await sendShotMail({ channelId: c.channel.id });
     const second = await mailsTo(c.shopHand.email);
     expect(second).toHaveLength(2);
     const latest = second.find((m) => m.subject.includes('taken off'))!;

@@ -7,4 +7,4 @@ export const GET = route({ params: channelParamsSchema, channel: 'shots.edit' },
 }));
 
 /** "Send to crew": every open burst of the channel goes now instead of when it is due. */
-export const POST = route({ params: channelParamsSchema, channel: 'shots.edit' }, async ({ member }) => sendShotMail({ channelId: member.channel.id }));
+export const POST = route({ params: channelParamsSchema, channel: 'shots.edit' }, async ({ member }) => sendShotMail({ channelId: member.channel.id, now: true }));

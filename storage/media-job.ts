@@ -12,6 +12,8 @@ const run = promisify(execFile);
 type ExecError = Error & { code?: string | number; stderr?: string };
 
 const firstLine = (s: string | undefined) => (s ?? '').split('\n').find((l) => l.trim() !== '')?.trim() ?? '';
+// ffprobe names the file it read; people see the note, so the server's path becomes "the file".
+const withoutPath = (line: string, file: string) => line.split(file).join('the file');
 
 async function probe(file: string): Promise<MediaInfo> {
   const { stdout } = await run('ffprobe', ['-v', 'error', '-print_format', 'json', '-show_format', '-show_streams', file], { timeout: 120_000, maxBuffer: 8 * 1024 * 1024 });
@@ -34,7 +36,7 @@ export async function processClipJob(store: ClipStore, job: ClipJob): Promise<vo
     const e = err as ExecError;
     if (e.code === 'ENOENT') return completeClipJob(job, { state: 'unavailable', note: 'ffprobe is not installed on the server, so duration and resolution are unknown.', poster: false });
     if (typeof e.code === 'number' || e instanceof SyntaxError) {
-      return completeClipJob(job, { state: 'failed', note: `ffprobe could not read this file: ${firstLine(e.stderr) || e.message}`, poster: false });
+      return completeClipJob(job, { state: 'failed', note: `ffprobe could not read this file: ${withoutPath(firstLine(e.stderr) || e.message, file)}`, poster: false });
     }
     return retryClipJob(job, e.message);
   }
@@ -48,7 +50,7 @@ export async function processClipJob(store: ClipStore, job: ClipJob): Promise<vo
       await store.savePoster(job.clipId, out);
       made = true;
     } catch (err) {
-      note = `No poster frame: ${firstLine((err as ExecError).stderr) || (err as Error).message}`;
+      note = `No poster frame: ${withoutPath(firstLine((err as ExecError).stderr) || (err as Error).message, file)}`;
     } finally {
       await rm(out, { force: true });
     }

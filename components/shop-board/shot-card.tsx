@@ -3,8 +3,12 @@
 import { useSortable } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import Link from 'next/link';
-import { useId, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
+import { ClipList } from '@/components/clips/clip-list';
+import { UploadPanel } from '@/components/clips/upload-panel';
+import { useViewer } from '@/components/providers/viewer-provider';
 import { CautionsList } from '@/components/shots/cautions-list';
+import { can } from '@/lib/auth/policy';
 import { cameraLabels, framingLabels, shotStateLabels, type ShotState } from '@/lib/shots/catalog';
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { shotHref } from './board-query';
@@ -59,6 +63,7 @@ export function ShotCardBody({ slug, shot, handle, footer, showState = false, ov
           <span>{framingLabels[shot.framing]}</span>
           <span aria-hidden="true">·</span>
           <span>{cameraLabels[shot.camera]}</span>
+          {shot.clipCount > 0 ? <FootageBadge /> : null}
         </p>
         <h3 id={headingId} className="break-words font-bold leading-snug">
           {shot.description}
@@ -107,9 +112,49 @@ export function ShotCardBody({ slug, shot, handle, footer, showState = false, ov
             </div>
           </details>
         ) : null}
+        {overlay || placeholder ? null : <ShotClips slug={slug} shot={shot} />}
         {footer}
       </div>
     </article>
+  );
+}
+
+function FootageBadge() {
+  return (
+    <span className="inline-flex items-center gap-1 rounded-full bg-ok-soft px-2 py-0.5 text-xs font-bold text-ok">
+      <svg aria-hidden="true" width="12" height="12" viewBox="0 0 12 12" fill="none" stroke="currentColor" strokeWidth="1.3" strokeLinejoin="round">
+        <path d="M1 3h7v6H1zM8 5l3-1.5v5L8 7" />
+      </svg>
+      Has footage
+    </span>
+  );
+}
+
+/** The shot's clips, mounted only while open: a board of fifty cards does not run fifty uploaders. */
+function ShotClips({ slug, shot }: { slug: string; shot: BoardShotDto }) {
+  const [open, setOpen] = useState(false);
+  return (
+    <details className="group text-sm" onToggle={(e) => setOpen(e.currentTarget.open)}>
+      <summary className="inline-flex min-h-touch cursor-pointer items-center gap-1 rounded-md font-bold text-ink-soft hover:text-ink">
+        <svg aria-hidden="true" width="10" height="10" viewBox="0 0 10 10" className="transition-transform group-open:rotate-90">
+          <path d="M3 1.5L7 5 3 8.5" fill="none" stroke="currentColor" strokeWidth="1.6" />
+        </svg>
+        Clips
+      </summary>
+      {open ? <ShotClipsBody slug={slug} shot={shot} /> : null}
+    </details>
+  );
+}
+
+function ShotClipsBody({ slug, shot }: { slug: string; shot: BoardShotDto }) {
+  const viewer = useViewer();
+  // Uploads wait for the role rather than offering a picker the server would refuse (an Editor's).
+  const mayUpload = viewer ? can(viewer.role, 'clips.upload') : false;
+  return (
+    <div className="space-y-3 pb-1 pt-1">
+      {mayUpload ? <UploadPanel slug={slug} segmentId={shot.segmentId} shotId={shot.id} compact /> : null}
+      <ClipList slug={slug} segmentId={shot.segmentId} shotId={shot.id} nested />
+    </div>
   );
 }
 

@@ -106,6 +106,7 @@ describe('media jobs', () => {
     const clip = await db('clips').where({ id: clipId }).first('probe_state', 'probe_note', 'has_poster');
     expect(clip).toMatchObject({ probe_state: 'failed', has_poster: false });
     expect(clip.probe_note).toMatch(/ffprobe could not read this file/);
+    expect(clip.probe_note).not.toContain(store.localPath(uploadId)!);
     expect(await db('clip_jobs').where({ clip_id: clipId })).toHaveLength(0);
   });
 });

@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { ClipList } from '@/components/clips/clip-list';
+import { UploadPanel } from '@/components/clips/upload-panel';
 import { ScriptView } from '@/components/script/script-view';
 import { ActionTimeForm } from '@/components/segments/action-time-form';
 import { PartsEditor } from '@/components/parts/parts-editor';
@@ -9,6 +11,7 @@ import { SafetyPanel } from '@/components/shots/safety-panel';
 import { ShotList } from '@/components/shots/shot-list';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
+import { listSegmentClips } from '@/lib/clips/queries';
 import { planSegment } from '@/lib/cut-plans/queries';
 import { findEpisode } from '@/lib/episodes/queries';
 import { listCrew } from '@/lib/crew/queries';
@@ -29,7 +32,7 @@ type Params = { channel: string; episodeId: string; segmentId: string };
 export default async function SegmentPage({ params }: { params: Promise<Params> }) {
   const { channel, episodeId, segmentId } = await params;
   const member = await requireMember(channel);
-  const [episode, segment, script, shots, safety, crew] = await orNotFound(
+  const [episode, segment, script, shots, safety, crew, clips] = await orNotFound(
     Promise.all([
       findEpisode(member.channel.id, uuidOr404(episodeId)),
       findSegment(member.channel.id, uuidOr404(segmentId)),
@@ -37,6 +40,7 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
       listSegmentShots(member.channel.id, segmentId),
       getSegmentSafety(member.channel.id, segmentId),
       listCrew(member.channel.id),
+      listSegmentClips(member.channel.id, segmentId),
     ]),
   );
   if (segment.episodeId !== episode.id) notFound();
@@ -114,6 +118,21 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
           crew={assignable}
           viewer={{ role: member.role, userId: member.userId }}
         />
+      </section>
+      <section aria-labelledby="clips-heading" className="mt-8">
+        <h2 id="clips-heading" className="mb-3 text-lg font-bold">
+          Clips
+        </h2>
+        <div className="space-y-4">
+          {can(member.role, 'clips.upload') ? <UploadPanel slug={member.channel.slug} segmentId={segment.id} /> : null}
+          <ClipList
+            slug={member.channel.slug}
+            segmentId={segment.id}
+            initialClips={clips}
+            initialShots={shots}
+            viewer={{ role: member.role, userId: member.userId }}
+          />
+        </div>
       </section>
       {cut ? (
         <section aria-labelledby="parts-heading" className="mt-8">

@@ -1,0 +1,51 @@
+'use client';
+
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { apiFetch } from '@/lib/api/client';
+import { can } from '@/lib/auth/policy';
+import type { ClipDto } from '@/lib/clips/schemas';
+import type { Viewer } from '@/components/providers/viewer-provider';
+
+
+const api = (slug: string) => `/api/channels/${slug}`;
+export const segmentClipsKey = (slug: string, segmentId: string) => ['clips', slug, 'segment', segmentId] as const;
+
+export const clipFileUrl = (slug: string, clipId: string) => `${api(slug)}/clips/${clipId}/file`;
+export const clipPosterUrl = (slug: string, clipId: string) => `${api(slug)}/clips/${clipId}/poster`;
+
+export function useSegmentClips(slug: string, segmentId: string, initialClips?: ClipDto[]) {
+  return useQuery({
+    queryKey: segmentClipsKey(slug, segmentId),
+    queryFn: () => apiFetch<{ clips: ClipDto[] }>(`${api(slug)}/segments/${segmentId}/clips`).then((r) => r.clips),
+    initialData: initialClips,
+    // The media worker reads duration and poster a few seconds after an upload finishes.
+    refetchInterval: (query) => (query.state.data?.some((c) => c.probeState === 'pending') ? 2000 : false),
+  });
+}
+
+/** The Host deletes any clip; a Shop hand only their own uploads. The server decides; this only hides the button. */
+export const mayDeleteClip = (viewer: Viewer, clip: ClipDto) =>
+  can(viewer.role, 'clips.delete') || (can(viewer.role, 'clips.deleteOwn') && clip.uploadedBy === viewer.userId);
+
+export function useDeleteClip(slug: string, segmentId: string) {
+  const qc = useQueryClient();
+  const key = segmentClipsKey(slug, segmentId);
+  return useMutation({
+    mutationFn: (clip: ClipDto) => apiFetch<void>(`${api(slug)}/clips/${clip.id}`, { method: 'DELETE' }),
+    onMutate: async (clip) => {
+      await qc.cancelQueries({ queryKey: key, exact: true });
+      const previous = qc.getQueryData<ClipDto[]>(key);
+      if (previous) qc.setQueryData<ClipDto[]>(key, previous.filter((c) => c.id !== clip.id));
+      return { previous };
+    },
+    onError: (_err, _clip, context) => {
+      if (context?.previous) qc.setQueryData(key, context.previous);
+    },
+    onSettled: () =>
+      Promise.all([
+        qc.invalidateQueries({ queryKey: key }),
+        // Shot cards say "Has footage" from their clip count.
+        qc.invalidateQueries({ queryKey: ['shots', slug] }),
+      ]),
+  });
+}

@@ -10,6 +10,7 @@ import { kindLabels, type SegmentDto } from '@/lib/segments/schemas';
 import type { ShotProgress } from '@/lib/shots/schemas';
 import { kindSwatches } from './runtime-bar';
 import { levelText, SegmentEditForm } from './segment-edit-form';
+import { GripIcon } from '@/components/ui/grip-icon';
 
 export const segmentHref = (channelSlug: string, episodeId: string, segmentId: string) =>
   `/c/${channelSlug}/episodes/${episodeId}/segments/${segmentId}`;
@@ -208,18 +209,5 @@ function ScriptBadge({ hasScript }: { hasScript: boolean }) {
     </span>
   ) : (
     <span className="inline-flex items-center rounded-full border border-dashed border-ink/30 px-2 py-0.5 text-xs text-ink-soft">No script yet</span>
-  );
-}
-
-function GripIcon() {
-  return (
-    <svg aria-hidden="true" width="16" height="20" viewBox="0 0 16 20" fill="currentColor">
-      {[4, 10, 16].map((y) => (
-        <g key={y}>
-          <circle cx="5" cy={y} r="1.6" />
-          <circle cx="11" cy={y} r="1.6" />
-        </g>
-      ))}
-    </svg>
   );
 }

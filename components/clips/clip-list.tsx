@@ -3,12 +3,12 @@
 import { useMemo, useRef, useState } from 'react';
 import { useSegmentShots } from '@/components/shots/use-shots';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { ClipItem } from './clip-item';
 import { useViewer, type Viewer } from '@/components/providers/viewer-provider';
 import { mayDeleteClip, useDeleteClip, useSegmentClips } from './use-clips';
+import { RetryAlert } from '@/components/ui/retry-alert';
 
 type Props = {
   slug: string;
@@ -56,14 +56,9 @@ function ClipListBody({ slug, segmentId, shotId, initialClips, viewer, nested = 
   if (!clips.data) {
     if (clips.isError) {
       return (
-        <Alert tone="attention" title="Could not load the clips.">
-          <div className="flex flex-wrap items-center justify-between gap-2">
-            <span>{clips.error.message}</span>
-            <Button variant="secondary" className="-my-1" onClick={() => void clips.refetch()}>
-              Try again
-            </Button>
-          </div>
-        </Alert>
+        <RetryAlert title="Could not load the clips." onRetry={() => void clips.refetch()}>
+          {clips.error.message}
+        </RetryAlert>
       );
     }
     return (

@@ -1,8 +1,8 @@
-import Link from 'next/link';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
 import { longDate } from './dates';
 import { PrintButton } from './print-button';
 import { ShootDateForm } from './shoot-date-form';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 type Props = {
   channelSlug: string;
@@ -17,17 +17,7 @@ export function ShootSheetHeader({ channelSlug, channelName, episode, date, date
   const episodeHref = `/c/${channelSlug}/episodes/${episode.id}`;
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-2 text-sm print:hidden">
-        <Link href={`/c/${channelSlug}/episodes`} className="text-blueprint underline">
-          Episodes
-        </Link>
-        <span aria-hidden="true" className="px-2 text-ink-faint">
-          /
-        </span>
-        <Link href={episodeHref} className="text-blueprint underline">
-          {episode.title}
-        </Link>
-      </nav>
+      <Breadcrumb items={[{ href: `/c/${channelSlug}/episodes`, label: 'Episodes' }, { href: episodeHref, label: episode.title }]} />
       <header className="mb-6 flex flex-wrap items-end justify-between gap-4 border-b border-paper-edge pb-4 print:mb-4 print:border-black print:pb-2">
         <div className="min-w-0">
           <p className="text-xs font-bold uppercase tracking-wide text-ink-faint">{channelName}</p>

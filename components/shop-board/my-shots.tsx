@@ -1,8 +1,6 @@
 'use client';
 
 import Link from 'next/link';
-import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { cameraLabels, framingLabels, shotStates } from '@/lib/shots/catalog';
 import type { BoardShotDto } from '@/lib/shots/schemas';
@@ -11,6 +9,7 @@ import { formatLongDay } from './dates';
 import { StateButtons, useShotActions, type ShotActions } from './shot-actions';
 import { SafetyPendingBadge, StatePill } from './shot-card';
 import { useMyShots } from './use-shop-board';
+import { RetryAlert } from '@/components/ui/retry-alert';
 
 type DayGroup = { day: string | null; episodes: { id: string; title: string; shots: BoardShotDto[] }[] };
 
@@ -51,14 +50,9 @@ export function MyShots({ slug, viewerName, canChange, initialShots }: Props) {
         {`${shots.length} ${shots.length === 1 ? 'shot' : 'shots'} assigned to you: ${counts}.`}
       </p>
       {query.isError ? (
-        <Alert tone="attention" title="Could not refresh your shots.">
-          <div className="flex flex-wrap items-center justify-between gap-2">
-            <span>{query.error.message} The list below may be out of date.</span>
-            <Button variant="secondary" className="-my-1" onClick={() => void query.refetch()}>
-              Try again
-            </Button>
-          </div>
-        </Alert>
+        <RetryAlert title="Could not refresh your shots." onRetry={() => void query.refetch()}>
+          {query.error.message} The list below may be out of date.
+        </RetryAlert>
       ) : null}
       {groupByDay(shots).map((group) => (
         <section key={group.day ?? 'none'} aria-labelledby={`day-${group.day ?? 'none'}`} className="space-y-4">

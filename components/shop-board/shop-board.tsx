@@ -16,6 +16,7 @@ import { PhoneShotList } from './phone-shot-list';
 import { SendToCrew } from './send-to-crew';
 import { useShotActions } from './shot-actions';
 import { useBoardShots, useEpisodeSegments, type BoardData } from './use-shop-board';
+import { RetryAlert } from '@/components/ui/retry-alert';
 
 type Props = {
   slug: string;
@@ -95,14 +96,9 @@ export function ShopBoard({ slug, viewerName, canMove, shotMail, initial, episod
       </p>
 
       {board.isError ? (
-        <Alert tone="attention" title="Could not load the shots.">
-          <div className="flex flex-wrap items-center justify-between gap-2">
-            <span>{board.error.message} The board below may be out of date.</span>
-            <Button variant="secondary" className="-my-1" onClick={() => void board.refetch()}>
-              Try again
-            </Button>
-          </div>
-        </Alert>
+        <RetryAlert title="Could not load the shots." onRetry={() => void board.refetch()}>
+          {board.error.message} The board below may be out of date.
+        </RetryAlert>
       ) : null}
 
       {!board.data && board.isPending ? (

@@ -13,6 +13,7 @@ import { cameraLabels, framingLabels, shotStateLabels, type ShotState } from '@/
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { shotHref } from './board-query';
 import { formatDay, LocalTime } from './dates';
+import { GripIcon } from '@/components/ui/grip-icon';
 
 const statePills: Record<ShotState, string> = {
   planned: 'border border-ink/25 text-ink-soft',
@@ -213,18 +214,5 @@ export function ShotCardPreview({ slug, shot }: { slug: string; shot: BoardShotD
         </span>
       }
     />
-  );
-}
-
-function GripIcon() {
-  return (
-    <svg aria-hidden="true" width="16" height="20" viewBox="0 0 16 20" fill="currentColor">
-      {[4, 10, 16].map((y) => (
-        <g key={y}>
-          <circle cx="5" cy={y} r="1.6" />
-          <circle cx="11" cy={y} r="1.6" />
-        </g>
-      ))}
-    </svg>
   );
 }

@@ -11,6 +11,7 @@ import type { FieldErrors } from '@/lib/errors';
 import { cameraLabels, cameras, framingLabels, framings, MAX_DESCRIPTION, type Camera, type Framing } from '@/lib/shots/catalog';
 import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 import { useUpdateShot } from './use-shots';
+import { GripIcon } from '@/components/ui/grip-icon';
 
 export type CrewOption = { userId: string; name: string };
 
@@ -69,7 +70,7 @@ export function ShotRow(props: Props) {
       aria-label={`Move shot ${shot.number}`}
       className="flex min-h-touch min-w-touch cursor-grab touch-none items-center justify-center rounded-md text-ink-faint hover:bg-paper-deep hover:text-ink active:cursor-grabbing"
     >
-      <GripIcon />
+      <GripIcon small />
     </button>
   ) : null;
 
@@ -331,18 +332,5 @@ export function TextArea({
         </p>
       ) : null}
     </div>
-  );
-}
-
-function GripIcon() {
-  return (
-    <svg aria-hidden="true" width="14" height="18" viewBox="0 0 14 18">
-      {[3, 9, 15].map((y) => (
-        <g key={y}>
-          <circle cx="4" cy={y} r="1.6" fill="currentColor" />
-          <circle cx="10" cy={y} r="1.6" fill="currentColor" />
-        </g>
-      ))}
-    </svg>
   );
 }

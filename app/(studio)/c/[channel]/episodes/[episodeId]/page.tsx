@@ -8,6 +8,7 @@ import { stageLabels } from '@/lib/episodes/schemas';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { formatDuration } from '@/lib/runtime';
 import { getBoard } from '@/lib/segments/queries';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 export const metadata: Metadata = { title: 'Running order' };
 
@@ -19,11 +20,7 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
   const base = `/c/${member.channel.slug}/episodes`;
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-2 text-sm">
-        <Link href={base} className="text-blueprint underline">
-          Episodes
-        </Link>
-      </nav>
+      <Breadcrumb items={[{ href: base, label: 'Episodes' }]} />
       <header className="mb-6 flex flex-wrap items-start justify-between gap-3 border-b border-paper-edge pb-4">
         <div>
           <h1 className="text-2xl font-bold tracking-tight">{episode.title}</h1>

@@ -1,11 +1,11 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { EpisodeCutPlan } from '@/components/cut-plans/episode-cut-plan';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { planEpisode } from '@/lib/cut-plans/queries';
 import { findEpisode } from '@/lib/episodes/queries';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 export const metadata: Metadata = { title: 'Cut plan' };
 
@@ -16,17 +16,7 @@ export default async function EpisodeCutPlanPage({ params }: { params: Promise<{
   const [episode, plan] = await orNotFound(Promise.all([findEpisode(member.channel.id, id), planEpisode(member.channel.id, id)]));
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-2 text-sm print:hidden">
-        <Link href={`/c/${member.channel.slug}/episodes/${episode.id}`} className="text-blueprint underline">
-          {episode.title}
-        </Link>
-        <span aria-hidden="true" className="px-2 text-ink-faint">
-          /
-        </span>
-        <Link href={`/c/${member.channel.slug}/stock`} className="text-blueprint underline">
-          Stock rack
-        </Link>
-      </nav>
+      <Breadcrumb items={[{ href: `/c/${member.channel.slug}/episodes/${episode.id}`, label: episode.title }, { href: `/c/${member.channel.slug}/stock`, label: 'Stock rack' }]} />
       <header className="mb-6 border-b border-paper-edge pb-4">
         <h1 className="text-2xl font-bold tracking-tight">Cut plan: {episode.title}</h1>
         <p className="text-sm text-ink-soft">What to buy for every build in this episode, and where each cut goes.</p>

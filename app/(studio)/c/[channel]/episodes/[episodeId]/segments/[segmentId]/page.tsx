@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ClipList } from '@/components/clips/clip-list';
 import { UploadPanel } from '@/components/clips/upload-panel';
@@ -24,6 +23,7 @@ import { getScript } from '@/lib/segments/script-queries';
 import { listSegmentShots } from '@/lib/shots/queries';
 import { getSegmentSafety } from '@/lib/shots/safety-queries';
 import { listStock } from '@/lib/stock/queries';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 export const metadata: Metadata = { title: 'Segment' };
 
@@ -55,17 +55,7 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
   const base = `/c/${member.channel.slug}/episodes/${episode.id}`;
   return (
     <>
-      <nav aria-label="Breadcrumb" className="mb-2 text-sm">
-        <Link href={`/c/${member.channel.slug}/episodes`} className="text-blueprint underline">
-          Episodes
-        </Link>
-        <span aria-hidden="true" className="px-2 text-ink-faint">
-          /
-        </span>
-        <Link href={base} className="text-blueprint underline">
-          {episode.title}
-        </Link>
-      </nav>
+      <Breadcrumb items={[{ href: `/c/${member.channel.slug}/episodes`, label: 'Episodes' }, { href: base, label: episode.title }]} />
       <header className="mb-6 border-b border-paper-edge pb-4">
         <p className="text-sm font-bold uppercase tracking-wide text-ink-faint">
           {kindLabels[segment.kind]}

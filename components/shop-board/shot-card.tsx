@@ -14,6 +14,7 @@ import type { BoardShotDto } from '@/lib/shots/schemas';
 import { shotHref } from './board-query';
 import { formatDay, LocalTime } from './dates';
 import { GripIcon } from '@/components/ui/grip-icon';
+import { DueBadge } from '@/components/shots/due-badge';
 
 const statePills: Record<ShotState, string> = {
   planned: 'border border-ink/25 text-ink-soft',
@@ -85,7 +86,9 @@ export function ShotCardBody({ slug, shot, handle, footer, showState = false, ov
           </div>
           <div className="flex gap-1">
             <dt className="text-ink-faint">Due</dt>
-            <dd className="font-mono">{shot.dueDate ? formatDay(shot.dueDate) : '—'}</dd>
+            <dd className="font-mono">
+              {shot.dueDate ? formatDay(shot.dueDate) : '—'} <DueBadge dueDate={shot.dueDate} state={shot.state} />
+            </dd>
           </div>
         </dl>
         {shot.state === 'retake' && shot.retakeReason ? (

@@ -12,6 +12,7 @@ import { cameraLabels, cameras, framingLabels, framings, MAX_DESCRIPTION, type C
 import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 import { useUpdateShot } from './use-shots';
 import { GripIcon } from '@/components/ui/grip-icon';
+import { DueBadge } from './due-badge';
 
 export type CrewOption = { userId: string; name: string };
 
@@ -108,7 +109,8 @@ export function ShotRow(props: Props) {
       </td>
       <td className={`${cell} sm:whitespace-nowrap`}>
         <span className={smallLabel}>Due </span>
-        {shot.dueDate ? <time dateTime={shot.dueDate}>{formatDue(shot.dueDate)}</time> : <span className="text-ink-faint">No date</span>}
+        {shot.dueDate ? <time dateTime={shot.dueDate}>{formatDue(shot.dueDate)}</time> : <span className="text-ink-faint">No date</span>}{' '}
+        <DueBadge dueDate={shot.dueDate} state={shot.state} />
       </td>
       <td className={`${cell} basis-full ${shot.notes ? '' : 'max-sm:hidden'}`}>
         <span className={smallLabel}>Notes </span>

@@ -1,6 +1,6 @@
 'use client';
 
-import { useRef, useState, type DragEvent } from 'react';
+import { useEffect, useRef, useState, type DragEvent } from 'react';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { formatBytes } from '@/lib/clips/names';
 import { useTusUploads, type UploadRow } from './use-tus-uploads';
@@ -58,6 +58,16 @@ export function UploadPanel({ slug, segmentId, shotId = null, compact = false }:
     const { skipped } = uploads.add(files);
     setNotice(skipped.length > 0 ? `Already in the list: ${skipped.join(', ')}.` : '');
   }
+
+  // Files picked before React hydrated fired no onChange; they are still on the input, so take them now.
+  useEffect(() => {
+    const input = inputRef.current;
+    if (!input?.files?.length) return;
+    take(Array.from(input.files));
+    input.value = '';
+    // Once, on mount: later picks go through onChange.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
 
   const hasFiles = (e: DragEvent) => Array.from(e.dataTransfer.types).includes('Files');
 

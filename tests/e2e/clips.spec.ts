@@ -21,6 +21,8 @@ test('the shop hand uploads a real video and sees it with duration and poster; t
   const shop = await shopContext.newPage();
   await signIn(shop, demo.shopHand);
   await shop.goto(segmentUrl);
+  // A person picks a file after the page is up; picking within milliseconds of load is the panel's own test.
+  await shop.waitForLoadState('networkidle');
   await shop.getByLabel('Choose clips to upload').setInputFiles(video);
   const progress = shop.getByRole('progressbar', { name: `Upload progress for ${name}` });
   await expect(progress).toHaveAttribute('aria-valuenow', '100', { timeout: 30_000 });

@@ -13,6 +13,7 @@ import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 import { useUpdateShot } from './use-shots';
 import { GripIcon } from '@/components/ui/grip-icon';
 import { DueBadge } from './due-badge';
+import { ShotHistory } from './shot-history';
 
 export type CrewOption = { userId: string; name: string };
 
@@ -119,6 +120,7 @@ export function ShotRow(props: Props) {
       <td className={cell}>
         <span className="sr-only sm:hidden">State: </span>
         <StateBadge shot={shot} />
+        <ShotHistory channelSlug={props.channelSlug} shotId={shot.id} number={shot.number} />
       </td>
       {props.columns === 9 ? (
         <td className={`${cell} basis-full sm:whitespace-nowrap`}>

@@ -79,7 +79,15 @@ export async function seedDemoShots(trx: Knex.Transaction, channelId: string): P
       retake_reason: s.reason ?? null,
       ...(s.state && { state_changed_by: shop ?? host, state_changed_at: trx.fn.now() }),
     }));
-    const inserted: { id: string; assignee_id: string | null; due_date: string | null }[] = await trx('shots').insert(rows).returning(['id', 'assignee_id', 'due_date']);
+    const inserted: { id: string; position: string; assignee_id: string | null; due_date: string | null }[] = await trx('shots')
+      .insert(rows)
+      .returning(['id', 'position', 'assignee_id', 'due_date']);
+    // A seeded state has its history row, as a change made in the app would.
+    const events = inserted.flatMap((r) => {
+      const s = item.shots[keys.indexOf(r.position)];
+      return s?.state ? [{ shot_id: r.id, from_state: 'planned', to_state: s.state, reason: s.reason ?? null, user_id: shop ?? host }] : [];
+    });
+    if (events.length) await trx('shot_events').insert(events);
     // The seeded crew "already knows" its shots, so the first e-mail they get is about a real change.
     const notices = inserted.filter((r) => r.assignee_id).map((r) => ({ shot_id: r.id, user_id: r.assignee_id, due_date: r.due_date }));
     if (notices.length) await trx('shot_notices').insert(notices);

@@ -6,7 +6,7 @@ import { Alert } from '@/components/ui/alert';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { ClipItem } from './clip-item';
-import { useViewer, type Viewer } from '@/components/providers/viewer-provider';
+import { useViewer } from '@/components/providers/viewer-provider';
 import { mayDeleteClip, useDeleteClip, useSegmentClips } from './use-clips';
 import { RetryAlert } from '@/components/ui/retry-alert';
 
@@ -16,8 +16,6 @@ type Props = {
   /** Only this shot's clips; undefined lists the whole segment. */
   shotId?: string | undefined;
   initialClips?: ClipDto[] | undefined;
-  /** Known on the segment page; a shop board card asks for it. */
-  viewer?: Viewer | undefined;
   /** On the segment page: each clip then says which shot it belongs to. */
   initialShots?: ShotDto[] | undefined;
   nested?: boolean;
@@ -34,9 +32,9 @@ function WithShotLabels(props: Props & { initialShots: ShotDto[] }) {
   return <ClipListBody {...props} labels={labels} />;
 }
 
-function ClipListBody({ slug, segmentId, shotId, initialClips, viewer, nested = false, labels }: Props & { labels?: Map<string, string> }) {
+function ClipListBody({ slug, segmentId, shotId, initialClips, nested = false, labels }: Props & { labels?: Map<string, string> }) {
   const clips = useSegmentClips(slug, segmentId, initialClips);
-  const who = useViewer() ?? viewer ?? null;
+  const who = useViewer();
   const remove = useDeleteClip(slug, segmentId);
   const listRef = useRef<HTMLUListElement>(null);
   const [notice, setNotice] = useState<{ tone: 'ok' | 'attention'; text: string } | null>(null);
@@ -80,7 +78,7 @@ function ClipListBody({ slug, segmentId, shotId, initialClips, viewer, nested = 
             <ClipItem
               slug={slug}
               clip={clip}
-              mayDelete={who ? mayDeleteClip(who, clip) : false}
+              mayDelete={mayDeleteClip(who, clip)}
               onDelete={onDelete}
               shotLabel={clip.shotId ? labels?.get(clip.shotId) : undefined}
               nested={nested}

@@ -12,6 +12,9 @@ export function ViewerProvider({ viewer, children }: { viewer: Viewer; children:
   return <ViewerContext.Provider value={viewer}>{children}</ViewerContext.Provider>;
 }
 
-export function useViewer(): Viewer | null {
-  return useContext(ViewerContext);
+/** Every channel page sits inside the channel layout, which provides the viewer. */
+export function useViewer(): Viewer {
+  const viewer = useContext(ViewerContext);
+  if (!viewer) throw new Error('useViewer outside a channel page: the channel layout provides it');
+  return viewer;
 }

@@ -151,9 +151,8 @@ function ShotClips({ slug, shot }: { slug: string; shot: BoardShotDto }) {
 }
 
 function ShotClipsBody({ slug, shot }: { slug: string; shot: BoardShotDto }) {
-  const viewer = useViewer();
-  // Uploads wait for the role rather than offering a picker the server would refuse (an Editor's).
-  const mayUpload = viewer ? can(viewer.role, 'clips.upload') : false;
+  // No picker the server would refuse (an Editor's).
+  const mayUpload = can(useViewer().role, 'clips.upload');
   return (
     <div className="space-y-3 pb-1 pt-1">
       {mayUpload ? <UploadPanel slug={slug} segmentId={shot.segmentId} shotId={shot.id} compact /> : null}

@@ -18,20 +18,20 @@ import { SortableContext, sortableKeyboardCoordinates, verticalListSortingStrate
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { can, type Role } from '@/lib/auth/policy';
+import { can } from '@/lib/auth/policy';
 import { afterIdFor, moveInList } from '@/lib/segments/order';
 import { mayEditShot } from '@/lib/shots/policy';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { emptyQuickAdd, ShotQuickAdd, type QuickAddDraft } from './shot-quick-add';
 import { ShotRow, type CrewOption } from './shot-row';
 import { useDeleteShot, useDuplicateShot, useMoveShot, useRestoreShot, useSegmentShots } from './use-shots';
+import { useViewer } from '@/components/providers/viewer-provider';
 
 type Props = {
   channelSlug: string;
   segmentId: string;
   initialShots: ShotDto[];
   crew: CrewOption[];
-  viewer: { role: Role; userId: string };
 };
 
 type Notice = { kind: 'deleted'; shotId: string; number: number } | { kind: 'done'; text: string } | { kind: 'failed'; text: string };
@@ -46,7 +46,8 @@ const screenReaderInstructions: ScreenReaderInstructions = {
 
 const headers = ['#', 'Framing', 'Camera', 'Description', 'Assignee', 'Due', 'Notes', 'State'];
 
-export function ShotList({ channelSlug, segmentId, initialShots, crew, viewer }: Props) {
+export function ShotList({ channelSlug, segmentId, initialShots, crew }: Props) {
+  const viewer = useViewer();
   const shots = useSegmentShots(channelSlug, segmentId, initialShots);
   const list = shots.data;
   const move = useMoveShot(channelSlug, segmentId);

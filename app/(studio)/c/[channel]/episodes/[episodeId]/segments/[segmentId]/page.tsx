@@ -106,7 +106,6 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
           segmentId={segment.id}
           initialShots={shots}
           crew={assignable}
-          viewer={{ role: member.role, userId: member.userId }}
         />
       </section>
       <section aria-labelledby="clips-heading" className="mt-8">
@@ -120,7 +119,6 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
             segmentId={segment.id}
             initialClips={clips}
             initialShots={shots}
-            viewer={{ role: member.role, userId: member.userId }}
           />
         </div>
       </section>

@@ -4,6 +4,7 @@ import { db } from '@/db/client';
 import { can, type Role } from '@/lib/auth/policy';
 import type { Membership } from '@/lib/channels/queries';
 import { forbidden, notFound } from '@/lib/errors';
+import { findSegment } from '@/lib/segments/queries';
 import type { MediaInfo } from './probe';
 import type { ClipDto, ProbeState } from './schemas';
 
@@ -139,8 +140,7 @@ export async function recordClipOnce(clip: NewClip): Promise<{ clipId: string; c
 }
 
 export async function listSegmentClips(channelId: string, segmentId: string): Promise<ClipDto[]> {
-  const seg = await db('segments as s').join('episodes as e', 'e.id', 's.episode_id').where({ 's.id': segmentId, 'e.channel_id': channelId }).first('s.id');
-  if (!seg) throw notFound('That segment');
+  await findSegment(channelId, segmentId);
   const rows: ClipRow[] = await channelClips(db, channelId).where('c.segment_id', segmentId).orderBy('c.created_at', 'desc').select(clipColumns);
   return rows.map(toClipDto);
 }

@@ -5,6 +5,7 @@ import { appUrl } from '@/lib/config';
 import { sendMail } from '@/lib/mail/mailer';
 import { buildAssignmentMail, type MailShot } from './assignment-mail';
 import type { Camera, Framing } from './catalog';
+import { shotNumberColumn, shotsOfChannel } from './shot-sql';
 
 /** How long a burst of assignment changes collects before its one e-mail goes. */
 export const shotMailDelaySeconds = (): number => {
@@ -38,7 +39,7 @@ type MailShotRow = {
 
 const mailShotColumns = [
   'sh.id',
-  db.raw('(select count(*) from shots x where x.segment_id = sh.segment_id and x.deleted_at is null and x.position <= sh.position)::int as number'),
+  shotNumberColumn(),
   'sh.description',
   'sh.framing',
   'sh.camera',
@@ -48,9 +49,6 @@ const mailShotColumns = [
   's.id as segment_id',
   's.title as segment_title',
 ];
-
-const shotsOfChannel = (trx: Knex.Transaction, channelId: string) =>
-  trx('shots as sh').join('segments as s', 's.id', 'sh.segment_id').join('episodes as e', 'e.id', 's.episode_id').where('e.channel_id', channelId);
 
 /** Sends one burst: the difference between what the person was last told they hold and what they hold now. */
 async function sendBurst(trx: Knex.Transaction, burst: { user_id: string; channel_id: string }): Promise<boolean> {

@@ -5,11 +5,13 @@ import { db } from '@/db/client';
 import type { Membership } from '@/lib/channels/queries';
 import { conflict, invalidInput, notFound } from '@/lib/errors';
 import type { Camera, Framing, ShotState } from './catalog';
+import { findSegment } from '@/lib/segments/queries';
 import { openBursts } from './mail-queries';
 import { assertMayEditShot } from './policy';
 import { parseShotLines } from './quick-add';
 import { needsSafetyReview, type Tool } from './safety';
-import type { BoardQuery, BoardShotDto, CreateShotInput, ShotDto, ShotProgress, ShotStateInput, UpdateShotInput } from './schemas';
+import { shotNumberColumn, shotsOfChannel } from './shot-sql';
+import type { BoardQuery, BoardShotDto, CreateShotInput, ShotDto, ShotStateInput, UpdateShotInput } from './schemas';
 
 type Db = Knex | Knex.Transaction;
 
@@ -45,8 +47,7 @@ type BoardShotRow = ShotRow & {
 const shotColumns = [
   'sh.id',
   'sh.segment_id',
-  // Numbers count live shots only, whatever filter the caller adds.
-  db.raw('(select count(*) from shots x where x.segment_id = sh.segment_id and x.deleted_at is null and x.position <= sh.position)::int as number'),
+  shotNumberColumn(),
   'sh.position',
   'sh.board_position',
   'sh.framing',
@@ -94,22 +95,13 @@ const toBoardShotDto = (r: BoardShotRow): BoardShotDto => ({
   safetyPending: needsSafetyReview(r.tools) && !r.safety_reviewed_at,
 });
 
-export const channelShots = (trx: Db, channelId: string) =>
-  trx('shots as sh')
-    .join('segments as s', 's.id', 'sh.segment_id')
-    .join('episodes as e', 'e.id', 's.episode_id')
-    .leftJoin('users as au', 'au.id', 'sh.assignee_id')
-    .leftJoin('users as cu', 'cu.id', 'sh.state_changed_by')
-    .where('e.channel_id', channelId)
-    .whereNull('sh.deleted_at');
+const shotsWithPeople = (trx: Db, channelId: string) =>
+  shotsOfChannel(trx, channelId).leftJoin('users as au', 'au.id', 'sh.assignee_id').leftJoin('users as cu', 'cu.id', 'sh.state_changed_by');
+
+export const channelShots = (trx: Db, channelId: string) => shotsWithPeople(trx, channelId).whereNull('sh.deleted_at');
 
 async function findShotRow(trx: Db, channelId: string, shotId: string, opts: { deleted?: boolean } = {}): Promise<BoardShotRow> {
-  const q = trx('shots as sh')
-    .join('segments as s', 's.id', 'sh.segment_id')
-    .join('episodes as e', 'e.id', 's.episode_id')
-    .leftJoin('users as au', 'au.id', 'sh.assignee_id')
-    .leftJoin('users as cu', 'cu.id', 'sh.state_changed_by')
-    .where({ 'e.channel_id': channelId, 'sh.id': shotId });
+  const q = shotsWithPeople(trx, channelId).where('sh.id', shotId);
   if (opts.deleted) q.whereNotNull('sh.deleted_at');
   else q.whereNull('sh.deleted_at');
   const row: BoardShotRow | undefined = await q.first(boardColumns);
@@ -143,17 +135,11 @@ const lastPosition = async (trx: Db, segmentId: string): Promise<string | null> 
 
 const lastBoardPosition = async (trx: Db, channelId: string): Promise<string | null> =>
   (
-    (await trx('shots as sh')
-      .join('segments as s', 's.id', 'sh.segment_id')
-      .join('episodes as e', 'e.id', 's.episode_id')
-      .where('e.channel_id', channelId)
-      .max('sh.board_position as p')
-      .first()) as { p: string | null } | undefined
+    (await shotsOfChannel(trx, channelId).max('sh.board_position as p').first()) as { p: string | null } | undefined
   )?.p ?? null;
 
 export async function listSegmentShots(channelId: string, segmentId: string): Promise<ShotDto[]> {
-  const seg = await db('segments as s').join('episodes as e', 'e.id', 's.episode_id').where({ 's.id': segmentId, 'e.channel_id': channelId }).first('s.id');
-  if (!seg) throw notFound('That segment');
+  await findSegment(channelId, segmentId);
   const rows: ShotRow[] = await channelShots(db, channelId).where('sh.segment_id', segmentId).orderBy('sh.position').select(shotColumns);
   return rows.map(toShotDto);
 }
@@ -389,21 +375,6 @@ export async function listMyShots(channelId: string, userId: string): Promise<Bo
     .orderByRaw('coalesce(sh.due_date, e.shoot_date) asc nulls last, e.title, e.id, s.position, sh.position')
     .select(boardColumns);
   return rows.map(toBoardShotDto);
-}
-
-export async function shotProgressForEpisode(episodeId: string, trx: Db = db): Promise<Record<string, ShotProgress>> {
-  const rows: { segment_id: string; total: number; captured: number; retake: number }[] = await trx('shots as sh')
-    .join('segments as s', 's.id', 'sh.segment_id')
-    .where('s.episode_id', episodeId)
-    .whereNull('sh.deleted_at')
-    .groupBy('sh.segment_id')
-    .select(
-      'sh.segment_id',
-      trx.raw('count(*)::int as total'),
-      trx.raw(`count(*) filter (where sh.state = 'captured')::int as captured`),
-      trx.raw(`count(*) filter (where sh.state = 'retake')::int as retake`),
-    );
-  return Object.fromEntries(rows.map((r) => [r.segment_id, { total: r.total, captured: r.captured, retake: r.retake }]));
 }
 
 /** Live shots of one episode in running order, archived or not (the shoot-day sheet prints either). */

@@ -7,7 +7,7 @@ import type { BoardShotDto } from '@/lib/shots/schemas';
 import { shotHref } from './board-query';
 import { formatLongDay } from './dates';
 import { StateButtons, useShotActions, type ShotActions } from './shot-actions';
-import { SafetyPendingBadge, StatePill } from './shot-card';
+import { RetakeReason, SafetyPendingBadge, StatePill } from './shot-card';
 import { useMyShots } from './use-shop-board';
 import { RetryAlert } from '@/components/ui/retry-alert';
 
@@ -93,12 +93,7 @@ function MyShotItem({ slug, shot, actions }: { slug: string; shot: BoardShotDto;
         <span aria-hidden="true">·</span>
         <span>{cameraLabels[shot.camera]}</span>
       </p>
-      {shot.state === 'retake' && shot.retakeReason ? (
-        <p className="rounded-md bg-attention-soft px-2 py-1 text-sm text-attention-ink">
-          <span className="font-bold">Retake: </span>
-          {shot.retakeReason}
-        </p>
-      ) : null}
+      <RetakeReason shot={shot} />
       {shot.safetyPending ? <SafetyPendingBadge /> : null}
       {actions ? (
         <div className="mt-auto">

@@ -91,12 +91,7 @@ export function ShotCardBody({ slug, shot, handle, footer, showState = false, ov
             </dd>
           </div>
         </dl>
-        {shot.state === 'retake' && shot.retakeReason ? (
-          <p className="rounded-md bg-attention-soft px-2 py-1 text-sm text-attention-ink">
-            <span className="font-bold">Retake: </span>
-            {shot.retakeReason}
-          </p>
-        ) : null}
+        <RetakeReason shot={shot} />
         {shot.stateChangedBy && shot.stateChangedAt ? (
           <p className="text-xs text-ink-faint">
             {changedText[shot.state]} {shot.stateChangedBy}, <LocalTime iso={shot.stateChangedAt} />
@@ -216,5 +211,16 @@ export function ShotCardPreview({ slug, shot }: { slug: string; shot: BoardShotD
         </span>
       }
     />
+  );
+}
+
+/** Why a shot needs a retake, in the attention colour, wherever the shot is shown as a card. */
+export function RetakeReason({ shot }: { shot: Pick<BoardShotDto, 'state' | 'retakeReason'> }) {
+  if (shot.state !== 'retake' || !shot.retakeReason) return null;
+  return (
+    <p className="rounded-md bg-attention-soft px-2 py-1 text-sm text-attention-ink">
+      <span className="font-bold">Retake: </span>
+      {shot.retakeReason}
+    </p>
   );
 }

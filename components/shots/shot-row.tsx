@@ -14,6 +14,7 @@ import { useUpdateShot } from './use-shots';
 import { GripIcon } from '@/components/ui/grip-icon';
 import { DueBadge } from './due-badge';
 import { ShotHistory } from './shot-history';
+import { formatDay } from '@/components/shop-board/dates';
 
 export type CrewOption = { userId: string; name: string };
 
@@ -35,8 +36,6 @@ type Props = {
   busy: boolean;
 };
 
-const dueFormat = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeZone: 'UTC' });
-export const formatDue = (date: string) => dueFormat.format(new Date(`${date}T00:00:00Z`));
 
 // Below sm each row is a card; the inline labels stand in for the hidden column headers there.
 const cell = 'block sm:table-cell sm:border-b sm:border-paper-edge/70 sm:py-2 sm:pr-3 sm:align-top';
@@ -110,7 +109,7 @@ export function ShotRow(props: Props) {
       </td>
       <td className={`${cell} sm:whitespace-nowrap`}>
         <span className={smallLabel}>Due </span>
-        {shot.dueDate ? <time dateTime={shot.dueDate}>{formatDue(shot.dueDate)}</time> : <span className="text-ink-faint">No date</span>}{' '}
+        {shot.dueDate ? <time dateTime={shot.dueDate}>{formatDay(shot.dueDate)}</time> : <span className="text-ink-faint">No date</span>}{' '}
         <DueBadge dueDate={shot.dueDate} state={shot.state} />
       </td>
       <td className={`${cell} basis-full ${shot.notes ? '' : 'max-sm:hidden'}`}>

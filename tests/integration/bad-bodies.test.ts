@@ -97,6 +97,22 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'safety review', fn: safetyReviewRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId: buildId } },
 ];
 
+type ShapedRun = [name: string, fn: Parameters<typeof call>[0], method: string, params: Record<string, string>, body: fc.Arbitrary<unknown>];
+
+/** Bodies of the right shape never make a 500, and a 400 for bad input always names its fields. */
+async function assertNo500(runs: ShapedRun[], numRuns: number) {
+  for (const [name, fn, method, params, body] of runs) {
+    await fc.assert(
+      fc.asyncProperty(body, async (b) => {
+        const res = await call(fn, method, { as: crew.host, params, body: b });
+        expect(res.status, `${name}: ${JSON.stringify(b)}`).toBeLessThan(500);
+        if (res.status === 400 && res.json.error?.code === 'invalid_input') expect(Object.keys(res.json.error.fields ?? {}).length).toBeGreaterThan(0);
+      }),
+      { numRuns },
+    );
+  }
+}
+
 describe('no body makes a 500', () => {
   it('for every route with a body', async () => {
     for (const t of targets()) {
@@ -175,23 +191,14 @@ const settingsBody = fc.record({ kerfIn: shopLength, endTrimIn: shopLength, minO
 describe('no rack, part or settings body makes a 500', () => {
   it('for shop-notation bodies of the right shape', async () => {
     const ch = crew.channel.slug;
-    const runs: [string, Parameters<typeof call>[0], string, Record<string, string>, fc.Arbitrary<unknown>][] = [
+    const runs: ShapedRun[] = [
       ['add stock', stockRoute.POST, 'POST', { channel: ch }, stockBody],
       ['replace stock', stockItemRoute.PUT, 'PUT', { channel: ch, stockId }, stockBody],
       ['add part', partsRoute.POST, 'POST', { channel: ch, segmentId: buildId }, fc.record(partFields(stockId), { requiredKeys: [] })],
       ['update part', partRoute.PATCH, 'PATCH', { channel: ch, partId }, fc.record({ ...partFields(stockId), cutCount: fc.integer({ min: -1, max: 600 }) }, { requiredKeys: [] })],
       ['cut settings', cutSettingsRoute.PATCH, 'PATCH', { channel: ch }, settingsBody],
     ];
-    for (const [name, fn, method, params, body] of runs) {
-      await fc.assert(
-        fc.asyncProperty(body, async (b) => {
-          const res = await call(fn, method, { as: crew.host, params, body: b });
-          expect(res.status, `${name}: ${JSON.stringify(b)}`).toBeLessThan(500);
-          if (res.status === 400 && res.json.error?.code === 'invalid_input') expect(Object.keys(res.json.error.fields ?? {}).length).toBeGreaterThan(0);
-        }),
-        { numRuns: 80 },
-      );
-    }
+    await assertNo500(runs, 80);
   });
 });
 
@@ -214,7 +221,7 @@ const pasted = fc.array(fc.oneof(fc.string({ maxLength: 40 }), fc.constantFrom('
 describe('no shot body makes a 500', () => {
   it('for shot-shaped bodies', async () => {
     const ch = crew.channel.slug;
-    const runs: [string, Parameters<typeof call>[0], string, Record<string, string>, fc.Arbitrary<unknown>][] = [
+    const runs: ShapedRun[] = [
       ['add shot', segmentShotsRoute.POST, 'POST', { channel: ch, segmentId: buildId }, shotBody(crew.shopHand.id)],
       ['update shot', shotRoute.PATCH, 'PATCH', { channel: ch, shotId }, shotBody(crew.shopHand.id)],
       ['paste shots', shotBulkRoute.POST, 'POST', { channel: ch, segmentId: buildId }, fc.record({ text: pasted, assigneeId: fc.constantFrom(crew.editor.id, null), dueDate: day }, { requiredKeys: ['text'] })],
@@ -227,15 +234,6 @@ describe('no shot body makes a 500', () => {
       ],
       ['segment tools', toolsRoute.PUT, 'PUT', { channel: ch, segmentId: buildId }, fc.record({ tools: fc.array(fc.constantFrom('router', 'other', 'lathe', 'table_saw')), otherTool: fc.string({ maxLength: 90 }) }, { requiredKeys: [] })],
     ];
-    for (const [name, fn, method, params, body] of runs) {
-      await fc.assert(
-        fc.asyncProperty(body, async (b) => {
-          const res = await call(fn, method, { as: crew.host, params, body: b });
-          expect(res.status, `${name}: ${JSON.stringify(b)}`).toBeLessThan(500);
-          if (res.status === 400 && res.json.error?.code === 'invalid_input') expect(Object.keys(res.json.error.fields ?? {}).length).toBeGreaterThan(0);
-        }),
-        { numRuns: 60 },
-      );
-    }
+    await assertNo500(runs, 60);
   });
 });

@@ -8,7 +8,11 @@ export const mailPorts = () => ({
   webPort: Number(process.env.KERFLINE_MAIL_WEB_PORT || 1080),
 });
 
-export const TEST_MAIL_PORTS = { smtpPort: 1026, webPort: 1081 };
+// Overridable so that two checkouts on one machine can run their test suites side by side.
+export const TEST_MAIL_PORTS = {
+  smtpPort: Number(process.env.KERFLINE_TEST_SMTP_PORT || 1026),
+  webPort: Number(process.env.KERFLINE_TEST_MAIL_WEB_PORT || 1081),
+};
 
 function maildevBin(root) {
   const dir = path.join(root, 'node_modules', 'maildev');

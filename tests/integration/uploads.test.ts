@@ -16,10 +16,11 @@ import { makeRandomFile, startTusUpload } from './tus-client';
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfline-uploads-'));
 const uploadDir = path.join(dir, 'uploads');
 const MAX = 300 * 1024 * 1024;
-const app = new AppServer(Number(process.env.UPLOAD_TEST_PORT ?? 3197), {
+const UPLOAD_PORT = Number(process.env.UPLOAD_TEST_PORT ?? 3197);
+const app = new AppServer(UPLOAD_PORT, {
   DATABASE_URL: process.env.DATABASE_URL ?? '',
   NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? '',
-  NEXTAUTH_URL: 'http://127.0.0.1:3197',
+  NEXTAUTH_URL: `http://127.0.0.1:${UPLOAD_PORT}`,
   UPLOAD_DIR: uploadDir,
   MAX_UPLOAD_BYTES: String(MAX),
   CLIP_JOB_POLL_MS: '300',

@@ -1,7 +1,7 @@
 'use client';
 
 import { useMutation, useQuery, useQueryClient, type QueryKey } from '@tanstack/react-query';
-import { boardKey } from '@/components/board/use-board';
+import { boardKey } from '@/components/running-order/use-running-order';
 import { apiFetch } from '@/lib/api/client';
 import { moveAfter } from '@/lib/segments/order';
 import type { BoardDto } from '@/lib/segments/schemas';

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { RunningOrderBoard } from '@/components/board/running-order-board';
+import { RunningOrderBoard } from '@/components/running-order/running-order-list';
 import { StarterButton } from '@/components/episodes/starter-button';
 import { buttonClasses } from '@/components/ui/button';
 import { requireMember } from '@/lib/auth/session';

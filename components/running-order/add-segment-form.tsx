@@ -10,7 +10,7 @@ import type { EpisodeDto } from '@/lib/episodes/schemas';
 import type { FieldErrors } from '@/lib/errors';
 import { createSegmentSchema, kindLabels, levels, segmentKinds, type SegmentKind } from '@/lib/segments/schemas';
 import { asKind, levelFrom, levelText } from './segment-edit-form';
-import { useAddSegment } from './use-board';
+import { useAddSegment } from './use-running-order';
 
 /** Adds a segment at the end of the running order. */
 export function AddSegmentForm({ channelSlug, episode }: { channelSlug: string; episode: EpisodeDto }) {

@@ -26,7 +26,7 @@ import type { BoardDto } from '@/lib/segments/schemas';
 import { AddSegmentForm } from './add-segment-form';
 import { RuntimeBar } from './runtime-bar';
 import { SegmentCardPreview, SortableSegmentItem, StaticSegmentItem } from './segment-card';
-import { useBoard, useMoveSegment } from './use-board';
+import { useBoard, useMoveSegment } from './use-running-order';
 
 // A running order is one column: sideways movement only makes the card wander.
 const verticalOnly: Modifier = ({ transform }) => ({ ...transform, x: 0 });

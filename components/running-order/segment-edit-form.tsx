@@ -19,7 +19,7 @@ import {
   type SegmentKind,
   type UpdateSegmentInput,
 } from '@/lib/segments/schemas';
-import { useDeleteSegment, useUpdateSegment } from './use-board';
+import { useDeleteSegment, useUpdateSegment } from './use-running-order';
 
 /** "Level 2 · Intermediate", with the episode's own names for its levels. */
 export function levelText(level: Level, labels: EpisodeDto['levelLabels']): string {

@@ -11,7 +11,7 @@ const moveKey = (slug: string, episodeId: string) => ['board', slug, episodeId, 
 export function useBoard(slug: string, initialBoard: BoardDto) {
   return useQuery({
     queryKey: boardKey(slug, initialBoard.episode.id),
-    queryFn: () => apiFetch<BoardDto>(`/api/channels/${slug}/episodes/${initialBoard.episode.id}/board`),
+    queryFn: () => apiFetch<BoardDto>(`/api/channels/${slug}/episodes/${initialBoard.episode.id}/running-order`),
     initialData: initialBoard,
   });
 }

@@ -44,7 +44,7 @@ export function useMyShots(slug: string, initialShots: BoardShotDto[]) {
 export function useEpisodeSegments(slug: string, episodeId: string | undefined, initialBoard: BoardDto | null) {
   return useQuery({
     queryKey: boardKey(slug, episodeId ?? ''),
-    queryFn: () => apiFetch<BoardDto>(`${api(slug)}/episodes/${episodeId}/board`),
+    queryFn: () => apiFetch<BoardDto>(`${api(slug)}/episodes/${episodeId}/running-order`),
     enabled: episodeId !== undefined,
     initialData: initialBoard && initialBoard.episode.id === episodeId ? initialBoard : undefined,
     select: (board) => board.segments,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import * as boardRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/board/route';
+import * as boardRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/running-order/route';
 import * as episodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/route';
 import * as segmentsRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/segments/route';
 import * as starterRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/starter/route';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import * as boardRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/board/route';
+import * as boardRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/running-order/route';
 import * as scriptRoute from '@/app/api/channels/[channel]/segments/[segmentId]/script/route';
 import { db } from '@/db/client';
 import type { BoardDto } from '@/lib/segments/schemas';

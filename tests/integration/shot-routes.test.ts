@@ -11,7 +11,7 @@ import * as duplicateRoute from '@/app/api/channels/[channel]/shots/[shotId]/dup
 import * as positionRoute from '@/app/api/channels/[channel]/shots/[shotId]/position/route';
 import * as stateRoute from '@/app/api/channels/[channel]/shots/[shotId]/state/route';
 import * as shotMailRoute from '@/app/api/channels/[channel]/shot-mail/route';
-import * as boardOfEpisodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/board/route';
+import * as boardOfEpisodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/running-order/route';
 import { db } from '@/db/client';
 import { deleteShot } from '@/lib/shots/queries';
 import type { BoardShotDto, ShotDto } from '@/lib/shots/schemas';

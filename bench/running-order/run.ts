@@ -1,5 +1,5 @@
 // Board API benchmark (issue: episodes board). Run against a server started by `npm start`:
-//   node --require ./bench/lib/allow-server-modules.cjs --import tsx bench/board/run.ts
+//   node --require ./bench/lib/allow-server-modules.cjs --import tsx bench/running-order/run.ts
 // Prints SQL statements per board request for 10 and 200 segments, and p50/p95 latency at 16 concurrent connections.
 import { readFileSync } from 'node:fs';
 import { randomUUID } from 'node:crypto';
@@ -16,7 +16,7 @@ async function main() {
   const { db } = await import('@/db/client');
   const { createChannel } = await import('@/lib/channels/queries');
   const { createEpisode } = await import('@/lib/episodes/queries');
-  const { GET } = await import('@/app/api/channels/[channel]/episodes/[episodeId]/board/route');
+  const { GET } = await import('@/app/api/channels/[channel]/episodes/[episodeId]/running-order/route');
   const { generateNKeysBetween } = await import('fractional-indexing');
 
   const [user] = await db('users')
@@ -48,7 +48,7 @@ async function main() {
     }
 
     const big = episodes.at(-1)!;
-    const url = `${BASE}/api/channels/${channel.slug}/episodes/${big.id}/board`;
+    const url = `${BASE}/api/channels/${channel.slug}/episodes/${big.id}/running-order`;
     const probe = await fetch(url, { headers: { cookie } });
     if (probe.status !== 200) throw new Error(`${url} answered ${probe.status}; is \`npm start\` running with this database?`);
     const { latencies, failures, seconds } = await load(url, cookie, { connections: 16, durationMs: 10_000 });

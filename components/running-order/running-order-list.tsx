@@ -22,11 +22,11 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { afterIdFor, moveInList } from '@/lib/segments/order';
-import type { BoardDto } from '@/lib/segments/schemas';
+import type { RunningOrderDto } from '@/lib/segments/schemas';
 import { AddSegmentForm } from './add-segment-form';
 import { RuntimeBar } from './runtime-bar';
 import { SegmentCardPreview, SortableSegmentItem, StaticSegmentItem } from './segment-card';
-import { useBoard, useMoveSegment } from './use-running-order';
+import { useRunningOrder, useMoveSegment } from './use-running-order';
 
 // A running order is one column: sideways movement only makes the card wander.
 const verticalOnly: Modifier = ({ transform }) => ({ ...transform, x: 0 });
@@ -36,9 +36,9 @@ const screenReaderInstructions: ScreenReaderInstructions = {
     'To move a segment, press Space or Enter on its move handle, use the Up and Down arrow keys to choose a new position, then press Space or Enter to drop it, or Escape to cancel. On a touch screen, press and hold the handle, then drag.',
 };
 
-export function RunningOrderBoard({ channelSlug, initialBoard }: { channelSlug: string; initialBoard: BoardDto }) {
-  const { data: board } = useBoard(channelSlug, initialBoard);
-  const { episode, segments, forecast, canEdit } = board;
+export function RunningOrderList({ channelSlug, initialRunningOrder }: { channelSlug: string; initialRunningOrder: RunningOrderDto }) {
+  const { data: runningOrder } = useRunningOrder(channelSlug, initialRunningOrder);
+  const { episode, segments, forecast, canEdit } = runningOrder;
   const move = useMoveSegment(channelSlug, episode.id);
   const [activeId, setActiveId] = useState<string | null>(null);
   const [deletedTitle, setDeletedTitle] = useState<string | null>(null);
@@ -108,7 +108,7 @@ export function RunningOrderBoard({ channelSlug, initialBoard }: { channelSlug: 
     channelSlug,
     episode,
     forecast: forecastById.get(segmentId),
-    shotProgress: board.shotProgress[segmentId],
+    shotProgress: runningOrder.shotProgress[segmentId],
     position: index + 1,
   });
 

@@ -172,7 +172,7 @@ function SegmentCardBody({
 }
 
 /**
- * This card's slice of the board query the running order already holds. `select` re-renders a card only
+ * This card's slice of the running-order query the list already holds. `select` re-renders a card only
  * when its own numbers change; no refetch on mount, so picking a card up for a drag costs no request.
  */
 function ShotProgressLine({ progress }: { progress: ShotProgress | undefined }) {

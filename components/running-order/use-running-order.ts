@@ -2,17 +2,17 @@
 
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
-import { reorderBoard } from '@/lib/segments/order';
-import type { BoardDto, CreateSegmentInput, SegmentDto, UpdateSegmentInput } from '@/lib/segments/schemas';
+import { reorderRunningOrder } from '@/lib/segments/order';
+import type { RunningOrderDto, CreateSegmentInput, SegmentDto, UpdateSegmentInput } from '@/lib/segments/schemas';
 
-export const boardKey = (slug: string, episodeId: string) => ['board', slug, episodeId] as const;
-const moveKey = (slug: string, episodeId: string) => ['board', slug, episodeId, 'move'] as const;
+export const runningOrderKey = (slug: string, episodeId: string) => ['running-order', slug, episodeId] as const;
+const moveKey = (slug: string, episodeId: string) => ['running-order', slug, episodeId, 'move'] as const;
 
-export function useBoard(slug: string, initialBoard: BoardDto) {
+export function useRunningOrder(slug: string, initialRunningOrder: RunningOrderDto) {
   return useQuery({
-    queryKey: boardKey(slug, initialBoard.episode.id),
-    queryFn: () => apiFetch<BoardDto>(`/api/channels/${slug}/episodes/${initialBoard.episode.id}/running-order`),
-    initialData: initialBoard,
+    queryKey: runningOrderKey(slug, initialRunningOrder.episode.id),
+    queryFn: () => apiFetch<RunningOrderDto>(`/api/channels/${slug}/episodes/${initialRunningOrder.episode.id}/running-order`),
+    initialData: initialRunningOrder,
   });
 }
 
@@ -20,7 +20,7 @@ export type MoveVariables = { segmentId: string; afterId: string | null; title: 
 
 export function useMoveSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
-  const key = boardKey(slug, episodeId);
+  const key = runningOrderKey(slug, episodeId);
   return useMutation({
     mutationKey: moveKey(slug, episodeId),
     mutationFn: ({ segmentId, afterId }: MoveVariables) =>
@@ -30,12 +30,12 @@ export function useMoveSegment(slug: string, episodeId: string) {
     // synchronously) stops a refetch in flight from overwriting the optimistic order.
     onMutate: ({ segmentId, afterId }: MoveVariables) => {
       void qc.cancelQueries({ queryKey: key, exact: true });
-      const previous = qc.getQueryData<BoardDto>(key);
-      if (previous) qc.setQueryData<BoardDto>(key, reorderBoard(previous, segmentId, afterId));
+      const previous = qc.getQueryData<RunningOrderDto>(key);
+      if (previous) qc.setQueryData<RunningOrderDto>(key, reorderRunningOrder(previous, segmentId, afterId));
       return { previous };
     },
     onError: (_err, _vars, context) => {
-      if (context?.previous) qc.setQueryData<BoardDto>(key, context.previous);
+      if (context?.previous) qc.setQueryData<RunningOrderDto>(key, context.previous);
     },
     onSettled: () => {
       // With several moves in flight, only the last one refetches, so an early answer cannot undo a later move.
@@ -45,7 +45,7 @@ export function useMoveSegment(slug: string, episodeId: string) {
   });
 }
 
-// Returning the invalidation from onSettled keeps the mutation pending until the fresh board
+// Returning the invalidation from onSettled keeps the mutation pending until the fresh running order
 // (with the server's forecast) is in, so buttons do not re-enable over stale cards.
 
 export function useAddSegment(slug: string, episodeId: string) {
@@ -53,7 +53,7 @@ export function useAddSegment(slug: string, episodeId: string) {
   return useMutation({
     mutationFn: (input: CreateSegmentInput) =>
       apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/episodes/${episodeId}/segments`, { method: 'POST', body: input }),
-    onSettled: () => qc.invalidateQueries({ queryKey: boardKey(slug, episodeId), exact: true }),
+    onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
   });
 }
 
@@ -62,7 +62,7 @@ export function useUpdateSegment(slug: string, episodeId: string) {
   return useMutation({
     mutationFn: ({ segmentId, patch }: { segmentId: string; patch: UpdateSegmentInput }) =>
       apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/segments/${segmentId}`, { method: 'PATCH', body: patch }),
-    onSettled: () => qc.invalidateQueries({ queryKey: boardKey(slug, episodeId), exact: true }),
+    onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
   });
 }
 
@@ -70,6 +70,6 @@ export function useDeleteSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (segmentId: string) => apiFetch<void>(`/api/channels/${slug}/segments/${segmentId}`, { method: 'DELETE' }),
-    onSettled: () => qc.invalidateQueries({ queryKey: boardKey(slug, episodeId), exact: true }),
+    onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
   });
 }

@@ -6,7 +6,7 @@ import { useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
-import type { BoardDto } from '@/lib/segments/schemas';
+import type { RunningOrderDto } from '@/lib/segments/schemas';
 import { toolInfo } from '@/lib/shots/safety';
 import type { PendingSafetyDto } from '@/lib/shots/safety-queries';
 import { BoardFilterBar, type AssigneeOption, type EpisodeOption } from './board-filters';
@@ -27,10 +27,10 @@ type Props = {
   initial: { filters: BoardFilters; data: BoardData };
   episodes: EpisodeOption[];
   assignees: AssigneeOption[];
-  initialEpisodeBoard: BoardDto | null;
+  initialRunningOrder: RunningOrderDto | null;
 };
 
-export function ShopBoard({ slug, viewerName, canMove, shotMail, initial, episodes, assignees, initialEpisodeBoard }: Props) {
+export function ShopBoard({ slug, viewerName, canMove, shotMail, initial, episodes, assignees, initialRunningOrder }: Props) {
   const router = useRouter();
   const pathname = usePathname();
   // Local first so a select answers at once; the URL follows for reloads and links, and Back brings old filters in as props.
@@ -41,7 +41,7 @@ export function ShopBoard({ slug, viewerName, canMove, shotMail, initial, episod
     setFilters(initial.filters);
   }
   const board = useBoardShots(slug, filters, initial);
-  const segments = useEpisodeSegments(slug, filters.episodeId, initialEpisodeBoard);
+  const segments = useEpisodeSegments(slug, filters.episodeId, initialRunningOrder);
   const actions = useShotActions(slug, viewerName);
 
   function changeFilters(next: BoardFilters) {

@@ -1,10 +1,10 @@
 'use client';
 
 import { useMutation, useQuery, useQueryClient, type QueryKey } from '@tanstack/react-query';
-import { boardKey } from '@/components/running-order/use-running-order';
+import { runningOrderKey } from '@/components/running-order/use-running-order';
 import { apiFetch } from '@/lib/api/client';
 import { moveAfter } from '@/lib/segments/order';
-import type { BoardDto } from '@/lib/segments/schemas';
+import type { RunningOrderDto } from '@/lib/segments/schemas';
 import type { ShotState } from '@/lib/shots/catalog';
 import type { PendingSafetyDto } from '@/lib/shots/safety-queries';
 import type { BoardShotDto } from '@/lib/shots/schemas';
@@ -41,12 +41,12 @@ export function useMyShots(slug: string, initialShots: BoardShotDto[]) {
 }
 
 /** Segments of the chosen episode, for the Segment filter; shares the running order's cache. */
-export function useEpisodeSegments(slug: string, episodeId: string | undefined, initialBoard: BoardDto | null) {
+export function useEpisodeSegments(slug: string, episodeId: string | undefined, initialRunningOrder: RunningOrderDto | null) {
   return useQuery({
-    queryKey: boardKey(slug, episodeId ?? ''),
-    queryFn: () => apiFetch<BoardDto>(`${api(slug)}/episodes/${episodeId}/running-order`),
+    queryKey: runningOrderKey(slug, episodeId ?? ''),
+    queryFn: () => apiFetch<RunningOrderDto>(`${api(slug)}/episodes/${episodeId}/running-order`),
     enabled: episodeId !== undefined,
-    initialData: initialBoard && initialBoard.episode.id === episodeId ? initialBoard : undefined,
+    initialData: initialRunningOrder && initialRunningOrder.episode.id === episodeId ? initialRunningOrder : undefined,
     select: (board) => board.segments,
   });
 }

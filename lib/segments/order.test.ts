@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import type { BoardDto, SegmentDto } from './schemas';
-import { afterIdFor, moveAfter, moveInList, reorderBoard } from './order';
+import type { RunningOrderDto, SegmentDto } from './schemas';
+import { afterIdFor, moveAfter, moveInList, reorderRunningOrder } from './order';
 
 describe('moveInList', () => {
   const ids = ['a', 'b', 'c', 'd'];
@@ -68,7 +68,7 @@ describe('moveAfter', () => {
   });
 });
 
-describe('reorderBoard', () => {
+describe('reorderRunningOrder', () => {
   const segment = (id: string, wordCount: number, actionSeconds: number): SegmentDto => ({
     id,
     episodeId: 'e',
@@ -83,16 +83,16 @@ describe('reorderBoard', () => {
   });
   const segments = [segment('a', 150, 0), segment('b', 0, 30), segment('c', 75, 10)];
   const board = {
-    episode: {} as BoardDto['episode'],
+    episode: {} as RunningOrderDto['episode'],
     segments,
     forecast: { segments: [], totalSeconds: 0 },
     speakingRateWpm: 150,
     canEdit: true,
     shotProgress: {},
-  } satisfies BoardDto;
+  } satisfies RunningOrderDto;
 
   it('reorders segments and recomputes start times at the speaking rate', () => {
-    const next = reorderBoard(board, 'c', null);
+    const next = reorderRunningOrder(board, 'c', null);
     expect(next.segments.map((s) => s.id)).toEqual(['c', 'a', 'b']);
     // 75 words at 150 wpm = 30 s + 10 s action; 150 words = 60 s; then 30 s of action.
     expect(next.forecast.segments.map((f) => [f.id, f.startSeconds, f.totalSeconds])).toEqual([
@@ -104,7 +104,7 @@ describe('reorderBoard', () => {
   });
 
   it('does not touch the board it was given', () => {
-    reorderBoard(board, 'a', 'c');
+    reorderRunningOrder(board, 'a', 'c');
     expect(board.segments.map((s) => s.id)).toEqual(['a', 'b', 'c']);
     expect(board.forecast.totalSeconds).toBe(0);
   });

@@ -1,5 +1,5 @@
 import { forecastEpisode } from '@/lib/runtime';
-import type { BoardDto, SegmentDto } from './schemas';
+import type { RunningOrderDto, SegmentDto } from './schemas';
 
 /** A copy of `list` with the item at fromIndex taken out and put back at toIndex. Out-of-range indexes change nothing. */
 export function moveInList<T>(list: readonly T[], fromIndex: number, toIndex: number): T[] {
@@ -32,15 +32,15 @@ export function moveAfter<T extends { id: string }>(items: readonly T[], movedId
   return [...rest.slice(0, at + 1), moved, ...rest.slice(at + 1)];
 }
 
-/** The board with its segments in a new order and the forecast recomputed, so start times follow at once. */
-export function reorderBoard(board: BoardDto, movedId: string, afterId: string | null): BoardDto {
-  return withSegments(board, moveAfter(board.segments, movedId, afterId));
+/** The runningOrder with its segments in a new order and the forecast recomputed, so start times follow at once. */
+export function reorderRunningOrder(runningOrder: RunningOrderDto, movedId: string, afterId: string | null): RunningOrderDto {
+  return withSegments(runningOrder, moveAfter(runningOrder.segments, movedId, afterId));
 }
 
-function withSegments(board: BoardDto, segments: SegmentDto[]): BoardDto {
+function withSegments(runningOrder: RunningOrderDto, segments: SegmentDto[]): RunningOrderDto {
   const forecast = forecastEpisode(
     segments.map((s) => ({ id: s.id, wordCount: s.wordCount, actionSeconds: s.actionSeconds })),
-    board.speakingRateWpm,
+    runningOrder.speakingRateWpm,
   );
-  return { ...board, segments, forecast };
+  return { ...runningOrder, segments, forecast };
 }

@@ -9,7 +9,7 @@ import { threeLevelBuild } from '@/lib/episodes/starter';
 import { invalidInput, notFound } from '@/lib/errors';
 import { forecastEpisode } from '@/lib/runtime';
 import { shotProgressForEpisode } from '@/lib/shots/shot-sql';
-import type { BoardDto, CreateSegmentInput, Level, SegmentDto, SegmentKind, UpdateSegmentInput } from './schemas';
+import type { RunningOrderDto, CreateSegmentInput, Level, SegmentDto, SegmentKind, UpdateSegmentInput } from './schemas';
 
 type SegmentRow = {
   id: string;
@@ -50,11 +50,11 @@ const toSegmentDto = (r: SegmentRow): SegmentDto => ({
   scriptVersion: r.script_version,
 });
 
-/** The whole board in three statements, however many segments the episode has. */
-export async function getBoard(member: Membership, episodeId: string): Promise<BoardDto> {
+/** The whole running order in three statements, however many segments the episode has. */
+export async function getRunningOrder(member: Membership, episodeId: string): Promise<RunningOrderDto> {
   // The episode lookup is the channel check; the other two only run once it passed.
   const episode = await findEpisode(member.channel.id, episodeId);
-  const [rows, shotProgress]: [SegmentRow[], BoardDto['shotProgress']] = await Promise.all([
+  const [rows, shotProgress]: [SegmentRow[], RunningOrderDto['shotProgress']] = await Promise.all([
     db('segments as s').where('s.episode_id', episodeId).orderBy('s.position').select(segmentColumns),
     shotProgressForEpisode(episodeId),
   ]);
@@ -88,7 +88,7 @@ async function keyAfter(trx: Knex.Transaction, episodeId: string, afterId: strin
   let lower: string | null = null;
   if (afterId) {
     const after: { position: string } | undefined = await trx('segments').where({ id: afterId, episode_id: episodeId }).first('position');
-    if (!after) throw invalidInput({ afterId: 'That segment is not in this episode any more; reload the board.' });
+    if (!after) throw invalidInput({ afterId: 'That segment is not in this episode any more; reload the running order.' });
     lower = after.position;
   }
   const next: { position: string } | undefined = await trx('segments')

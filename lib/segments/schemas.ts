@@ -55,7 +55,7 @@ export type SegmentDto = {
   scriptVersion: number;
 };
 
-export type BoardDto = {
+export type RunningOrderDto = {
   episode: EpisodeDto;
   segments: SegmentDto[];
   forecast: EpisodeForecast;

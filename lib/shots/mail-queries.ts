@@ -5,7 +5,7 @@ import { appUrl } from '@/lib/config';
 import { sendMail } from '@/lib/mail/mailer';
 import { buildAssignmentMail, type MailShot } from './assignment-mail';
 import type { Camera, Framing } from './catalog';
-import { shotNumberColumn, shotsOfChannel } from './shot-sql';
+import { shotNumberColumn, shotsOfChannelWithDeleted } from './shot-sql';
 
 /** How long a burst of assignment changes collects before its one e-mail goes. */
 export const shotMailDelaySeconds = (): number => {
@@ -59,15 +59,15 @@ async function sendBurst(trx: Knex.Transaction, burst: { user_id: string; channe
   if (!user || !channel) return false;
   // Someone who left the crew hears nothing more from the channel; what they were told is forgotten.
   if (!member) {
-    await trx('shot_notices').where({ user_id: burst.user_id }).whereIn('shot_id', shotsOfChannel(trx, burst.channel_id).select('sh.id')).delete();
+    await trx('shot_notices').where({ user_id: burst.user_id }).whereIn('shot_id', shotsOfChannelWithDeleted(trx, burst.channel_id).select('sh.id')).delete();
     return false;
   }
-  const held: MailShotRow[] = await shotsOfChannel(trx, burst.channel_id)
+  const held: MailShotRow[] = await shotsOfChannelWithDeleted(trx, burst.channel_id)
     .where('sh.assignee_id', burst.user_id)
     .whereNull('sh.deleted_at')
     .orderBy(['e.title', 's.position', 'sh.position'])
     .select(mailShotColumns);
-  const told: MailShotRow[] = await shotsOfChannel(trx, burst.channel_id)
+  const told: MailShotRow[] = await shotsOfChannelWithDeleted(trx, burst.channel_id)
     .join('shot_notices as n', 'n.shot_id', 'sh.id')
     .where('n.user_id', burst.user_id)
     .orderBy(['e.title', 's.position', 'sh.position'])

@@ -10,7 +10,7 @@ import { openBursts } from './mail-queries';
 import { assertMayEditShot } from './policy';
 import { parseShotLines } from './quick-add';
 import { needsSafetyReview, type Tool } from './safety';
-import { shotNumberColumn, shotsOfChannel } from './shot-sql';
+import { shotNumberColumn, shotsOfChannelWithDeleted } from './shot-sql';
 import type { BoardQuery, BoardShotDto, CreateShotInput, ShotDto, ShotStateInput, UpdateShotInput } from './schemas';
 
 type Db = Knex | Knex.Transaction;
@@ -96,9 +96,9 @@ const toBoardShotDto = (r: BoardShotRow): BoardShotDto => ({
 });
 
 const shotsWithPeople = (trx: Db, channelId: string) =>
-  shotsOfChannel(trx, channelId).leftJoin('users as au', 'au.id', 'sh.assignee_id').leftJoin('users as cu', 'cu.id', 'sh.state_changed_by');
+  shotsOfChannelWithDeleted(trx, channelId).leftJoin('users as au', 'au.id', 'sh.assignee_id').leftJoin('users as cu', 'cu.id', 'sh.state_changed_by');
 
-export const channelShots = (trx: Db, channelId: string) => shotsWithPeople(trx, channelId).whereNull('sh.deleted_at');
+export const liveShotsOfChannel = (trx: Db, channelId: string) => shotsWithPeople(trx, channelId).whereNull('sh.deleted_at');
 
 async function findShotRow(trx: Db, channelId: string, shotId: string, opts: { deleted?: boolean } = {}): Promise<BoardShotRow> {
   const q = shotsWithPeople(trx, channelId).where('sh.id', shotId);
@@ -135,12 +135,12 @@ const lastPosition = async (trx: Db, segmentId: string): Promise<string | null> 
 
 const lastBoardPosition = async (trx: Db, channelId: string): Promise<string | null> =>
   (
-    (await shotsOfChannel(trx, channelId).max('sh.board_position as p').first()) as { p: string | null } | undefined
+    (await shotsOfChannelWithDeleted(trx, channelId).max('sh.board_position as p').first()) as { p: string | null } | undefined
   )?.p ?? null;
 
 export async function listSegmentShots(channelId: string, segmentId: string): Promise<ShotDto[]> {
   await findSegment(channelId, segmentId);
-  const rows: ShotRow[] = await channelShots(db, channelId).where('sh.segment_id', segmentId).orderBy('sh.position').select(shotColumns);
+  const rows: ShotRow[] = await liveShotsOfChannel(db, channelId).where('sh.segment_id', segmentId).orderBy('sh.position').select(shotColumns);
   return rows.map(toShotDto);
 }
 
@@ -175,7 +175,7 @@ async function insertShots(trx: Knex.Transaction, channelId: string, segmentId: 
   });
   const inserted = await trx('shots').insert(rows).returning<{ id: string }[]>('id');
   await openBursts(trx, channelId, assignees);
-  const full: ShotRow[] = await channelShots(trx, channelId)
+  const full: ShotRow[] = await liveShotsOfChannel(trx, channelId)
     .whereIn(
       'sh.id',
       inserted.map((r) => r.id),
@@ -300,11 +300,11 @@ export async function moveShot(channelId: string, shotId: string, afterId: strin
 async function boardKeyAfter(trx: Knex.Transaction, channelId: string, afterId: string | null, movingId: string): Promise<string> {
   let lower: string | null = null;
   if (afterId) {
-    const after: { board_position: string } | undefined = await channelShots(trx, channelId).where('sh.id', afterId).first('sh.board_position');
+    const after: { board_position: string } | undefined = await liveShotsOfChannel(trx, channelId).where('sh.id', afterId).first('sh.board_position');
     if (!after) throw invalidInput({ afterId: 'That card is not on the board any more; reload the board.' });
     lower = after.board_position;
   }
-  const next: { board_position: string } | undefined = await channelShots(trx, channelId)
+  const next: { board_position: string } | undefined = await liveShotsOfChannel(trx, channelId)
     .whereNot('sh.id', movingId)
     .modify((q) => {
       if (lower !== null) q.where('sh.board_position', '>', lower);
@@ -353,7 +353,7 @@ export async function listShotEvents(channelId: string, shotId: string) {
 
 /** The shop board: live shots of the channel (or one episode), in the board's own order. */
 export async function listBoardShots(channelId: string, query: BoardQuery): Promise<BoardShotDto[]> {
-  const rows: BoardShotRow[] = await channelShots(db, channelId)
+  const rows: BoardShotRow[] = await liveShotsOfChannel(db, channelId)
     .whereNull('e.archived_at')
     .modify((q) => {
       if (query.episodeId) q.where('e.id', query.episodeId);
@@ -369,7 +369,7 @@ export async function listBoardShots(channelId: string, query: BoardQuery): Prom
 
 /** Everything assigned to one person, by shoot date (undated last), episode, running order and shot number. */
 export async function listMyShots(channelId: string, userId: string): Promise<BoardShotDto[]> {
-  const rows: BoardShotRow[] = await channelShots(db, channelId)
+  const rows: BoardShotRow[] = await liveShotsOfChannel(db, channelId)
     .where('sh.assignee_id', userId)
     .whereNull('e.archived_at')
     .orderByRaw('coalesce(sh.due_date, e.shoot_date) asc nulls last, e.title, e.id, s.position, sh.position')
@@ -379,7 +379,7 @@ export async function listMyShots(channelId: string, userId: string): Promise<Bo
 
 /** Live shots of one episode in running order, archived or not (the shoot-day sheet prints either). */
 export async function listEpisodeShots(channelId: string, episodeId: string): Promise<ShotDto[]> {
-  const rows: ShotRow[] = await channelShots(db, channelId)
+  const rows: ShotRow[] = await liveShotsOfChannel(db, channelId)
     .where('e.id', episodeId)
     .orderBy([{ column: 's.position' }, { column: 'sh.position' }])
     .select(shotColumns);

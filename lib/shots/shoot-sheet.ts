@@ -3,7 +3,7 @@ import type { Membership } from '@/lib/channels/queries';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
 import { listEpisodeParts } from '@/lib/parts/queries';
 import type { PartDto } from '@/lib/parts/schemas';
-import { getBoard } from '@/lib/segments/queries';
+import { getRunningOrder } from '@/lib/segments/queries';
 import type { SegmentDto } from '@/lib/segments/schemas';
 import { getCutSettings } from '@/lib/stock/queries';
 import { listEpisodeShots } from './queries';
@@ -38,22 +38,22 @@ export const dueOn = (shot: Pick<ShotDto, 'dueDate'>, date: string | null): bool
  */
 export async function getShootSheet(member: Membership, episodeId: string, date?: string): Promise<ShootSheetDto> {
   const channelId = member.channel.id;
-  // getBoard checks the episode belongs to this channel before anything else is read.
-  const board = await getBoard(member, episodeId);
+  // getRunningOrder checks the episode belongs to this channel before anything else is read.
+  const runningOrder = await getRunningOrder(member, episodeId);
   const [parts, settings, allShots, safetyById] = await Promise.all([
     listEpisodeParts(channelId, episodeId),
     getCutSettings(channelId),
     listEpisodeShots(channelId, episodeId),
     listEpisodeSafety(channelId, episodeId),
   ]);
-  const details = board.segments.map((segment, i) => {
+  const details = runningOrder.segments.map((segment, i) => {
     const safety = safetyById.get(segment.id);
     if (!safety) throw new Error(`segment ${segment.id} has no safety row`);
     return { segment, position: i + 1, shots: allShots.filter((s) => s.segmentId === segment.id), safety };
   });
-  const day = date ?? board.episode.shootDate;
+  const day = date ?? runningOrder.episode.shootDate;
   return {
-    episode: board.episode,
+    episode: runningOrder.episode,
     date: day,
     lengthUnit: settings.lengthUnit,
     segments: details.map(({ shots, ...rest }) => {

@@ -7,7 +7,7 @@ import * as episodesRoute from '@/app/api/channels/[channel]/episodes/route';
 import * as positionRoute from '@/app/api/channels/[channel]/segments/[segmentId]/position/route';
 import * as segmentRoute from '@/app/api/channels/[channel]/segments/[segmentId]/route';
 import { db } from '@/db/client';
-import type { BoardDto } from '@/lib/segments/schemas';
+import type { RunningOrderDto } from '@/lib/segments/schemas';
 import { makeEpisode, makeOutlinedEpisode } from './episode-fixtures';
 import { addMember, call, makeCrew, makeUser } from './helpers';
 import { describeRouteMatrix, type RouteCase } from './route-matrix';
@@ -54,10 +54,10 @@ const cases: RouteCase[] = [
 
 describeRouteMatrix(cases);
 
-async function board(c: Awaited<ReturnType<typeof makeCrew>>, episodeId: string): Promise<BoardDto> {
+async function board(c: Awaited<ReturnType<typeof makeCrew>>, episodeId: string): Promise<RunningOrderDto> {
   const res = await call(boardRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug, episodeId } });
   expect(res.status).toBe(200);
-  return res.json as unknown as BoardDto;
+  return res.json as unknown as RunningOrderDto;
 }
 
 describe('episodes', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import * as boardRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/running-order/route';
 import * as scriptRoute from '@/app/api/channels/[channel]/segments/[segmentId]/script/route';
 import { db } from '@/db/client';
-import type { BoardDto } from '@/lib/segments/schemas';
+import type { RunningOrderDto } from '@/lib/segments/schemas';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew } from './helpers';
 import { describeRouteMatrix, type Crew } from './route-matrix';
@@ -76,7 +76,7 @@ describe('scripts', () => {
     const { episode, segments } = await makeOutlinedEpisode(c);
     const params = { channel: c.channel.slug, segmentId: segments[1]!.id };
     await call(scriptRoute.PUT, 'PUT', { as: c.host, params, body: { doc: doc('word '.repeat(300).trim()), baseVersion: 0 } });
-    const b = (await call(boardRoute.GET, 'GET', { as: c.shopHand, params: { channel: c.channel.slug, episodeId: episode.id } })).json as unknown as BoardDto;
+    const b = (await call(boardRoute.GET, 'GET', { as: c.shopHand, params: { channel: c.channel.slug, episodeId: episode.id } })).json as unknown as RunningOrderDto;
     // 300 words at 150 wpm = 120 s.
     expect(b.forecast.totalSeconds).toBe(120);
     expect(b.segments[1]).toMatchObject({ hasScript: true, wordCount: 300 });

@@ -8,7 +8,7 @@ import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
 import { listEpisodes } from '@/lib/episodes/queries';
-import { getBoard } from '@/lib/segments/queries';
+import { getRunningOrder } from '@/lib/segments/queries';
 import { countOpenBursts } from '@/lib/shots/mail-queries';
 import { listBoardShots, listMyShots } from '@/lib/shots/queries';
 import { listPendingSafety } from '@/lib/shots/safety-queries';
@@ -49,7 +49,7 @@ export default async function ShotsPage({ params, searchParams }: Props) {
   const [shots, pendingSafety, episodeBoard, waiting] = await Promise.all([
     listBoardShots(channel.id, filters),
     listPendingSafety(channel.id, filters.episodeId),
-    filters.episodeId ? getBoard(member, filters.episodeId) : null,
+    filters.episodeId ? getRunningOrder(member, filters.episodeId) : null,
     isHost ? countOpenBursts(channel.id) : 0,
   ]);
 
@@ -67,7 +67,7 @@ export default async function ShotsPage({ params, searchParams }: Props) {
         initial={{ filters, data: { shots, pendingSafety } }}
         episodes={episodes.map((e) => ({ id: e.id, title: e.title }))}
         assignees={crew.filter((m) => m.role !== 'editor').map((m) => ({ userId: m.userId, name: m.name, role: m.role }))}
-        initialEpisodeBoard={episodeBoard}
+        initialRunningOrder={episodeBoard}
       />
     </>
   );

@@ -1,13 +1,13 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { RunningOrderBoard } from '@/components/running-order/running-order-list';
+import { RunningOrderList } from '@/components/running-order/running-order-list';
 import { StarterButton } from '@/components/episodes/starter-button';
 import { buttonClasses } from '@/components/ui/button';
 import { requireMember } from '@/lib/auth/session';
 import { stageLabels } from '@/lib/episodes/schemas';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { formatDuration } from '@/lib/runtime';
-import { getBoard } from '@/lib/segments/queries';
+import { getRunningOrder } from '@/lib/segments/queries';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 export const metadata: Metadata = { title: 'Running order' };
@@ -15,8 +15,8 @@ export const metadata: Metadata = { title: 'Running order' };
 export default async function EpisodePage({ params }: { params: Promise<{ channel: string; episodeId: string }> }) {
   const { channel, episodeId } = await params;
   const member = await requireMember(channel);
-  const board = await orNotFound(getBoard(member, uuidOr404(episodeId)));
-  const { episode } = board;
+  const runningOrder = await orNotFound(getRunningOrder(member, uuidOr404(episodeId)));
+  const { episode } = runningOrder;
   const base = `/c/${member.channel.slug}/episodes`;
   return (
     <>
@@ -51,19 +51,19 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
           <Link href={`${base}/${episode.id}/shoot-sheet`} className={buttonClasses('secondary')}>
             Shoot-day sheet
           </Link>
-          {board.canEdit ? (
+          {runningOrder.canEdit ? (
             <Link href={`${base}/${episode.id}/edit`} className={buttonClasses('secondary')}>
               Edit episode
             </Link>
           ) : null}
         </div>
       </header>
-      {board.canEdit && board.segments.length === 0 ? (
+      {runningOrder.canEdit && runningOrder.segments.length === 0 ? (
         <div className="mb-6">
           <StarterButton channelSlug={member.channel.slug} episodeId={episode.id} />
         </div>
       ) : null}
-      <RunningOrderBoard channelSlug={member.channel.slug} initialBoard={board} />
+      <RunningOrderList channelSlug={member.channel.slug} initialRunningOrder={runningOrder} />
     </>
   );
 }

@@ -4,19 +4,19 @@ import { EpisodeForm } from '@/components/episodes/episode-form';
 import { PageHeader } from '@/components/ui/page-header';
 import { requireMember } from '@/lib/auth/session';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
-import { getBoard } from '@/lib/segments/queries';
+import { getRunningOrder } from '@/lib/segments/queries';
 
 export const metadata: Metadata = { title: 'Edit episode' };
 
 export default async function EditEpisodePage({ params }: { params: Promise<{ channel: string; episodeId: string }> }) {
   const { channel, episodeId } = await params;
   const member = await requireMember(channel, 'episodes.edit');
-  const board = await orNotFound(getBoard(member, uuidOr404(episodeId)));
+  const runningOrder = await orNotFound(getRunningOrder(member, uuidOr404(episodeId)));
   return (
     <>
-      <PageHeader title={`Edit “${board.episode.title}”`} />
-      <EpisodeForm channelSlug={member.channel.slug} episode={board.episode} />
-      <EpisodeDangerZone channelSlug={member.channel.slug} episode={board.episode} segmentCount={board.segments.length} />
+      <PageHeader title={`Edit “${runningOrder.episode.title}”`} />
+      <EpisodeForm channelSlug={member.channel.slug} episode={runningOrder.episode} />
+      <EpisodeDangerZone channelSlug={member.channel.slug} episode={runningOrder.episode} segmentCount={runningOrder.segments.length} />
     </>
   );
 }

@@ -1,5 +1,5 @@
 import { route } from '@/lib/api/handler';
 import { episodeParamsSchema } from '@/lib/episodes/schemas';
-import { getBoard } from '@/lib/segments/queries';
+import { getRunningOrder } from '@/lib/segments/queries';
 
-export const GET = route({ params: episodeParamsSchema, channel: 'scripts.read' }, async ({ member, params }) => getBoard(member, params.episodeId));
+export const GET = route({ params: episodeParamsSchema, channel: 'scripts.read' }, async ({ member, params }) => getRunningOrder(member, params.episodeId));

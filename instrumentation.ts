@@ -2,7 +2,7 @@
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
   if (process.env.KERFLINE_MAIL_WORKER !== 'off') {
-    const { startShotMailWorker } = await import('./lib/shots/mail-worker');
+    const { startShotMailWorker } = await import('./lib/mail/assignment-worker');
     startShotMailWorker();
   }
   if (process.env.KERFLINE_CLIP_WORKER !== 'off') {

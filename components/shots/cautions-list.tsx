@@ -1,4 +1,4 @@
-import { cautionsFor, SAFETY_DEFERENCE, type Tool } from '@/lib/shots/safety';
+import { cautionsFor, SAFETY_DEFERENCE, type Tool } from '@/lib/safety/tools';
 
 type Props = {
   tools: readonly Tool[];

@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import type { FieldErrors } from '@/lib/errors';
-import { needsSafetyReview, toolInfo, tools, type Tool } from '@/lib/shots/safety';
+import { needsSafetyReview, toolInfo, tools, type Tool } from '@/lib/safety/tools';
 import type { SegmentSafetyDto } from '@/lib/shots/schemas';
 import { CautionsList } from './cautions-list';
 import { useSafetyReview, useSaveTools, useSegmentSafety } from './use-shots';

@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import { moveAfter } from '@/lib/segments/order';
-import type { Tool } from '@/lib/shots/safety';
+import type { Tool } from '@/lib/safety/tools';
 import type { SegmentSafetyDto, ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 
 export const segmentShotsKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId] as const;

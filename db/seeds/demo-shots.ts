@@ -1,7 +1,7 @@
 import { generateNKeysBetween } from 'fractional-indexing';
 import type { Knex } from 'knex';
 import type { Camera, Framing, ShotState } from '../../lib/shots/catalog';
-import type { Tool } from '../../lib/shots/safety';
+import type { Tool } from '../../lib/safety/tools';
 
 type DemoShot = { framing: Framing; camera: Camera; description: string; toShop?: boolean; state?: ShotState; reason?: string };
 type DemoSegmentShots = { title: string; tools: Tool[]; reviewed: boolean; shots: DemoShot[] };

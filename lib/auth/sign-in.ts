@@ -2,7 +2,7 @@ import 'server-only';
 import { credentialsSchema, type UserDto } from '@/lib/users/schemas';
 import { findCredentialsByEmail } from '@/lib/users/queries';
 import { burnPasswordCheck, verifyPassword } from './password';
-import { clearFailures, emailKey, ipKey, isThrottled, recordFailure } from './throttle';
+import { clearFailures, emailKey, ipKey, isThrottled, recordFailure } from './throttle-queries';
 
 export const SIGN_IN_FAILED_MESSAGE =
   'That e-mail and password did not match, or there were too many tries. Check them, or wait 15 minutes and try again.';

@@ -6,10 +6,10 @@ import type { Membership } from '@/lib/channels/queries';
 import { conflict, invalidInput, notFound } from '@/lib/errors';
 import type { Camera, Framing, ShotState } from './catalog';
 import { findSegment } from '@/lib/segments/queries';
-import { openBursts } from './mail-queries';
+import { openBursts } from '@/lib/mail/assignment-queries';
 import { assertMayEditShot } from './policy';
 import { parseShotLines } from './quick-add';
-import { needsSafetyReview, type Tool } from './safety';
+import { needsSafetyReview, type Tool } from '@/lib/safety/tools';
 import { shotNumberColumn, shotsOfChannelWithDeleted } from './shot-sql';
 import type { BoardQuery, BoardShotDto, CreateShotInput, ShotDto, ShotStateInput, UpdateShotInput } from './schemas';
 

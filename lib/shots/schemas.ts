@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { dateSchema } from '@/lib/episodes/schemas';
 import { cameras, framings, MAX_DESCRIPTION, shotStates, type Camera, type Framing, type ShotState } from './catalog';
-import { tools, type Tool } from './safety';
+import { tools, type Tool } from '@/lib/safety/tools';
 
 const fields = {
   description: z

@@ -7,7 +7,7 @@ import { getRunningOrder } from '@/lib/segments/queries';
 import type { SegmentDto } from '@/lib/segments/schemas';
 import { getCutSettings } from '@/lib/stock/queries';
 import { listEpisodeShots } from './queries';
-import { listEpisodeSafety } from './safety-queries';
+import { listEpisodeSafety } from '@/lib/safety/queries';
 import type { SegmentSafetyDto, ShotDto } from './schemas';
 
 export type ShootSheetSegment = {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { findMembership } from '@/lib/channels/queries';
 import { createShot } from '@/lib/shots/queries';
-import { setSegmentTools } from '@/lib/shots/safety-queries';
+import { setSegmentTools } from '@/lib/safety/queries';
 import { getShootSheet } from '@/lib/shots/shoot-sheet';
 import { makeCrew } from './helpers';
 import { makeShotEpisode } from './shot-fixtures';

@@ -3,7 +3,7 @@ import * as shotMailRoute from '@/app/api/channels/[channel]/shot-mail/route';
 import * as bulkRoute from '@/app/api/channels/[channel]/segments/[segmentId]/shots/bulk/route';
 import * as shotRoute from '@/app/api/channels/[channel]/shots/[shotId]/route';
 import { db } from '@/db/client';
-import { sendShotMail } from '@/lib/shots/mail-queries';
+import { sendShotMail } from '@/lib/mail/assignment-queries';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew, waitForMail } from './helpers';

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { POST as signUpRoute } from '@/app/api/sign-up/route';
 import { db } from '@/db/client';
 import { authorizeCredentials } from '@/lib/auth/sign-in';
-import { THROTTLE_LIMIT } from '@/lib/auth/throttle';
+import { THROTTLE_LIMIT } from '@/lib/auth/throttle-queries';
 import { call, makeUser, PASSWORD, uniqueEmail } from './helpers';
 
 describe('sign-up', () => {

@@ -9,9 +9,9 @@ import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
 import { listEpisodes } from '@/lib/episodes/queries';
 import { getRunningOrder } from '@/lib/segments/queries';
-import { countOpenBursts } from '@/lib/shots/mail-queries';
+import { countOpenBursts } from '@/lib/mail/assignment-queries';
 import { listBoardShots, listMyShots } from '@/lib/shots/queries';
-import { listPendingSafety } from '@/lib/shots/safety-queries';
+import { listPendingSafety } from '@/lib/safety/queries';
 
 export const metadata: Metadata = { title: 'Shots' };
 

@@ -1,6 +1,6 @@
 import { created, route } from '@/lib/api/handler';
 import { channelParamsSchema } from '@/lib/channels/schemas';
-import { deliverInvitation } from '@/lib/crew/invite';
+import { deliverInvitation } from '@/lib/mail/invitation-delivery';
 import { createInvitation, listOpenInvitations } from '@/lib/crew/queries';
 import { inviteSchema } from '@/lib/crew/schemas';
 

@@ -1,6 +1,6 @@
 import { route } from '@/lib/api/handler';
 import { channelParamsSchema } from '@/lib/channels/schemas';
-import { countOpenBursts, sendShotMail } from '@/lib/shots/mail-queries';
+import { countOpenBursts, sendShotMail } from '@/lib/mail/assignment-queries';
 
 export const GET = route({ params: channelParamsSchema, channel: 'shots.edit' }, async ({ member }) => ({
   waiting: await countOpenBursts(member.channel.id),

@@ -1,5 +1,5 @@
 import { route } from '@/lib/api/handler';
-import { deliverInvitation } from '@/lib/crew/invite';
+import { deliverInvitation } from '@/lib/mail/invitation-delivery';
 import { renewInvitation } from '@/lib/crew/queries';
 import { invitationParamsSchema } from '@/lib/crew/schemas';
 

@@ -1,5 +1,5 @@
 import { route } from '@/lib/api/handler';
-import { setSafetyReview } from '@/lib/shots/safety-queries';
+import { setSafetyReview } from '@/lib/safety/queries';
 import { safetyReviewSchema, segmentShotsParamsSchema } from '@/lib/shots/schemas';
 
 export const PUT = route({ params: segmentShotsParamsSchema, body: safetyReviewSchema, channel: 'safety.review' }, async ({ member, params, body }) => ({

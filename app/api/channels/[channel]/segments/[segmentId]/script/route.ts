@@ -1,5 +1,5 @@
 import { route } from '@/lib/api/handler';
-import { getScript, saveScript } from '@/lib/segments/script-queries';
+import { getScript, saveScript } from '@/lib/scripts/queries';
 import { segmentParamsSchema } from '@/lib/segments/schemas';
 import { saveScriptSchema } from '@/lib/scripts/schemas';
 

@@ -1,5 +1,5 @@
 import { route } from '@/lib/api/handler';
-import { getSegmentSafety, setSegmentTools } from '@/lib/shots/safety-queries';
+import { getSegmentSafety, setSegmentTools } from '@/lib/safety/queries';
 import { segmentShotsParamsSchema, segmentToolsSchema } from '@/lib/shots/schemas';
 
 export const GET = route({ params: segmentShotsParamsSchema, channel: 'member' }, async ({ member, params }) => ({

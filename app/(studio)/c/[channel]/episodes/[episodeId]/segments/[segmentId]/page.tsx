@@ -19,9 +19,9 @@ import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { formatDuration, spokenSeconds } from '@/lib/runtime';
 import { findSegment } from '@/lib/segments/queries';
 import { kindLabels } from '@/lib/segments/schemas';
-import { getScript } from '@/lib/segments/script-queries';
+import { getScript } from '@/lib/scripts/queries';
 import { listSegmentShots } from '@/lib/shots/queries';
-import { getSegmentSafety } from '@/lib/shots/safety-queries';
+import { getSegmentSafety } from '@/lib/safety/queries';
 import { listStock } from '@/lib/stock/queries';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
 

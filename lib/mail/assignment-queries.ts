@@ -4,8 +4,8 @@ import { db } from '@/db/client';
 import { appUrl } from '@/lib/config';
 import { sendMail } from '@/lib/mail/mailer';
 import { buildAssignmentMail, type MailShot } from './assignment-mail';
-import type { Camera, Framing } from './catalog';
-import { shotNumberColumn, shotsOfChannelWithDeleted } from './shot-sql';
+import type { Camera, Framing } from '@/lib/shots/catalog';
+import { shotNumberColumn, shotsOfChannelWithDeleted } from '@/lib/shots/shot-sql';
 
 /** How long a burst of assignment changes collects before its one e-mail goes. */
 export const shotMailDelaySeconds = (): number => {

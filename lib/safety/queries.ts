@@ -3,8 +3,8 @@ import type { Knex } from 'knex';
 import { db } from '@/db/client';
 import type { Membership } from '@/lib/channels/queries';
 import { invalidInput, notFound } from '@/lib/errors';
-import { needsSafetyReview, type Tool } from './safety';
-import type { SegmentSafetyDto, SegmentToolsInput } from './schemas';
+import { needsSafetyReview, type Tool } from './tools';
+import type { SegmentSafetyDto, SegmentToolsInput } from '@/lib/shots/schemas';
 
 type SafetyRow = { id: string; tools: Tool[]; other_tool: string; reviewer: string | null; safety_reviewed_at: Date | null };
 

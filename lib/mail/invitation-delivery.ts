@@ -4,8 +4,8 @@ import { appUrl } from '@/lib/config';
 import { buildInvitationMail } from '@/lib/mail/invitation-mail';
 import { sendMail } from '@/lib/mail/mailer';
 import type { UserDto } from '@/lib/users/schemas';
-import { markInvitationSent } from './queries';
-import type { InvitationDto } from './schemas';
+import { markInvitationSent } from '@/lib/crew/queries';
+import type { InvitationDto } from '@/lib/crew/schemas';
 
 export const acceptPath = (token: string) => `/invite/${token}`;
 

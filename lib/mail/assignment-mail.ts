@@ -1,6 +1,6 @@
 import { escapeHtml } from '@/lib/mail/escape';
 import type { Mail } from '@/lib/mail/mailer';
-import { cameraLabels, framingLabels, type Camera, type Framing } from './catalog';
+import { cameraLabels, framingLabels, type Camera, type Framing } from '@/lib/shots/catalog';
 
 export type MailShot = {
   number: number;

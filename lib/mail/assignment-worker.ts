@@ -1,6 +1,6 @@
 import 'server-only';
 import { pollEvery } from '@/lib/jobs/poll';
-import { sendShotMail } from './mail-queries';
+import { sendShotMail } from './assignment-queries';
 
 const state = globalThis as unknown as { kerflineShotMailTimer?: NodeJS.Timeout };
 

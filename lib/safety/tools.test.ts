@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cautionsFor, needsSafetyReview, SAFETY_DEFERENCE, toolInfo, tools } from './safety';
+import { cautionsFor, needsSafetyReview, SAFETY_DEFERENCE, toolInfo, tools } from './tools';
 
 describe('shop safety', () => {
   it('needs a review for any power tool, and for an unnamed "other" tool', () => {

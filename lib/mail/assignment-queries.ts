@@ -5,7 +5,7 @@ import { appUrl } from '@/lib/config';
 import { sendMail } from '@/lib/mail/mailer';
 import { buildAssignmentMail, type MailShot } from './assignment-mail';
 import type { Camera, Framing } from '@/lib/shots/catalog';
-import { shotNumberColumn, shotsOfChannelWithDeleted } from '@/lib/shots/shot-sql';
+import { shotNumberColumn, shotsOfChannelWithDeleted } from '@/lib/shots/shared-queries';
 
 /** How long a burst of assignment changes collects before its one e-mail goes. */
 export const shotMailDelaySeconds = (): number => {

@@ -8,7 +8,7 @@ import { findEpisode, lockEpisode } from '@/lib/episodes/queries';
 import { threeLevelBuild } from '@/lib/episodes/starter';
 import { invalidInput, notFound } from '@/lib/errors';
 import { forecastEpisode } from '@/lib/runtime';
-import { shotProgressForEpisode } from '@/lib/shots/shot-sql';
+import { shotProgressForEpisode } from '@/lib/shots/shared-queries';
 import type { RunningOrderDto, CreateSegmentInput, Level, SegmentDto, SegmentKind, UpdateSegmentInput } from './schemas';
 
 type SegmentRow = {

@@ -10,7 +10,7 @@ import { openBursts } from '@/lib/mail/assignment-queries';
 import { assertMayEditShot } from './policy';
 import { parseShotLines } from './quick-add';
 import { needsSafetyReview, type Tool } from '@/lib/safety/tools';
-import { shotNumberColumn, shotsOfChannelWithDeleted } from './shot-sql';
+import { shotNumberColumn, shotsOfChannelWithDeleted } from './shared-queries';
 import type { BoardQuery, BoardShotDto, CreateShotInput, ShotDto, ShotStateInput, UpdateShotInput } from './schemas';
 
 type Db = Knex | Knex.Transaction;

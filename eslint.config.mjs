@@ -23,10 +23,21 @@ export default tseslint.config(
     },
   },
   {
-    // Knex is reached only through lib/<domain>/queries.ts and db/.
-    files: ['app/**/*.{ts,tsx}', 'components/**/*.{ts,tsx}'],
+    // Knex is reached only through queries files (lib/<domain>/queries.ts, *-queries.ts), db/ and tests/;
+    // knexfile, the db-setup script and the benches (which make throwaway channels) are the other users.
+    files: ['**/*.{ts,tsx,mts}'],
+    ignores: ['**/queries.ts', '**/*-queries.ts', 'db/**', 'tests/**', 'bench/**', 'knexfile.ts', 'scripts/db-setup.ts'],
     rules: {
-      'no-restricted-imports': ['error', { paths: [{ name: 'knex', message: 'Use lib/<domain>/queries.ts.' }, { name: '@/db/client', message: 'Use lib/<domain>/queries.ts.' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            { name: 'knex', message: 'Put the SQL in a queries file (lib/<domain>/queries.ts).' },
+            { name: 'pg', message: 'Put the SQL in a queries file (lib/<domain>/queries.ts).' },
+          ],
+          patterns: [{ group: ['@/db/client', '**/db/client'], message: 'Put the SQL in a queries file (lib/<domain>/queries.ts).' }],
+        },
+      ],
     },
   },
   { files: ['scripts/**/*.mjs', '*.mjs'], languageOptions: { globals: globals.node } },

@@ -1,8 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import type { Upload } from '@tus/server';
-import { db } from '@/db/client';
-import { recordClipOnce } from '@/lib/clips/queries';
+import { findClipIdByUpload, recordClipOnce } from '@/lib/clips/queries';
 import type { ClipStore } from './clip-store';
 import { tusError } from './tus-errors';
 
@@ -19,8 +18,8 @@ export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ 
   const { segmentId, shotId, filename, filetype, uploaderId } = meta;
   if (!segmentId || !filename || !filetype || !uploaderId) throw tusError(400, 'This upload has no clip details; start it again.');
   // A retried finish finds its row and does not hash the bytes again.
-  const existing: { id: string } | undefined = await db('clips').where({ upload_id: upload.id }).first('id');
-  if (existing) return { clipId: existing.id, created: false };
+  const existing = await findClipIdByUpload(upload.id);
+  if (existing) return { clipId: existing, created: false };
   const sha256 = await sha256Of(await store.read(upload.id));
   try {
     return await recordClipOnce({

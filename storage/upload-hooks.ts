@@ -4,6 +4,7 @@ import { NextRequest } from 'next/server';
 import { can } from '@/lib/auth/policy';
 import { getUserFromRequest } from '@/lib/auth/session';
 import { displayName } from '@/lib/clips/names';
+import { DELETE_OWN_ONLY, mayDeleteClip } from '@/lib/clips/policy';
 import { findUploadTarget, roleInChannel } from '@/lib/clips/queries';
 import { isAcceptedType, uploadMetadataSchema } from '@/lib/clips/schemas';
 import type { UserDto } from '@/lib/users/schemas';
@@ -32,6 +33,8 @@ export function uploadHooks(store: ClipStore) {
       const role = await roleInChannel(user.id, meta.channelId);
       if (!role) throw notYours();
       if (!can(role, 'clips.upload')) throw tusError(403, 'Your role on this channel does not allow uploading clips.');
+      // Cancelling an upload deletes its bytes: the same rule as deleting a recorded clip.
+      if (req.method === 'DELETE' && !mayDeleteClip(role, meta.uploaderId, user.id)) throw tusError(403, DELETE_OWN_ONLY);
     },
 
     async onUploadCreate(req: Request, upload: Upload): Promise<{ metadata: Record<string, string> }> {

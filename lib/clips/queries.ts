@@ -1,10 +1,11 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/client';
-import { can, type Role } from '@/lib/auth/policy';
+import type { Role } from '@/lib/auth/policy';
 import type { Membership } from '@/lib/channels/queries';
 import { forbidden, notFound } from '@/lib/errors';
 import { findSegment } from '@/lib/segments/queries';
+import { DELETE_OWN_ONLY, mayDeleteClip } from './policy';
 import type { MediaInfo } from './probe';
 import type { ClipDto, ProbeState } from './schemas';
 
@@ -159,11 +160,16 @@ export async function deleteClipRow(member: Membership, clipId: string): Promise
       .forUpdate('c')
       .first('c.upload_id', 'c.uploaded_by');
     if (!row) throw notFound('That clip');
-    const own = row.uploaded_by === member.userId && can(member.role, 'clips.deleteOwn');
-    if (!can(member.role, 'clips.delete') && !own) throw forbidden('A Shop hand deletes only the clips they uploaded.');
+    if (!mayDeleteClip(member.role, row.uploaded_by, member.userId)) throw forbidden(DELETE_OWN_ONLY);
     await trx('clips').where({ id: clipId }).delete();
     return { uploadId: row.upload_id };
   });
+}
+
+/** The clip a finished upload already became, if any: a retried finish must not record it twice. */
+export async function findClipIdByUpload(uploadId: string): Promise<string | null> {
+  const row: { id: string } | undefined = await db('clips').where({ upload_id: uploadId }).first('id');
+  return row?.id ?? null;
 }
 
 export async function uploadIdsInUse(uploadIds: string[]): Promise<Set<string>> {

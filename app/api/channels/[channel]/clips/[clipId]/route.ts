@@ -8,7 +8,7 @@ export const GET = route({ params: clipParamsSchema, channel: 'clips.read' }, as
   return { clip };
 });
 
-// The route lets a Shop hand in; deleteClipRow then holds them to their own uploads.
+// The route lets a Shop hand in; deleteClipRow then holds them to their own uploads (lib/clips/policy.ts).
 export const DELETE = route({ params: clipParamsSchema, channel: 'clips.deleteOwn' }, async ({ member, params }) => {
   const { uploadId } = await deleteClipRow(member, params.clipId);
   const store = clipStore();

@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import type { RunningOrderDto } from '@/lib/segments/schemas';
 import { toolInfo } from '@/lib/safety/tools';
-import type { PendingSafetyDto } from '@/lib/safety/queries';
+import type { PendingSafetyDto } from '@/lib/safety/schemas';
 import { BoardFilterBar, type AssigneeOption, type EpisodeOption } from './board-filters';
 import { filtersToSearch, sameFilters, segmentHref, type BoardFilters } from './board-query';
 import { DesktopBoard } from './desktop-board';

@@ -6,7 +6,7 @@ import { apiFetch } from '@/lib/api/client';
 import { moveAfter } from '@/lib/segments/order';
 import type { RunningOrderDto } from '@/lib/segments/schemas';
 import type { ShotState } from '@/lib/shots/catalog';
-import type { PendingSafetyDto } from '@/lib/safety/queries';
+import type { PendingSafetyDto } from '@/lib/safety/schemas';
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { filtersToSearch, type BoardFilters } from './board-query';
 

@@ -7,7 +7,7 @@ import { TextField } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import type { FieldErrors } from '@/lib/errors';
 import { needsSafetyReview, toolInfo, tools, type Tool } from '@/lib/safety/tools';
-import type { SegmentSafetyDto } from '@/lib/shots/schemas';
+import type { SegmentSafetyDto } from '@/lib/safety/schemas';
 import { CautionsList } from './cautions-list';
 import { useSafetyReview, useSaveTools, useSegmentSafety } from './use-shots';
 

@@ -4,7 +4,8 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import { moveAfter } from '@/lib/segments/order';
 import type { Tool } from '@/lib/safety/tools';
-import type { SegmentSafetyDto, ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
+import type { SegmentSafetyDto } from '@/lib/safety/schemas';
+import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 
 export const segmentShotsKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId] as const;
 export const segmentSafetyKey = (slug: string, segmentId: string) => ['safety', slug, 'segment', segmentId] as const;

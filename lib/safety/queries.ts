@@ -4,7 +4,7 @@ import { db } from '@/db/client';
 import type { Membership } from '@/lib/channels/queries';
 import { invalidInput, notFound } from '@/lib/errors';
 import { needsSafetyReview, type Tool } from './tools';
-import type { SegmentSafetyDto, SegmentToolsInput } from '@/lib/shots/schemas';
+import type { PendingSafetyDto, SegmentSafetyDto, SegmentToolsInput } from './schemas';
 
 type SafetyRow = { id: string; tools: Tool[]; other_tool: string; reviewer: string | null; safety_reviewed_at: Date | null };
 
@@ -65,8 +65,6 @@ export async function setSafetyReview(member: Membership, segmentId: string, rev
     return toSafetyDto(await findSafetyRow(trx, member.channel.id, segmentId));
   });
 }
-
-export type PendingSafetyDto = { segmentId: string; segmentTitle: string; episodeId: string; episodeTitle: string; tools: Tool[] };
 
 /** Power-tool segments that have shots and still wait for the Host's review. */
 export async function listPendingSafety(channelId: string, episodeId?: string): Promise<PendingSafetyDto[]> {

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { dateSchema } from '@/lib/episodes/schemas';
 import { cameras, framings, MAX_DESCRIPTION, shotStates, type Camera, type Framing, type ShotState } from './catalog';
-import { tools, type Tool } from '@/lib/safety/tools';
+import type { Tool } from '@/lib/safety/tools';
 
 const fields = {
   description: z
@@ -62,18 +62,6 @@ export const shotStateSchema = z
   });
 export type ShotStateInput = z.infer<typeof shotStateSchema>;
 
-export const segmentToolsSchema = z
-  .strictObject({
-    tools: z.array(z.enum(tools, { error: 'Choose tools from the list.' }), { error: 'Choose tools from the list.' }).max(tools.length),
-    otherTool: z.string({ error: 'Name the other tool.' }).trim().max(80, 'Keep the tool name under 80 characters.').default(''),
-  })
-  .superRefine((v, ctx) => {
-    if (v.tools.includes('other') && !v.otherTool) ctx.addIssue({ code: 'custom', path: ['otherTool'], message: 'Name the other tool.' });
-  });
-export type SegmentToolsInput = z.infer<typeof segmentToolsSchema>;
-
-export const safetyReviewSchema = z.strictObject({ reviewed: z.boolean({ error: 'Say whether the safety review is done.' }) });
-
 export const boardQuerySchema = z.object({
   episodeId: z.uuid({ error: 'Not an episode.' }).optional(),
   segmentId: z.uuid({ error: 'Not a segment.' }).optional(),
@@ -115,15 +103,6 @@ export type BoardShotDto = ShotDto & {
   segmentPosition: string;
   tools: Tool[];
   safetyPending: boolean;
-};
-
-export type SegmentSafetyDto = {
-  segmentId: string;
-  tools: Tool[];
-  otherTool: string;
-  needsReview: boolean;
-  reviewedBy: string | null;
-  reviewedAt: string | null;
 };
 
 export type ShotProgress = { total: number; captured: number; retake: number };

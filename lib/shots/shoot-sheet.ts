@@ -8,7 +8,8 @@ import type { SegmentDto } from '@/lib/segments/schemas';
 import { getCutSettings } from '@/lib/stock/queries';
 import { listEpisodeShots } from './queries';
 import { listEpisodeSafety } from '@/lib/safety/queries';
-import type { SegmentSafetyDto, ShotDto } from './schemas';
+import type { SegmentSafetyDto } from '@/lib/safety/schemas';
+import type { ShotDto } from './schemas';
 
 export type ShootSheetSegment = {
   segment: SegmentDto;

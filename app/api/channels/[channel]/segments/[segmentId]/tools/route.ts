@@ -1,6 +1,7 @@
 import { route } from '@/lib/api/handler';
 import { getSegmentSafety, setSegmentTools } from '@/lib/safety/queries';
-import { segmentShotsParamsSchema, segmentToolsSchema } from '@/lib/shots/schemas';
+import { segmentToolsSchema } from '@/lib/safety/schemas';
+import { segmentShotsParamsSchema } from '@/lib/shots/schemas';
 
 export const GET = route({ params: segmentShotsParamsSchema, channel: 'member' }, async ({ member, params }) => ({
   safety: await getSegmentSafety(member.channel.id, params.segmentId),

@@ -1,11 +1,15 @@
 // Next.js calls register() once per server process; background work starts here, never in a request.
 export async function register(): Promise<void> {
+  // Next's own variable, read literally so the edge bundle drops everything below.
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
-  if (process.env.KERFLINE_MAIL_WORKER !== 'off') {
+  // Validates the whole environment now, so a bad value stops the server at start with its name.
+  const { config } = await import('./lib/config');
+  const env = config();
+  if (env.KERFLINE_MAIL_WORKER) {
     const { startShotMailWorker } = await import('./lib/mail/assignment-worker');
     startShotMailWorker();
   }
-  if (process.env.KERFLINE_CLIP_WORKER !== 'off') {
+  if (env.KERFLINE_CLIP_WORKER) {
     const { startClipWorker } = await import('./storage/worker');
     startClipWorker();
   }

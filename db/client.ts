@@ -1,6 +1,7 @@
 import knex, { type Knex } from 'knex';
 import pg from 'pg';
 import config from '../knexfile';
+import { config as env } from '../lib/config';
 
 // A calendar date (shoot date, due date) has no time zone; keep it as the 'YYYY-MM-DD' text PostgreSQL sends.
 pg.types.setTypeParser(pg.types.builtins.DATE, (value: string) => value);
@@ -9,4 +10,4 @@ pg.types.setTypeParser(pg.types.builtins.DATE, (value: string) => value);
 const globalForDb = globalThis as unknown as { kerflineDb?: Knex };
 
 export const db: Knex = globalForDb.kerflineDb ?? knex(config);
-if (process.env.NODE_ENV !== 'production') globalForDb.kerflineDb = db;
+if (env().NODE_ENV !== 'production') globalForDb.kerflineDb = db;

@@ -1,10 +1,11 @@
 import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
+import { config } from '@/lib/config';
 import { authorizeCredentials, clientIp } from './sign-in';
 
 export const authOptions: NextAuthOptions = {
-  secret: process.env.NEXTAUTH_SECRET,
+  secret: config().NEXTAUTH_SECRET,
   session: { strategy: 'jwt', maxAge: 30 * 24 * 60 * 60 },
   pages: { signIn: '/sign-in', error: '/sign-in' },
   providers: [

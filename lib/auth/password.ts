@@ -1,7 +1,8 @@
 import bcrypt from 'bcryptjs';
+import { config } from '@/lib/config';
 
 // OWASP Password Storage Cheat Sheet: bcrypt with a work factor of at least 10.
-const COST = process.env.NODE_ENV === 'test' ? 4 : 12;
+const COST = config().NODE_ENV === 'test' ? 4 : 12;
 
 export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, COST);

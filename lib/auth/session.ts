@@ -4,13 +4,14 @@ import { getToken } from 'next-auth/jwt';
 import { forbidden, notFound, redirect } from 'next/navigation';
 import type { NextRequest } from 'next/server';
 import { findMembership, type Membership } from '@/lib/channels/queries';
+import { config } from '@/lib/config';
 import { findUserById } from '@/lib/users/queries';
 import type { UserDto } from '@/lib/users/schemas';
 import { authOptions } from './options';
 import { can, type Capability } from './policy';
 
 export async function getUserFromRequest(req: NextRequest): Promise<UserDto | null> {
-  const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET });
+  const token = await getToken({ req, secret: config().NEXTAUTH_SECRET });
   return token?.sub ? findUserById(token.sub) : null;
 }
 

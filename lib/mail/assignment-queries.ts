@@ -1,17 +1,14 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/client';
-import { appUrl } from '@/lib/config';
+import { appUrl, config } from '@/lib/config';
 import { sendMail } from '@/lib/mail/mailer';
 import { buildAssignmentMail, type MailShot } from './assignment-mail';
 import type { Camera, Framing } from '@/lib/shots/catalog';
 import { shotNumberColumn, shotsOfChannelWithDeleted } from '@/lib/shots/shared-queries';
 
 /** How long a burst of assignment changes collects before its one e-mail goes. */
-export const shotMailDelaySeconds = (): number => {
-  const v = Number(process.env.SHOT_MAIL_DELAY_SECONDS ?? 180);
-  return Number.isFinite(v) && v >= 0 ? v : 180;
-};
+export const shotMailDelaySeconds = (): number => config().SHOT_MAIL_DELAY_SECONDS;
 
 /** Opens (or keeps) one burst per person; the first change of a burst sets when it is sent. */
 export async function openBursts(trx: Knex.Transaction, channelId: string, userIds: (string | null | undefined)[]): Promise<void> {

@@ -1,5 +1,6 @@
 import 'server-only';
 import nodemailer, { type Transporter } from 'nodemailer';
+import { config } from '@/lib/config';
 
 export type Mail = { to: string; subject: string; text: string; html: string };
 
@@ -7,7 +8,7 @@ const globalForMail = globalThis as unknown as { kerflineMailer?: Transporter };
 
 function transporter(): Transporter {
   if (globalForMail.kerflineMailer) return globalForMail.kerflineMailer;
-  const url = new URL(process.env.SMTP_URL ?? 'smtp://127.0.0.1:1025');
+  const url = new URL(config().SMTP_URL);
   const local = url.hostname === '127.0.0.1' || url.hostname === 'localhost';
   globalForMail.kerflineMailer = nodemailer.createTransport({
     host: url.hostname,
@@ -23,5 +24,5 @@ function transporter(): Transporter {
 }
 
 export async function sendMail(mail: Mail): Promise<void> {
-  await transporter().sendMail({ from: process.env.MAIL_FROM ?? 'Kerfline <no-reply@kerfline.local>', ...mail });
+  await transporter().sendMail({ from: config().MAIL_FROM, ...mail });
 }

@@ -55,8 +55,11 @@ export default defineConfig({
     launchOptions,
   },
   projects: [
+    // Signs each demo role in once and saves its cookies for the `signedIn` fixture (tests/e2e/fixtures.ts).
+    { name: 'sign-in', testMatch: /.*\.setup\.ts$/, use: { ...devices['Desktop Chrome'], launchOptions } },
     {
       name: 'chromium',
+      dependencies: ['sign-in'],
       // Spread the device first, then restate launchOptions so nothing from it replaces ours.
       use: { ...devices['Desktop Chrome'], launchOptions },
     },

@@ -1,5 +1,5 @@
 import type { Page } from '@playwright/test';
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+import { DEMO_SLUG, expect, expectAccessible, test } from './fixtures';
 
 async function openStarterBuild(page: Page) {
   await page.goto(`/c/${DEMO_SLUG}/episodes`);
@@ -8,11 +8,12 @@ async function openStarterBuild(page: Page) {
   await expect(page.getByRole('heading', { name: 'Parts list' })).toBeVisible();
 }
 
-test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ page }) => {
+test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ signedIn }) => {
   const species = `Fir ${Date.now().toString(36)}`;
   const stockName = `2x4 ${species}`;
   const partName = `Rail ${species}`;
-  await signIn(page, demo.shopHand);
+  const page = await signedIn('shopHand');
+  await page.goto(`/c/${DEMO_SLUG}`);
 
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Stock rack' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Stock rack' })).toBeVisible();
@@ -69,8 +70,8 @@ test('the shop hand stocks the rack, lists parts, and ticks off the shopping and
   await expect(page.getByRole('region', { name: stockName })).toBeVisible();
 });
 
-test('an editor reads the cut plan and the rack but cannot change them', async ({ page }) => {
-  await signIn(page, demo.editor);
+test('an editor reads the cut plan and the rack but cannot change them', async ({ signedIn }) => {
+  const page = await signedIn('editor');
   await page.goto(`/c/${DEMO_SLUG}/stock`);
   await expect(page.getByText('2x4 SPF', { exact: true })).toBeVisible();
   await expect(page.getByRole('button', { name: 'Add to rack' })).toHaveCount(0);

@@ -1,43 +1,34 @@
+import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
-import { expect, test as base, type Page } from '@playwright/test';
+import { expect, test as base, type BrowserContextOptions, type Page } from '@playwright/test';
 import type { SegmentDto } from '@/lib/segments/schemas';
 import accounts from '../../db/seeds/demo-accounts.json';
 
-export const demo = {
-  host: accounts.find((a) => a.role === 'host')!,
-  shopHand: accounts.find((a) => a.role === 'shop_hand')!,
-  editor: accounts.find((a) => a.role === 'editor')!,
+export { invitationTokenFrom, waitForMail, type CaughtMail } from '../support/mail-catcher';
+
+export type DemoRole = 'host' | 'shopHand' | 'editor';
+export type Account = { email: string; password: string; name: string; role: string };
+
+const account = (role: string): Account => {
+  const found = accounts.find((a) => a.role === role);
+  if (!found) throw new Error(`demo-accounts.json has no ${role}`);
+  return found;
 };
+
+export const demo: Record<DemoRole, Account> = { host: account('host'), shopHand: account('shop_hand'), editor: account('editor') };
 export const DEMO_SLUG = 'tallowmere-woodshop';
+
+/** Where sign-in.setup.ts keeps each demo role's signed-in browser state (cookies) for the run. */
+export const authStateFile = (role: DemoRole) => path.join(__dirname, '..', '..', 'test-results', '.auth', `${role}.json`);
+
+/** A phone held in the shop: narrow, touch. */
+export const PHONE: BrowserContextOptions = { viewport: { width: 375, height: 800 }, hasTouch: true, isMobile: true };
 
 /** Fails on serious or critical axe-core violations of the page as it is now. */
 export async function expectAccessible(page: Page) {
   const results = await new AxeBuilder({ page }).analyze();
   const bad = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
   expect(bad.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
-}
-
-export async function signIn(page: Page, account: { email: string; password: string }) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(account.email);
-  await page.getByLabel('Password').fill(account.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/c\/[a-z0-9-]+$/);
-}
-
-type CaughtMail = { subject: string; text: string; to: { address: string }[] };
-
-export async function waitForMail(address: string): Promise<CaughtMail> {
-  const url = `${process.env.MAILDEV_WEB_URL ?? 'http://127.0.0.1:1081'}/api/email`;
-  let found: CaughtMail | undefined;
-  await expect
-    .poll(async () => {
-      const all = (await (await fetch(url)).json()) as CaughtMail[];
-      found = all.find((m) => m.to.some((t) => t.address === address));
-      return Boolean(found);
-    }, { timeout: 15_000 })
-    .toBe(true);
-  return found!;
 }
 
 /** A fresh episode made through the API as the signed-in host, so this test owns its shots. */
@@ -52,5 +43,21 @@ export async function newEpisode(page: Page, title: string) {
   return { episodeId: episode.id, build, segmentUrl: `/c/${DEMO_SLUG}/episodes/${episode.id}/segments/${build.id}` };
 }
 
-export const test = base;
+type Fixtures = {
+  /** A page in its own browser context, already signed in as a demo role (from the saved state). */
+  signedIn: (role: DemoRole, options?: BrowserContextOptions) => Promise<Page>;
+};
+
+export const test = base.extend<Fixtures>({
+  signedIn: async ({ browser }, provide) => {
+    const opened: { close(): Promise<void> }[] = [];
+    await provide(async (role, options = {}) => {
+      const context = await browser.newContext({ ...options, storageState: authStateFile(role) });
+      opened.push(context);
+      return context.newPage();
+    });
+    for (const context of opened) await context.close();
+  },
+});
+
 export { expect };

@@ -1,9 +1,9 @@
 import { randomUUID } from 'node:crypto';
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test, waitForMail } from './fixtures';
+import { DEMO_SLUG, expect, expectAccessible, test, waitForMail } from './fixtures';
 
-test('a host invites a new address; the invitee sets a password and lands in the channel as Editor', async ({ page, browser }) => {
+test('a host invites a new address; the invitee sets a password and lands in the channel as Editor', async ({ signedIn, browser }) => {
   const email = `new-editor-${randomUUID().slice(0, 8)}@e2e.kerfline.test`;
-  await signIn(page, demo.host);
+  const page = await signedIn('host');
   await page.goto(`/c/${DEMO_SLUG}/settings/crew`);
   await expectAccessible(page);
   await page.getByLabel('E-mail').fill(email);
@@ -12,7 +12,8 @@ test('a host invites a new address; the invitee sets a password and lands in the
   await expect(page.getByText(`Invitation sent to ${email}.`)).toBeVisible();
   await expect(page.getByText(email, { exact: true })).toBeVisible();
 
-  const mail = await waitForMail(email);
+  const [mail] = await waitForMail(email);
+  if (!mail) throw new Error('no mail');
   expect(mail.subject).toContain('Tallowmere Woodshop');
   const link = /(http:\/\/\S+\/invite\/[A-Za-z0-9_-]+)/.exec(mail.text)?.[1];
   expect(link).toBeTruthy();

@@ -1,9 +1,9 @@
 import type { Page } from '@playwright/test';
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+import { DEMO_SLUG, expect, expectAccessible, test } from './fixtures';
+import { RunningOrderPage } from './pages/running-order-page';
+import { SegmentPage } from './pages/segment-page';
 
-const cardTitles = (page: Page) => page.locator('ol > li article[aria-label]').evaluateAll((els) => els.map((e) => e.getAttribute('aria-label')));
-
-const STARTER = ['Cold open: the three finished pieces side by side', 'Starter build', 'Intermediate build', 'Advanced build', 'Sponsor read', 'Outro: which level to try first'];
+const STARTER = ['Cold open: the three finished pieces side by side', 'Starter build', 'Intermediate build', 'Advanced build', 'Sponsor read', 'Outro: which level to try first'] as const;
 
 async function newOutlinedEpisode(page: Page, title: string) {
   await page.goto(`/c/${DEMO_SLUG}/episodes`);
@@ -15,60 +15,42 @@ async function newOutlinedEpisode(page: Page, title: string) {
   await page.getByRole('button', { name: 'Create episode' }).click();
   await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible();
   await page.getByRole('button', { name: 'Start a three-level build' }).click();
-  await expect.poll(() => cardTitles(page)).toEqual(STARTER);
+  await new RunningOrderPage(page).expectTitles(STARTER);
   return page.url();
 }
 
-async function dragWithMouse(page: Page, handleName: string, targetTitle: string) {
-  const handle = page.getByRole('button', { name: handleName });
-  const target = page.locator(`article[aria-label="${targetTitle}"]`);
-  await target.scrollIntoViewIfNeeded();
-  await handle.scrollIntoViewIfNeeded();
-  const from = await handle.boundingBox();
-  const to = await target.boundingBox();
-  if (!from || !to) throw new Error('no boxes');
-  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
-  await page.mouse.down();
-  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2 - 12, { steps: 4 });
-  await page.mouse.move(from.x + from.width / 2, to.y + 8, { steps: 20 });
-  await page.waitForTimeout(250);
-  await page.mouse.up();
-}
-
-test('a host outlines a three-level build and reorders it with the mouse and the keyboard', async ({ page }) => {
-  await page.setViewportSize({ width: 1280, height: 1200 });
-  await signIn(page, demo.host);
+test('a host outlines a three-level build and reorders it with the mouse and the keyboard', async ({ signedIn }) => {
+  const page = await signedIn('host', { viewport: { width: 1280, height: 1200 } });
+  const runningOrder = new RunningOrderPage(page);
   const url = await newOutlinedEpisode(page, `Tool tote ${Date.now()}`);
   await expectAccessible(page);
 
-  await dragWithMouse(page, 'Move Sponsor read', 'Intermediate build');
+  const positionSaved = () => page.waitForResponse((r) => r.url().endsWith('/position') && r.request().method() === 'PUT');
+  const mouseSaved = positionSaved();
+  await runningOrder.dragWithMouse('Sponsor read', 'Intermediate build');
   const afterMouse = [STARTER[0], STARTER[1], 'Sponsor read', 'Intermediate build', 'Advanced build', STARTER[5]];
-  await expect.poll(() => cardTitles(page)).toEqual(afterMouse);
+  await runningOrder.expectTitles(afterMouse);
+  expect((await mouseSaved).status()).toBe(200);
 
-  const outro = page.getByRole('button', { name: `Move ${STARTER[5]}` });
-  await outro.focus();
-  await page.keyboard.press('Space');
-  await page.waitForTimeout(250);
-  await page.keyboard.press('ArrowUp');
-  await page.waitForTimeout(250);
-  await page.keyboard.press('Space');
+  const keyboardSaved = positionSaved();
+  await runningOrder.moveWithKeyboard(STARTER[5], 'ArrowUp');
   const afterKeyboard = [STARTER[0], STARTER[1], 'Sponsor read', 'Intermediate build', STARTER[5], 'Advanced build'];
-  await expect.poll(() => cardTitles(page)).toEqual(afterKeyboard);
+  await runningOrder.expectTitles(afterKeyboard);
+  expect((await keyboardSaved).status()).toBe(200);
 
-  await page.waitForLoadState('networkidle');
   await page.goto(url);
-  await expect.poll(() => cardTitles(page)).toEqual(afterKeyboard);
+  await runningOrder.expectTitles(afterKeyboard);
 });
 
-test('a script autosaves, survives a reload, moves the forecast, and a stale save keeps its text', async ({ page, browser }) => {
-  await signIn(page, demo.host);
+test('a script autosaves, survives a reload, moves the forecast, and a stale save keeps its text', async ({ signedIn }) => {
+  const page = await signedIn('host');
   const url = await newOutlinedEpisode(page, `Spice rack ${Date.now()}`);
   await page.getByRole('link', { name: 'Starter build' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Starter build' })).toBeVisible();
   const editor = page.getByRole('textbox', { name: 'Script' });
   await editor.click();
   await page.keyboard.insertText(Array.from({ length: 300 }, (_, i) => `word${i}`).join(' '));
-  await expect(page.getByRole('status').filter({ hasText: /^Saved$/ })).toBeVisible();
+  await expect(new SegmentPage(page).savedStatus()).toBeVisible();
   await expectAccessible(page);
 
   await page.reload();
@@ -80,9 +62,7 @@ test('a script autosaves, survives a reload, moves the forecast, and a stale sav
   await expect(page.locator('article[aria-label="Starter build"]')).toContainText('02:00');
 
   const segmentUrl = (await page.getByRole('link', { name: 'Starter build' }).getAttribute('href')) ?? '';
-  const other = await browser.newContext();
-  const stale = await other.newPage();
-  await signIn(stale, demo.host);
+  const stale = await signedIn('host');
   await stale.goto(segmentUrl);
   await expect(stale.getByRole('textbox', { name: 'Script' })).toContainText('word299');
 
@@ -98,11 +78,10 @@ test('a script autosaves, survives a reload, moves the forecast, and a stale sav
   await expect(stale.getByText('Someone else changed this script since you opened it.')).toBeVisible();
   await expect(stale.getByRole('textbox', { name: 'Script' })).toContainText('second writer typed this');
   await expectAccessible(stale);
-  await other.close();
 });
 
-test('a shop hand sees the board read-only and the API refuses a reorder', async ({ page }) => {
-  await signIn(page, demo.shopHand);
+test('a shop hand sees the running order read-only and the API refuses a reorder', async ({ signedIn }) => {
+  const page = await signedIn('shopHand');
   await page.goto(`/c/${DEMO_SLUG}/episodes`);
   await expectAccessible(page);
   await page.getByRole('link', { name: 'One Stool, Three Ways' }).click();

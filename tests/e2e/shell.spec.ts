@@ -1,4 +1,5 @@
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+import { DEMO_SLUG, demo, expect, expectAccessible, test } from './fixtures';
+import { SignInPage } from './pages/sign-in-page';
 
 test('the sign-in page is accessible and signed-out pages redirect to it', async ({ page }) => {
   await page.goto(`/c/${DEMO_SLUG}/episodes`);
@@ -13,7 +14,7 @@ for (const [label, account, roleLabel] of [
   ['Editor', demo.editor, 'Editor'],
 ] as const) {
   test(`${label} signs in and sees the shell`, async ({ page }) => {
-    await signIn(page, account);
+    await new SignInPage(page).signIn(account);
     await expect(page.getByRole('heading', { level: 1, name: 'Tallowmere Woodshop' })).toBeVisible();
     await expect(page.getByText(`Signed in as ${account.name}, ${roleLabel}.`)).toBeVisible();
     const nav = page.getByRole('navigation', { name: 'Main' });
@@ -32,8 +33,8 @@ for (const [label, account, roleLabel] of [
   });
 }
 
-test('a shop hand opening crew settings is refused, on the page and by the API', async ({ page }) => {
-  await signIn(page, demo.shopHand);
+test('a shop hand opening crew settings is refused, on the page and by the API', async ({ signedIn }) => {
+  const page = await signedIn('shopHand');
   const res = await page.goto(`/c/${DEMO_SLUG}/settings/crew`);
   expect(res?.status()).toBe(403);
   await expect(page.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
@@ -43,12 +44,13 @@ test('a shop hand opening crew settings is refused, on the page and by the API',
 });
 
 test('keyboard-only sign-in works', async ({ page }) => {
-  await page.goto('/sign-in');
+  const signIn = new SignInPage(page);
+  await signIn.goto();
   await page.keyboard.press('Tab');
-  await expect(page.getByLabel('E-mail')).toBeFocused();
+  await expect(signIn.email()).toBeFocused();
   await page.keyboard.type(demo.editor.email);
   await page.keyboard.press('Tab');
-  await expect(page.getByLabel('Password')).toBeFocused();
+  await expect(signIn.password()).toBeFocused();
   await page.keyboard.type(demo.editor.password);
   await page.keyboard.press('Enter');
   await page.waitForURL(new RegExp(`/c/${DEMO_SLUG}$`));
@@ -56,18 +58,19 @@ test('keyboard-only sign-in works', async ({ page }) => {
 });
 
 test('a wrong password gets the generic message', async ({ page }) => {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(demo.editor.email);
-  await page.getByLabel('Password').fill('not-the-password');
-  await page.getByRole('button', { name: 'Sign in' }).click();
+  const signIn = new SignInPage(page);
+  await signIn.goto();
+  await signIn.email().fill(demo.editor.email);
+  await signIn.password().fill('not-the-password');
+  await signIn.submit().click();
   // Next's route announcer is also role=alert, so pick ours by its text.
   await expect(page.getByRole('alert').filter({ hasText: 'did not match' })).toBeVisible();
   await expectAccessible(page);
 });
 
-test('the shell works on a phone-sized screen', async ({ page }) => {
-  await page.setViewportSize({ width: 375, height: 740 });
-  await signIn(page, demo.shopHand);
+test('the shell works on a phone-sized screen', async ({ signedIn }) => {
+  const page = await signedIn('shopHand', { viewport: { width: 375, height: 740 } });
+  await page.goto(`/c/${DEMO_SLUG}`);
   const nav = page.getByRole('navigation', { name: 'Main' });
   await expect(nav.getByRole('link', { name: 'Settings' })).toBeInViewport();
   const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);

@@ -1,8 +1,8 @@
-import { DEMO_SLUG, demo, expect, expectAccessible, newEpisode, signIn, test } from './fixtures';
+import { DEMO_SLUG, expect, expectAccessible, newEpisode, test } from './fixtures';
+import { RunningOrderPage } from './pages/running-order-page';
 
-test('the shoot-day sheet lists the day’s shots with cautions, and prints without the app around it', async ({ page }) => {
-  await page.setViewportSize({ width: 1280, height: 900 });
-  await signIn(page, demo.host);
+test('the shoot-day sheet lists the day’s shots with cautions, and prints without the app around it', async ({ signedIn }) => {
+  const page = await signedIn('host', { viewport: { width: 1280, height: 900 } });
   const stamp = Date.now().toString(36);
   const { episodeId, build } = await newEpisode(page, `Sheet ${stamp}`);
   const api = `/api/channels/${DEMO_SLUG}`;
@@ -10,7 +10,7 @@ test('the shoot-day sheet lists the day’s shots with cautions, and prints with
   expect((await page.request.post(`${api}/segments/${build.id}/shots/bulk`, { data: { text: `CU: sand the edges ${stamp}`, dueDate: '2027-02-07' } })).status()).toBe(201);
   expect((await page.request.put(`${api}/segments/${build.id}/tools`, { data: { tools: ['table_saw', 'finishes'] } })).status()).toBe(200);
 
-  await page.goto(`/c/${DEMO_SLUG}/episodes/${episodeId}`);
+  await new RunningOrderPage(page).goto(episodeId);
   await expect(page.getByRole('link', { name: 'Stock rack' })).toBeVisible();
   await page.getByRole('link', { name: 'Shoot-day sheet' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Shoot-day sheet' })).toBeVisible();

@@ -68,24 +68,3 @@ export async function call(fn: RouteFn, method: string, opts: CallOptions = {}) 
   const json: unknown = text ? JSON.parse(text) : null;
   return { status: res.status, json: json as Record<string, unknown> & { error?: { code: string; message: string; fields?: Record<string, string> } } };
 }
-
-type CaughtMail = { subject: string; text: string; html: string; to: { address: string }[] };
-
-/** Reads the local mail catcher (maildev's REST API) until a message to `address` arrives. */
-export async function waitForMail(address: string, timeoutMs = 10_000, atLeast = 1): Promise<CaughtMail[]> {
-  const url = `${process.env.MAILDEV_WEB_URL ?? 'http://127.0.0.1:1081'}/api/email`;
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const all = (await (await fetch(url)).json()) as CaughtMail[];
-    const mine = all.filter((m) => m.to.some((t) => t.address.toLowerCase() === address.toLowerCase()));
-    if (mine.length >= atLeast) return mine;
-    if (Date.now() > deadline) throw new Error(`no mail for ${address}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
-
-export function tokenFromMail(mail: CaughtMail): string {
-  const match = /\/invite\/([A-Za-z0-9_-]+)/.exec(mail.text);
-  if (!match?.[1]) throw new Error('no invitation link in mail');
-  return match[1];
-}

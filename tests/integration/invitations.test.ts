@@ -6,7 +6,8 @@ import { DELETE as revokeRoute } from '@/app/api/channels/[channel]/invitations/
 import { POST as inviteRoute } from '@/app/api/channels/[channel]/invitations/route';
 import { db } from '@/db/client';
 import { authorizeCredentials } from '@/lib/auth/sign-in';
-import { call, makeCrew, makeUser, PASSWORD, tokenFromMail, uniqueEmail, waitForMail } from './helpers';
+import { invitationTokenFrom, waitForMail } from '../support/mail-catcher';
+import { call, makeCrew, makeUser, PASSWORD, uniqueEmail } from './helpers';
 
 async function invite(email: string, role = 'shop_hand') {
   const crew = await makeCrew();
@@ -15,7 +16,7 @@ async function invite(email: string, role = 'shop_hand') {
   expect(res.json.delivered).toBe(true);
   const [mail] = await waitForMail(email);
   if (!mail) throw new Error('no mail');
-  return { ...crew, mail, token: tokenFromMail(mail), invitationId: (res.json.invitation as { id: string }).id };
+  return { ...crew, mail, token: invitationTokenFrom(mail), invitationId: (res.json.invitation as { id: string }).id };
 }
 
 describe('invitations', () => {
@@ -91,8 +92,8 @@ describe('invitations', () => {
     const first = await invite(email);
     const res = await call(resendRoute, 'POST', { as: first.host, params: { channel: first.channel.slug, invitationId: first.invitationId } });
     expect(res.status).toBe(200);
-    const mails = await waitForMail(email, 10_000, 2);
-    const newToken = mails.map(tokenFromMail).find((t) => t !== first.token);
+    const mails = await waitForMail(email, { atLeast: 2 });
+    const newToken = mails.map(invitationTokenFrom).find((t) => t !== first.token);
     expect(newToken).toBeTruthy();
     expect((await call(lookupRoute, 'GET', { params: { token: first.token } })).json.invitation).toMatchObject({ status: 'unknown' });
     expect((await call(lookupRoute, 'GET', { params: { token: newToken ?? '' } })).json.invitation).toMatchObject({ status: 'open' });

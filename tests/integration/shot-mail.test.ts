@@ -6,13 +6,8 @@ import { db } from '@/db/client';
 import { sendShotMail } from '@/lib/mail/assignment-queries';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { makeOutlinedEpisode } from './episode-fixtures';
-import { call, makeCrew, waitForMail } from './helpers';
-
-const settle = () => new Promise((r) => setTimeout(r, 700));
-const mailsTo = async (address: string) => {
-  await settle();
-  return waitForMail(address, 1000, 0);
-};
+import { mailAfterEverythingSent as mailsTo } from '../support/mail-catcher';
+import { call, makeCrew } from './helpers';
 
 describe('assignment e-mail', () => {
   it('sends one message per burst with the right shots, then only the difference', async () => {

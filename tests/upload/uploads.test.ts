@@ -6,10 +6,10 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db/client';
 import { AppServer } from './app-server';
-import { makeOutlinedEpisode } from './episode-fixtures';
-import { makeCrew, sessionCookie } from './helpers';
-import type { Crew } from './route-matrix';
-import { makeShotEpisode } from './shot-fixtures';
+import { makeOutlinedEpisode } from '../integration/episode-fixtures';
+import { makeCrew, sessionCookie } from '../integration/helpers';
+import type { Crew } from '../integration/route-matrix';
+import { makeShotEpisode } from '../integration/shot-fixtures';
 import { makeRandomFile, startTusUpload } from './tus-client';
 
 // Real HTTP against the built app, so uploads go through Next, @tus/server and the disk store as in production.

@@ -25,6 +25,20 @@ export default defineConfig({
           env: { NODE_ENV: 'test' },
         },
       },
+      {
+        // Real HTTP against the production build (`next start`), so only this project waits for the build;
+        // scripts/test.mjs runs it after `next build`, and unit + integration before.
+        resolve: { alias },
+        test: {
+          name: 'upload',
+          include: ['tests/upload/**/*.test.ts'],
+          environment: 'node',
+          setupFiles: ['tests/integration/setup.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 30_000,
+          env: { NODE_ENV: 'test' },
+        },
+      },
     ],
   },
 });

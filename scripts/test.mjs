@@ -1,6 +1,7 @@
 #!/usr/bin/env node
-// `npm test`: typecheck, lint, Vitest (unit + integration) and Playwright, each run even when an
-// earlier one failed; ends with one line `N passed, N failed[, N skipped]` and a matching exit code.
+// `npm test`: typecheck, lint, Vitest unit + integration, the build, the Vitest upload project (it runs
+// the built app) and Playwright, each run even when an earlier one failed; ends with one line
+// `N passed, N failed[, N skipped]` and a matching exit code.
 //   --unit     typecheck, lint and the Vitest `unit` project only (no database, no browser)
 //   --no-e2e   everything but Playwright (also KERFLINE_SKIP_E2E=1)
 import fs from 'node:fs';
@@ -21,6 +22,7 @@ const E2E_PORT = Number(process.env.E2E_PORT || 3100);
 const APP_URL = `http://127.0.0.1:${E2E_PORT}`;
 const REPORTS = path.join(ROOT, '.reports');
 const VITEST_REPORT = path.join(REPORTS, 'vitest.json');
+const VITEST_UPLOAD_REPORT = path.join(REPORTS, 'vitest-upload.json');
 const PLAYWRIGHT_REPORT = path.join(REPORTS, 'playwright.json');
 const MAIL_FROM = 'Kerfline <no-reply@kerfline.local>';
 const bin = (rel) => path.join(ROOT, 'node_modules', rel);
@@ -84,12 +86,13 @@ async function lint() {
   if (result.code !== 0) fail('lint');
 }
 
-async function vitest(env, { unitOnly }) {
-  heading(unitOnly ? 'vitest (unit project)' : 'vitest');
-  const vitestArgs = ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.relative(ROOT, VITEST_REPORT)}`];
-  if (unitOnly) vitestArgs.push('--project', 'unit');
+/** Runs the named Vitest projects into one JSON report and adds its counts to the total. */
+async function vitest(env, projects, report) {
+  heading(`vitest (${projects.join(' + ')})`);
+  const vitestArgs = ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.relative(ROOT, report)}`];
+  for (const project of projects) vitestArgs.push('--project', project);
   const result = await run(process.execPath, [bin('vitest/vitest.mjs'), ...vitestArgs], { env: toolEnv(env) });
-  const counts = runnerCounts(VITEST_REPORT, vitestCounts, result.code);
+  const counts = runnerCounts(report, vitestCounts, result.code);
   if (counts.missing) warn('Vitest wrote no report: counted as 1 failed');
   addCounts(total, counts);
   if (counts.failed) failedSteps.push('vitest');
@@ -121,7 +124,7 @@ async function install() {
 
 function resetReports() {
   fs.mkdirSync(REPORTS, { recursive: true });
-  for (const file of [VITEST_REPORT, PLAYWRIGHT_REPORT]) fs.rmSync(file, { force: true });
+  for (const file of [VITEST_REPORT, VITEST_UPLOAD_REPORT, PLAYWRIGHT_REPORT]) fs.rmSync(file, { force: true });
 }
 
 async function main() {
@@ -140,10 +143,15 @@ async function main() {
   }
   await typecheck();
   await lint();
-  // The upload tests run the built app, so the build comes before Vitest.
-  const built = services ? await build({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' }) : false;
-  if (services) await vitest(testEnv(services.urls.it, services, secret), { unitOnly: false });
-  else await vitest({ NEXTAUTH_SECRET: secret, NEXTAUTH_URL: APP_URL, APP_URL, MAIL_FROM }, { unitOnly: true });
+  if (!services) {
+    await vitest({ NEXTAUTH_SECRET: secret, NEXTAUTH_URL: APP_URL, APP_URL, MAIL_FROM }, ['unit'], VITEST_REPORT);
+    return;
+  }
+  const itEnv = testEnv(services.urls.it, services, secret);
+  // Unit and integration tests need no build; only the upload project and Playwright run the built app.
+  await vitest(itEnv, ['unit', 'integration'], VITEST_REPORT);
+  const built = await build({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
+  if (built) await vitest(itEnv, ['upload'], VITEST_UPLOAD_REPORT);
   if (built && !SKIP_E2E) await e2e({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
 }
 

@@ -10,6 +10,7 @@ import { ApiError, apiFetch } from '@/lib/api/client';
 import { fieldErrorsFrom } from '@/lib/api/validation';
 import { acceptAsNewSchema } from '@/lib/crew/schemas';
 import type { FieldErrors } from '@/lib/errors';
+import { api, channelPage } from '@/lib/api/paths';
 
 type Props = { token: string; email: string; accountExists: boolean; signedInAs: string | null };
 type Accepted = { accepted: { channelSlug: string } };
@@ -40,8 +41,8 @@ export function AcceptInvitation({ token, email, accountExists, signedInAs }: Pr
           return setError('That password did not match, or there were too many tries. Wait 15 minutes and try again.');
         }
       }
-      const { accepted } = await apiFetch<Accepted>(`/api/invitations/${token}/accept`, { method: 'POST', body: {} });
-      router.push(`/c/${accepted.channelSlug}`);
+      const { accepted } = await apiFetch<Accepted>(api('invitations', token, 'accept'), { method: 'POST', body: {} });
+      router.push(channelPage(accepted.channelSlug));
       router.refresh();
     } catch (err) {
       fail(err);
@@ -56,9 +57,9 @@ export function AcceptInvitation({ token, email, accountExists, signedInAs }: Pr
     setPending(true);
     setError(null);
     try {
-      const { accepted } = await apiFetch<Accepted>(`/api/invitations/${token}/accept`, { method: 'POST', body: parsed.data });
+      const { accepted } = await apiFetch<Accepted>(api('invitations', token, 'accept'), { method: 'POST', body: parsed.data });
       await signIn('credentials', { redirect: false, email, password: parsed.data.password });
-      router.push(`/c/${accepted.channelSlug}`);
+      router.push(channelPage(accepted.channelSlug));
       router.refresh();
     } catch (err) {
       fail(err);

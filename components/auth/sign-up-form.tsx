@@ -11,6 +11,7 @@ import { fieldErrorsFrom } from '@/lib/api/validation';
 import type { ChannelDto } from '@/lib/channels/schemas';
 import type { FieldErrors } from '@/lib/errors';
 import { signUpSchema } from '@/lib/users/schemas';
+import { channelPage } from '@/lib/api/paths';
 
 export function SignUpForm() {
   const router = useRouter();
@@ -32,7 +33,7 @@ export function SignUpForm() {
     try {
       const { channel } = await apiFetch<{ channel: ChannelDto }>('/api/sign-up', { method: 'POST', body: parsed.data });
       await signIn('credentials', { redirect: false, email: parsed.data.email, password: parsed.data.password });
-      router.push(`/c/${channel.slug}`);
+      router.push(channelPage(channel.slug));
       router.refresh();
     } catch (err) {
       setPending(false);

@@ -5,18 +5,18 @@ import { apiFetch } from '@/lib/api/client';
 import { can } from '@/lib/auth/policy';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { Viewer } from '@/components/providers/viewer-provider';
+import { channelApi } from '@/lib/api/paths';
 
 
-const api = (slug: string) => `/api/channels/${slug}`;
 export const segmentClipsKey = (slug: string, segmentId: string) => ['clips', slug, 'segment', segmentId] as const;
 
-export const clipFileUrl = (slug: string, clipId: string) => `${api(slug)}/clips/${clipId}/file`;
-export const clipPosterUrl = (slug: string, clipId: string) => `${api(slug)}/clips/${clipId}/poster`;
+export const clipFileUrl = (slug: string, clipId: string) => channelApi(slug, 'clips', clipId, 'file');
+export const clipPosterUrl = (slug: string, clipId: string) => channelApi(slug, 'clips', clipId, 'poster');
 
 export function useSegmentClips(slug: string, segmentId: string, initialClips?: ClipDto[]) {
   return useQuery({
     queryKey: segmentClipsKey(slug, segmentId),
-    queryFn: () => apiFetch<{ clips: ClipDto[] }>(`${api(slug)}/segments/${segmentId}/clips`).then((r) => r.clips),
+    queryFn: () => apiFetch<{ clips: ClipDto[] }>(channelApi(slug, 'segments', segmentId, 'clips')).then((r) => r.clips),
     initialData: initialClips,
     // The media worker reads duration and poster a few seconds after an upload finishes.
     refetchInterval: (query) => (query.state.data?.some((c) => c.probeState === 'pending') ? 2000 : false),
@@ -31,7 +31,7 @@ export function useDeleteClip(slug: string, segmentId: string) {
   const qc = useQueryClient();
   const key = segmentClipsKey(slug, segmentId);
   return useMutation({
-    mutationFn: (clip: ClipDto) => apiFetch<void>(`${api(slug)}/clips/${clip.id}`, { method: 'DELETE' }),
+    mutationFn: (clip: ClipDto) => apiFetch<void>(channelApi(slug, 'clips', clip.id), { method: 'DELETE' }),
     onMutate: async (clip) => {
       await qc.cancelQueries({ queryKey: key, exact: true });
       const previous = qc.getQueryData<ClipDto[]>(key);

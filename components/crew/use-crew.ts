@@ -4,6 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import type { Role } from '@/lib/auth/policy';
 import type { CrewMemberDto, InvitationDto, InviteInput } from '@/lib/crew/schemas';
+import { channelApi } from '@/lib/api/paths';
 
 const crewKey = (slug: string) => ['crew', slug] as const;
 const invitationsKey = (slug: string) => ['invitations', slug] as const;
@@ -11,7 +12,7 @@ const invitationsKey = (slug: string) => ['invitations', slug] as const;
 export function useCrew(slug: string, initialData: CrewMemberDto[]) {
   return useQuery({
     queryKey: crewKey(slug),
-    queryFn: () => apiFetch<{ crew: CrewMemberDto[] }>(`/api/channels/${slug}/crew`).then((r) => r.crew),
+    queryFn: () => apiFetch<{ crew: CrewMemberDto[] }>(channelApi(slug, 'crew')).then((r) => r.crew),
     initialData,
   });
 }
@@ -19,7 +20,7 @@ export function useCrew(slug: string, initialData: CrewMemberDto[]) {
 export function useInvitations(slug: string, initialData: InvitationDto[]) {
   return useQuery({
     queryKey: invitationsKey(slug),
-    queryFn: () => apiFetch<{ invitations: InvitationDto[] }>(`/api/channels/${slug}/invitations`).then((r) => r.invitations),
+    queryFn: () => apiFetch<{ invitations: InvitationDto[] }>(channelApi(slug, 'invitations')).then((r) => r.invitations),
     initialData,
   });
 }
@@ -29,27 +30,26 @@ type Delivery = { invitation: InvitationDto; delivered: boolean };
 export function useCrewMutations(slug: string) {
   const qc = useQueryClient();
   const refresh = () => Promise.all([qc.invalidateQueries({ queryKey: crewKey(slug) }), qc.invalidateQueries({ queryKey: invitationsKey(slug) })]);
-  const base = `/api/channels/${slug}`;
   return {
     invite: useMutation({
-      mutationFn: (input: InviteInput) => apiFetch<Delivery>(`${base}/invitations`, { method: 'POST', body: input }),
+      mutationFn: (input: InviteInput) => apiFetch<Delivery>(channelApi(slug, 'invitations'), { method: 'POST', body: input }),
       onSettled: refresh,
     }),
     resend: useMutation({
-      mutationFn: (id: string) => apiFetch<Delivery>(`${base}/invitations/${id}/resend`, { method: 'POST' }),
+      mutationFn: (id: string) => apiFetch<Delivery>(channelApi(slug, 'invitations', id, 'resend'), { method: 'POST' }),
       onSettled: refresh,
     }),
     revoke: useMutation({
-      mutationFn: (id: string) => apiFetch<void>(`${base}/invitations/${id}`, { method: 'DELETE' }),
+      mutationFn: (id: string) => apiFetch<void>(channelApi(slug, 'invitations', id), { method: 'DELETE' }),
       onSettled: refresh,
     }),
     changeRole: useMutation({
       mutationFn: (v: { userId: string; role: Role }) =>
-        apiFetch<{ member: CrewMemberDto }>(`${base}/crew/${v.userId}`, { method: 'PATCH', body: { role: v.role } }),
+        apiFetch<{ member: CrewMemberDto }>(channelApi(slug, 'crew', v.userId), { method: 'PATCH', body: { role: v.role } }),
       onSettled: refresh,
     }),
     remove: useMutation({
-      mutationFn: (userId: string) => apiFetch<void>(`${base}/crew/${userId}`, { method: 'DELETE' }),
+      mutationFn: (userId: string) => apiFetch<void>(channelApi(slug, 'crew', userId), { method: 'DELETE' }),
       onSettled: refresh,
     }),
   };

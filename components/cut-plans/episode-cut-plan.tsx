@@ -9,6 +9,7 @@ import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
 import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
 import { CutPlanView, money } from './cut-plan-view';
 import { SafetyNote } from './safety-note';
+import { channelApi } from '@/lib/api/paths';
 
 type Props = { channelSlug: string; episodeId: string; levelLabels: string[]; canEdit: boolean; initial: EpisodePlanDto };
 
@@ -19,13 +20,13 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
   const [error, setError] = useState<string | undefined>();
   const plan = useQuery({
     queryKey: key,
-    queryFn: () => apiFetch<EpisodePlanDto>(`/api/channels/${channelSlug}/episodes/${episodeId}/cut-plan`),
+    queryFn: () => apiFetch<EpisodePlanDto>(channelApi(channelSlug, 'episodes', episodeId, 'cut-plan')),
     initialData: initial,
     staleTime: 5_000,
   });
   const onError = (e: unknown) => setError(e instanceof ApiError ? e.message : 'Could not save.');
   const tick = useMutation({
-    mutationFn: (t: ShoppingTickDto) => apiFetch(`/api/channels/${channelSlug}/episodes/${episodeId}/shopping`, { method: 'PUT', body: t }),
+    mutationFn: (t: ShoppingTickDto) => apiFetch(channelApi(channelSlug, 'episodes', episodeId, 'shopping'), { method: 'PUT', body: t }),
     onError,
     onSettled: () => client.invalidateQueries({ queryKey: key }),
   });
@@ -39,7 +40,7 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
   };
   const cut = useMutation({
     mutationFn: ({ partId, cutCount }: { partId: string; cutCount: number }) =>
-      apiFetch(`/api/channels/${channelSlug}/parts/${partId}`, { method: 'PATCH', body: { cutCount } }),
+      apiFetch(channelApi(channelSlug, 'parts', partId), { method: 'PATCH', body: { cutCount } }),
     onError,
     onSettled: () => client.invalidateQueries({ queryKey: key }),
   });

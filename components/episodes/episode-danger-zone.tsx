@@ -7,11 +7,12 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { apiFetch } from '@/lib/api/client';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
+import { channelApi, channelPage } from '@/lib/api/paths';
 
 export function EpisodeDangerZone({ channelSlug, episode, segmentCount }: { channelSlug: string; episode: EpisodeDto; segmentCount: number }) {
   const router = useRouter();
   const [confirming, setConfirming] = useState(false);
-  const url = `/api/channels/${channelSlug}/episodes/${episode.id}`;
+  const url = channelApi(channelSlug, 'episodes', episode.id);
   const archive = useMutation({
     mutationFn: () => apiFetch(url, { method: 'PATCH', body: { archived: !episode.archived } }),
     onSuccess: () => router.refresh(),
@@ -19,7 +20,7 @@ export function EpisodeDangerZone({ channelSlug, episode, segmentCount }: { chan
   const remove = useMutation({
     mutationFn: () => apiFetch(url, { method: 'DELETE' }),
     onSuccess: () => {
-      router.push(`/c/${channelSlug}/episodes`);
+      router.push(channelPage(channelSlug, 'episodes'));
       router.refresh();
     },
   });

@@ -11,6 +11,7 @@ import { fieldErrorsFrom } from '@/lib/api/validation';
 import type { FieldErrors } from '@/lib/errors';
 import { createEpisodeSchema, episodeStages, stageLabels, updateEpisodeSchema, type EpisodeDto } from '@/lib/episodes/schemas';
 import { formatDuration } from '@/lib/runtime';
+import { channelApi, channelPage } from '@/lib/api/paths';
 
 type Props = { channelSlug: string; episode?: EpisodeDto };
 
@@ -32,14 +33,14 @@ function readForm(form: HTMLFormElement, withLevels: boolean) {
 export function EpisodeForm({ channelSlug, episode }: Props) {
   const router = useRouter();
   const [fields, setFields] = useState<FieldErrors>({});
-  const base = `/api/channels/${channelSlug}/episodes`;
+  const base = channelApi(channelSlug, 'episodes');
   const save = useMutation({
     mutationFn: (body: unknown) =>
       episode
-        ? apiFetch<{ episode: EpisodeDto }>(`${base}/${episode.id}`, { method: 'PATCH', body })
+        ? apiFetch<{ episode: EpisodeDto }>(channelApi(channelSlug, 'episodes', episode.id), { method: 'PATCH', body })
         : apiFetch<{ episode: EpisodeDto }>(base, { method: 'POST', body }),
     onSuccess: ({ episode: saved }) => {
-      router.push(`/c/${channelSlug}/episodes/${saved.id}`);
+      router.push(channelPage(channelSlug, 'episodes', saved.id));
       router.refresh();
     },
     onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),

@@ -5,6 +5,7 @@ import { useMemo, useState } from 'react';
 import { EmptyState } from '@/components/ui/empty-state';
 import { episodeStages, stageLabels, type EpisodeStage, type EpisodeSummaryDto } from '@/lib/episodes/schemas';
 import { formatDuration } from '@/lib/runtime';
+import { channelPage } from '@/lib/api/paths';
 
 type SortKey = 'title' | 'stage' | 'shootDate' | 'publishDate' | 'forecastSeconds' | 'segmentCount';
 const columns: { key: SortKey; label: string }[] = [
@@ -109,7 +110,7 @@ function EpisodeRow({ episode: e, channelSlug }: { episode: EpisodeSummaryDto; c
   return (
     <tr className="hover:bg-paper/60">
       <td className="px-3 py-2">
-        <Link href={`/c/${channelSlug}/episodes/${e.id}`} className="font-bold text-blueprint underline-offset-2 hover:underline">
+        <Link href={channelPage(channelSlug, 'episodes', e.id)} className="font-bold text-blueprint underline-offset-2 hover:underline">
           {e.title}
         </Link>
         {e.archived ? <span className="ml-2 text-xs text-ink-faint">(archived)</span> : null}

@@ -5,12 +5,13 @@ import { useRouter } from 'next/navigation';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { apiFetch } from '@/lib/api/client';
+import { channelApi } from '@/lib/api/paths';
 
 export function StarterButton({ channelSlug, episodeId }: { channelSlug: string; episodeId: string }) {
   const router = useRouter();
   const qc = useQueryClient();
   const start = useMutation({
-    mutationFn: () => apiFetch(`/api/channels/${channelSlug}/episodes/${episodeId}/starter`, { method: 'POST' }),
+    mutationFn: () => apiFetch(channelApi(channelSlug, 'episodes', episodeId, 'starter'), { method: 'POST' }),
     onSuccess: async () => {
       await qc.invalidateQueries({ queryKey: ['board', channelSlug, episodeId] });
       router.refresh();

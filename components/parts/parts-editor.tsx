@@ -14,6 +14,7 @@ import type { PartDto } from '@/lib/parts/schemas';
 import type { StockItemDto } from '@/lib/stock/schemas';
 import { formatLength } from '@/lib/units';
 import { PartForm, type PartFormValues } from './part-form';
+import { channelApi, channelPage } from '@/lib/api/paths';
 
 type SegmentPlan = { plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number };
 type Props = {
@@ -29,9 +30,8 @@ type Props = {
 export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock, initialParts, initialPlan }: Props) {
   const client = useQueryClient();
   const partsKey = ['parts', segmentId];
-  const api = `/api/channels/${channelSlug}`;
-  const parts = useQuery({ queryKey: partsKey, queryFn: () => apiFetch<{ parts: PartDto[] }>(`${api}/segments/${segmentId}/parts`).then((r) => r.parts), initialData: initialParts });
-  const plan = useQuery({ queryKey: ['cut-plan', 'segment', segmentId], queryFn: () => apiFetch<SegmentPlan>(`${api}/segments/${segmentId}/cut-plan`), initialData: initialPlan });
+  const parts = useQuery({ queryKey: partsKey, queryFn: () => apiFetch<{ parts: PartDto[] }>(channelApi(channelSlug, 'segments', segmentId, 'parts')).then((r) => r.parts), initialData: initialParts });
+  const plan = useQuery({ queryKey: ['cut-plan', 'segment', segmentId], queryFn: () => apiFetch<SegmentPlan>(channelApi(channelSlug, 'segments', segmentId, 'cut-plan')), initialData: initialPlan });
   const [editing, setEditing] = useState<string | null>(null);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [message, setMessage] = useState<string | undefined>();
@@ -49,17 +49,17 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
     return refresh();
   };
   const add = useMutation({
-    mutationFn: (v: PartFormValues) => apiFetch(`${api}/segments/${segmentId}/parts`, { method: 'POST', body: v }),
+    mutationFn: (v: PartFormValues) => apiFetch(channelApi(channelSlug, 'segments', segmentId, 'parts'), { method: 'POST', body: v }),
     onSuccess: () => done().then(() => setFormKey((k) => k + 1)),
     onError,
   });
   const save = useMutation({
-    mutationFn: ({ id, v }: { id: string; v: PartFormValues }) => apiFetch(`${api}/parts/${id}`, { method: 'PATCH', body: v }),
+    mutationFn: ({ id, v }: { id: string; v: PartFormValues }) => apiFetch(channelApi(channelSlug, 'parts', id), { method: 'PATCH', body: v }),
     onSuccess: () => done().then(() => setEditing(null)),
     onError,
   });
   const remove = useMutation({
-    mutationFn: (id: string) => apiFetch(`${api}/parts/${id}`, { method: 'DELETE' }),
+    mutationFn: (id: string) => apiFetch(channelApi(channelSlug, 'parts', id), { method: 'DELETE' }),
     onSuccess: () => done(),
     onError,
   });
@@ -71,7 +71,7 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
       {stock.length === 0 ? (
         <Alert tone="info">
           The stock rack is empty.{' '}
-          <Link href={`/c/${channelSlug}/stock`} className="underline">
+          <Link href={channelPage(channelSlug, 'stock')} className="underline">
             Add the lumber and sheet goods you buy
           </Link>{' '}
           to plan cuts.
@@ -163,7 +163,7 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
           <h3 id="segment-plan-heading" className="text-lg font-bold">
             Cut plan for this build {plan.isFetching ? <span className="text-sm font-normal text-ink-faint">Recomputing…</span> : null}
           </h3>
-          <Link href={`/c/${channelSlug}/episodes/${episodeId}/cut-plan`} className="text-sm font-bold text-blueprint underline">
+          <Link href={channelPage(channelSlug, 'episodes', episodeId, 'cut-plan')} className="text-sm font-bold text-blueprint underline">
             Whole episode, shopping and cut lists
           </Link>
         </div>

@@ -11,9 +11,10 @@ import type { ShotProgress } from '@/lib/shots/schemas';
 import { kindSwatches } from './runtime-bar';
 import { levelText, SegmentEditForm } from './segment-edit-form';
 import { GripIcon } from '@/components/ui/grip-icon';
+import { channelPage } from '@/lib/api/paths';
 
 export const segmentHref = (channelSlug: string, episodeId: string, segmentId: string) =>
-  `/c/${channelSlug}/episodes/${episodeId}/segments/${segmentId}`;
+  channelPage(channelSlug, 'episodes', episodeId, 'segments', segmentId);
 
 type ItemProps = {
   channelSlug: string;

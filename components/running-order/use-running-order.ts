@@ -4,6 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import { reorderRunningOrder } from '@/lib/segments/order';
 import type { RunningOrderDto, CreateSegmentInput, SegmentDto, UpdateSegmentInput } from '@/lib/segments/schemas';
+import { channelApi } from '@/lib/api/paths';
 
 export const runningOrderKey = (slug: string, episodeId: string) => ['running-order', slug, episodeId] as const;
 const moveKey = (slug: string, episodeId: string) => ['running-order', slug, episodeId, 'move'] as const;
@@ -11,7 +12,7 @@ const moveKey = (slug: string, episodeId: string) => ['running-order', slug, epi
 export function useRunningOrder(slug: string, initialRunningOrder: RunningOrderDto) {
   return useQuery({
     queryKey: runningOrderKey(slug, initialRunningOrder.episode.id),
-    queryFn: () => apiFetch<RunningOrderDto>(`/api/channels/${slug}/episodes/${initialRunningOrder.episode.id}/running-order`),
+    queryFn: () => apiFetch<RunningOrderDto>(channelApi(slug, 'episodes', initialRunningOrder.episode.id, 'running-order')),
     initialData: initialRunningOrder,
   });
 }
@@ -24,7 +25,7 @@ export function useMoveSegment(slug: string, episodeId: string) {
   return useMutation({
     mutationKey: moveKey(slug, episodeId),
     mutationFn: ({ segmentId, afterId }: MoveVariables) =>
-      apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/segments/${segmentId}/position`, { method: 'PUT', body: { afterId } }),
+      apiFetch<{ segment: SegmentDto }>(channelApi(slug, 'segments', segmentId, 'position'), { method: 'PUT', body: { afterId } }),
     // Kept synchronous on purpose: the cache must hold the new order before React paints the drop,
     // otherwise the card jumps back to its old place for a frame. Cancelling first (it reverts
     // synchronously) stops a refetch in flight from overwriting the optimistic order.
@@ -52,7 +53,7 @@ export function useAddSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (input: CreateSegmentInput) =>
-      apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/episodes/${episodeId}/segments`, { method: 'POST', body: input }),
+      apiFetch<{ segment: SegmentDto }>(channelApi(slug, 'episodes', episodeId, 'segments'), { method: 'POST', body: input }),
     onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
   });
 }
@@ -61,7 +62,7 @@ export function useUpdateSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: ({ segmentId, patch }: { segmentId: string; patch: UpdateSegmentInput }) =>
-      apiFetch<{ segment: SegmentDto }>(`/api/channels/${slug}/segments/${segmentId}`, { method: 'PATCH', body: patch }),
+      apiFetch<{ segment: SegmentDto }>(channelApi(slug, 'segments', segmentId), { method: 'PATCH', body: patch }),
     onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
   });
 }
@@ -69,7 +70,7 @@ export function useUpdateSegment(slug: string, episodeId: string) {
 export function useDeleteSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (segmentId: string) => apiFetch<void>(`/api/channels/${slug}/segments/${segmentId}`, { method: 'DELETE' }),
+    mutationFn: (segmentId: string) => apiFetch<void>(channelApi(slug, 'segments', segmentId), { method: 'DELETE' }),
     onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
   });
 }

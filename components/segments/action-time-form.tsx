@@ -8,13 +8,14 @@ import { TextField } from '@/components/ui/field';
 import { ApiError, apiFetch } from '@/lib/api/client';
 import { formatDuration, parseDuration } from '@/lib/runtime';
 import type { SegmentDto } from '@/lib/segments/schemas';
+import { channelApi } from '@/lib/api/paths';
 
 export function ActionTimeForm({ channelSlug, segment }: { channelSlug: string; segment: SegmentDto }) {
   const router = useRouter();
   const [error, setError] = useState<string | undefined>();
   const save = useMutation({
     mutationFn: (actionSeconds: number) =>
-      apiFetch<{ segment: SegmentDto }>(`/api/channels/${channelSlug}/segments/${segment.id}`, { method: 'PATCH', body: { actionSeconds } }),
+      apiFetch<{ segment: SegmentDto }>(channelApi(channelSlug, 'segments', segment.id), { method: 'PATCH', body: { actionSeconds } }),
     onSuccess: () => router.refresh(),
     onError: (err) => setError(err instanceof ApiError ? (err.fields.actionSeconds ?? err.message) : 'Could not save.'),
   });

@@ -10,13 +10,14 @@ import { ApiError, apiFetch } from '@/lib/api/client';
 import { fieldErrorsFrom } from '@/lib/api/validation';
 import { channelSettingsSchema, type ChannelDto, type ChannelSettingsInput } from '@/lib/channels/schemas';
 import type { FieldErrors } from '@/lib/errors';
+import { channelApi } from '@/lib/api/paths';
 
 export function ChannelSettingsForm({ channel }: { channel: ChannelDto }) {
   const router = useRouter();
   const [fields, setFields] = useState<FieldErrors>({});
   const save = useMutation({
     mutationFn: (input: ChannelSettingsInput) =>
-      apiFetch<{ channel: ChannelDto }>(`/api/channels/${channel.slug}`, { method: 'PATCH', body: input }),
+      apiFetch<{ channel: ChannelDto }>(channelApi(channel.slug), { method: 'PATCH', body: input }),
     onSuccess: () => router.refresh(),
     onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
   });

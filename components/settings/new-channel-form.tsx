@@ -10,13 +10,14 @@ import { apiFetch } from '@/lib/api/client';
 import { fieldErrorsFrom } from '@/lib/api/validation';
 import { newChannelSchema, type ChannelDto } from '@/lib/channels/schemas';
 import type { FieldErrors } from '@/lib/errors';
+import { channelPage } from '@/lib/api/paths';
 
 export function NewChannelForm() {
   const router = useRouter();
   const [fields, setFields] = useState<FieldErrors>({});
   const create = useMutation({
     mutationFn: (name: string) => apiFetch<{ channel: ChannelDto }>('/api/channels', { method: 'POST', body: { name } }),
-    onSuccess: ({ channel }) => router.push(`/c/${channel.slug}`),
+    onSuccess: ({ channel }) => router.push(channelPage(channel.slug)),
   });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {

@@ -8,6 +8,7 @@ import type { UserDto } from '@/lib/users/schemas';
 import { ChannelSwitcher } from './channel-switcher';
 import { NavLinks } from './nav-links';
 import { UserMenu } from './user-menu';
+import { channelPage } from '@/lib/api/paths';
 
 type Props = { channelSlug: string; channelName: string; role: Role; channels: ChannelWithRoleDto[]; user: UserDto; children: ReactNode };
 
@@ -19,7 +20,7 @@ export function AppShell({ channelSlug, channelName, role, channels, user, child
       </a>
       <aside className="border-b border-paper-edge bg-paper-deep md:min-h-screen md:border-b-0 md:border-r print:hidden">
         <div className="flex items-center justify-between gap-2 px-4 py-3 md:block md:space-y-4 md:py-5">
-          <Link href={`/c/${channelSlug}`} aria-label="Kerfline dashboard">
+          <Link href={channelPage(channelSlug)} aria-label="Kerfline dashboard">
             <Logo className="text-lg" />
           </Link>
           <div className="flex items-center gap-2 md:block md:space-y-3">

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { roleLabels } from '@/lib/auth/policy';
 import type { ChannelWithRoleDto } from '@/lib/channels/schemas';
+import { channelPage } from '@/lib/api/paths';
 
 // A disclosure of plain links: keyboard and screen readers get it for free, and it works before hydration.
 export function ChannelSwitcher({ current, channels }: { current: { slug: string; name: string }; channels: ChannelWithRoleDto[] }) {
@@ -19,7 +20,7 @@ export function ChannelSwitcher({ current, channels }: { current: { slug: string
           {channels.map((c) => (
             <li key={c.id}>
               <Link
-                href={`/c/${c.slug}`}
+                href={channelPage(c.slug)}
                 aria-current={c.slug === current.slug ? 'true' : undefined}
                 className="flex min-h-touch items-center justify-between gap-2 rounded px-3 text-sm hover:bg-paper aria-[current=true]:font-bold"
               >

@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { usePathname } from 'next/navigation';
+import { channelPage } from '@/lib/api/paths';
 
 const sections = [
   { href: '', label: 'Dashboard' },
@@ -14,7 +15,7 @@ const sections = [
 
 export function NavLinks({ channelSlug }: { channelSlug: string }) {
   const pathname = usePathname();
-  const base = `/c/${channelSlug}`;
+  const base = channelPage(channelSlug);
   return (
     <nav aria-label="Main" className="px-2 pb-2 md:px-3">
       <ul className="grid grid-cols-5 gap-1 md:flex md:flex-col">

@@ -3,6 +3,7 @@ import { longDate } from './dates';
 import { PrintButton } from './print-button';
 import { ShootDateForm } from './shoot-date-form';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
+import { channelPage } from '@/lib/api/paths';
 
 type Props = {
   channelSlug: string;
@@ -14,10 +15,10 @@ type Props = {
 };
 
 export function ShootSheetHeader({ channelSlug, channelName, episode, date, dateError }: Props) {
-  const episodeHref = `/c/${channelSlug}/episodes/${episode.id}`;
+  const episodeHref = channelPage(channelSlug, 'episodes', episode.id);
   return (
     <>
-      <Breadcrumb items={[{ href: `/c/${channelSlug}/episodes`, label: 'Episodes' }, { href: episodeHref, label: episode.title }]} />
+      <Breadcrumb items={[{ href: channelPage(channelSlug, 'episodes'), label: 'Episodes' }, { href: episodeHref, label: episode.title }]} />
       <header className="mb-6 flex flex-wrap items-end justify-between gap-4 border-b border-paper-edge pb-4 print:mb-4 print:border-black print:pb-2">
         <div className="min-w-0">
           <p className="text-xs font-bold uppercase tracking-wide text-ink-faint">{channelName}</p>

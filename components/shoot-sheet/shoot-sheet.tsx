@@ -2,6 +2,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import type { ShootSheetDto } from '@/lib/shots/shoot-sheet';
 import { longDate } from './dates';
 import { SegmentSheet } from './segment-sheet';
+import { channelPage } from '@/lib/api/paths';
 
 // On paper: black on white, no shadows or tinted boxes; colour only says what the words already say.
 const paper = 'print:text-black print:**:border-black print:**:bg-transparent print:**:text-black print:**:shadow-none';
@@ -17,7 +18,7 @@ export function ShootSheet({ sheet, channelSlug }: { sheet: ShootSheetDto; chann
   }
   const shotCount = segments.reduce((n, s) => n + s.shots.length, 0);
   const otherDays = segments.reduce((n, s) => n + s.otherDayShots, 0);
-  const cutPlanHref = `/c/${channelSlug}/episodes/${episode.id}/cut-plan`;
+  const cutPlanHref = channelPage(channelSlug, 'episodes', episode.id, 'cut-plan');
   return (
     <div className={paper}>
       <p className="mb-4 text-sm text-ink-soft">

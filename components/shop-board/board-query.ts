@@ -1,4 +1,5 @@
 import { cameras, type Camera } from '@/lib/shots/catalog';
+import { channelPage } from '@/lib/api/paths';
 
 // Shared by the server page and the client board, so both read the same filters from one URL.
 
@@ -46,6 +47,6 @@ export function filtersToSearch(filters: BoardFilters): string {
 
 export const sameFilters = (a: BoardFilters, b: BoardFilters): boolean => filtersToSearch(a) === filtersToSearch(b);
 
-export const segmentHref = (slug: string, episodeId: string, segmentId: string) => `/c/${slug}/episodes/${episodeId}/segments/${segmentId}`;
+export const segmentHref = (slug: string, episodeId: string, segmentId: string) => channelPage(slug, 'episodes', episodeId, 'segments', segmentId);
 export const shotHref = (slug: string, shot: { episodeId: string; segmentId: string; id: string }) =>
   `${segmentHref(slug, shot.episodeId, shot.segmentId)}#shot-${shot.id}`;

@@ -17,6 +17,7 @@ import { SendToCrew } from './send-to-crew';
 import { useShotActions } from './shot-actions';
 import { useBoardShots, useEpisodeSegments, type BoardData } from './use-shop-board';
 import { RetryAlert } from '@/components/ui/retry-alert';
+import { channelPage } from '@/lib/api/paths';
 
 type Props = {
   slug: string;
@@ -119,7 +120,7 @@ export function ShopBoard({ slug, viewerName, canMove, shotMail, initial, episod
           ) : (
             <>
               Shots are planned on each segment page of an{' '}
-              <Link href={`/c/${slug}/episodes`} className="text-blueprint underline">
+              <Link href={channelPage(slug, 'episodes')} className="text-blueprint underline">
                 episode
               </Link>
               ; they show here by state for the shop.

@@ -9,10 +9,10 @@ import type { ShotState } from '@/lib/shots/catalog';
 import type { PendingSafetyDto } from '@/lib/safety/schemas';
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { filtersToSearch, type BoardFilters } from './board-query';
+import { channelApi } from '@/lib/api/paths';
 
 export type BoardData = { shots: BoardShotDto[]; pendingSafety: PendingSafetyDto[] };
 
-const api = (slug: string) => `/api/channels/${slug}`;
 // Under the same ['shots', slug] prefix as the segment shot lists, so an edit in either view refreshes the other.
 export const shopBoardKey = (slug: string, filters: BoardFilters) => ['shots', slug, 'board', filtersToSearch(filters)] as const;
 const allBoardsKey = (slug: string) => ['shots', slug, 'board'] as const;
@@ -24,7 +24,7 @@ export function useBoardShots(slug: string, filters: BoardFilters, initial: { fi
   const search = filtersToSearch(filters);
   return useQuery({
     queryKey: shopBoardKey(slug, filters),
-    queryFn: () => apiFetch<BoardData>(`${api(slug)}/shots${search ? `?${search}` : ''}`),
+    queryFn: () => apiFetch<BoardData>(`${channelApi(slug, 'shots')}${search ? `?${search}` : ''}`),
     // The server's first view only answers the filters it was rendered for.
     initialData: search === filtersToSearch(initial.filters) ? initial.data : undefined,
     // Keeps the old cards on screen while the next filter loads, instead of a blank board.
@@ -35,7 +35,7 @@ export function useBoardShots(slug: string, filters: BoardFilters, initial: { fi
 export function useMyShots(slug: string, initialShots: BoardShotDto[]) {
   return useQuery({
     queryKey: myShotsKey(slug),
-    queryFn: () => apiFetch<{ shots: BoardShotDto[] }>(`${api(slug)}/shots/mine`).then((r) => r.shots),
+    queryFn: () => apiFetch<{ shots: BoardShotDto[] }>(channelApi(slug, 'shots', 'mine')).then((r) => r.shots),
     initialData: initialShots,
   });
 }
@@ -44,7 +44,7 @@ export function useMyShots(slug: string, initialShots: BoardShotDto[]) {
 export function useEpisodeSegments(slug: string, episodeId: string | undefined, initialRunningOrder: RunningOrderDto | null) {
   return useQuery({
     queryKey: runningOrderKey(slug, episodeId ?? ''),
-    queryFn: () => apiFetch<RunningOrderDto>(`${api(slug)}/episodes/${episodeId}/running-order`),
+    queryFn: () => apiFetch<RunningOrderDto>(channelApi(slug, 'episodes', episodeId ?? '', 'running-order')),
     enabled: episodeId !== undefined,
     initialData: initialRunningOrder && initialRunningOrder.episode.id === episodeId ? initialRunningOrder : undefined,
     select: (board) => board.segments,
@@ -80,7 +80,7 @@ export function useChangeShotState(slug: string, viewerName: string) {
   const { mutateAsync } = useMutation({
     mutationKey: stateKey(slug),
     mutationFn: ({ shot, state, reason, afterId }: StateChange) =>
-      apiFetch<{ shot: BoardShotDto }>(`${api(slug)}/shots/${shot.id}/state`, {
+      apiFetch<{ shot: BoardShotDto }>(channelApi(slug, 'shots', shot.id, 'state'), {
         method: 'PUT',
         body: { state, ...(reason !== undefined && { reason }), ...(afterId !== undefined && { afterId }) },
       }).then((r) => r.shot),
@@ -127,13 +127,13 @@ export function useShotMail(slug: string, initialWaiting: number) {
   const qc = useQueryClient();
   const waiting = useQuery({
     queryKey: shotMailKey(slug),
-    queryFn: () => apiFetch<{ waiting: number }>(`${api(slug)}/shot-mail`).then((r) => r.waiting),
+    queryFn: () => apiFetch<{ waiting: number }>(channelApi(slug, 'shot-mail')).then((r) => r.waiting),
     initialData: initialWaiting,
     // Assignments made in another tab or by the worker change the count.
     refetchInterval: 60_000,
   });
   const send = useMutation({
-    mutationFn: () => apiFetch<{ sent: number; failed: number }>(`${api(slug)}/shot-mail`, { method: 'POST' }),
+    mutationFn: () => apiFetch<{ sent: number; failed: number }>(channelApi(slug, 'shot-mail'), { method: 'POST' }),
     onSettled: () => qc.invalidateQueries({ queryKey: shotMailKey(slug) }),
   });
   return { waiting, send };

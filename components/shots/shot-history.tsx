@@ -5,6 +5,7 @@ import { useState } from 'react';
 import { LocalTime } from '@/components/shop-board/dates';
 import { apiFetch } from '@/lib/api/client';
 import { shotStateLabels, type ShotState } from '@/lib/shots/catalog';
+import { channelApi } from '@/lib/api/paths';
 
 type Event = { from: ShotState; to: ShotState; reason: string | null; by: string | null; at: string };
 
@@ -13,7 +14,7 @@ export function ShotHistory({ channelSlug, shotId, number }: { channelSlug: stri
   const [open, setOpen] = useState(false);
   const history = useQuery({
     queryKey: ['shots', channelSlug, 'history', shotId],
-    queryFn: () => apiFetch<{ history: Event[] }>(`/api/channels/${channelSlug}/shots/${shotId}`).then((r) => r.history),
+    queryFn: () => apiFetch<{ history: Event[] }>(channelApi(channelSlug, 'shots', shotId)).then((r) => r.history),
     enabled: open,
   });
   return (

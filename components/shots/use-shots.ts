@@ -6,12 +6,12 @@ import { moveAfter } from '@/lib/segments/order';
 import type { Tool } from '@/lib/safety/tools';
 import type { SegmentSafetyDto } from '@/lib/safety/schemas';
 import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
+import { channelApi } from '@/lib/api/paths';
 
 export const segmentShotsKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId] as const;
 export const segmentSafetyKey = (slug: string, segmentId: string) => ['safety', slug, 'segment', segmentId] as const;
 const moveKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId, 'move'] as const;
 
-const api = (slug: string) => `/api/channels/${slug}`;
 
 // Numbers follow the list order, so an optimistic move or delete renumbers at once, as the server will.
 const renumber = (shots: ShotDto[]): ShotDto[] => shots.map((s, i) => (s.number === i + 1 ? s : { ...s, number: i + 1 }));
@@ -19,7 +19,7 @@ const renumber = (shots: ShotDto[]): ShotDto[] => shots.map((s, i) => (s.number 
 export function useSegmentShots(slug: string, segmentId: string, initialShots: ShotDto[]) {
   return useQuery({
     queryKey: segmentShotsKey(slug, segmentId),
-    queryFn: () => apiFetch<{ shots: ShotDto[] }>(`${api(slug)}/segments/${segmentId}/shots`).then((r) => r.shots),
+    queryFn: () => apiFetch<{ shots: ShotDto[] }>(channelApi(slug, 'segments', segmentId, 'shots')).then((r) => r.shots),
     initialData: initialShots,
   });
 }
@@ -35,7 +35,7 @@ export function useUpdateShot(slug: string, segmentId: string) {
   const refresh = useRefreshShots(slug);
   return useMutation({
     mutationFn: ({ shotId, patch }: { shotId: string; patch: UpdateShotInput }) =>
-      apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}`, { method: 'PATCH', body: patch }).then((r) => r.shot),
+      apiFetch<{ shot: ShotDto }>(channelApi(slug, 'shots', shotId), { method: 'PATCH', body: patch }).then((r) => r.shot),
     onSuccess: (shot) => {
       qc.setQueryData<ShotDto[]>(segmentShotsKey(slug, segmentId), (list) => list?.map((s) => (s.id === shot.id ? { ...shot, number: s.number } : s)));
       return refresh();
@@ -50,7 +50,7 @@ export function useDeleteShot(slug: string, segmentId: string) {
   const key = segmentShotsKey(slug, segmentId);
   const refresh = useRefreshShots(slug);
   return useMutation({
-    mutationFn: ({ shotId }: DeleteVariables) => apiFetch<void>(`${api(slug)}/shots/${shotId}`, { method: 'DELETE' }),
+    mutationFn: ({ shotId }: DeleteVariables) => apiFetch<void>(channelApi(slug, 'shots', shotId), { method: 'DELETE' }),
     onMutate: ({ shotId }: DeleteVariables) => {
       void qc.cancelQueries({ queryKey: key, exact: true });
       const previous = qc.getQueryData<ShotDto[]>(key);
@@ -67,7 +67,7 @@ export function useDeleteShot(slug: string, segmentId: string) {
 export function useRestoreShot(slug: string) {
   const refresh = useRefreshShots(slug);
   return useMutation({
-    mutationFn: (shotId: string) => apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}/restore`, { method: 'POST' }).then((r) => r.shot),
+    mutationFn: (shotId: string) => apiFetch<{ shot: ShotDto }>(channelApi(slug, 'shots', shotId, 'restore'), { method: 'POST' }).then((r) => r.shot),
     onSettled: refresh,
   });
 }
@@ -75,7 +75,7 @@ export function useRestoreShot(slug: string) {
 export function useDuplicateShot(slug: string) {
   const refresh = useRefreshShots(slug);
   return useMutation({
-    mutationFn: (shotId: string) => apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}/duplicate`, { method: 'POST' }).then((r) => r.shot),
+    mutationFn: (shotId: string) => apiFetch<{ shot: ShotDto }>(channelApi(slug, 'shots', shotId, 'duplicate'), { method: 'POST' }).then((r) => r.shot),
     onSettled: refresh,
   });
 }
@@ -88,7 +88,7 @@ export function useMoveShot(slug: string, segmentId: string) {
   return useMutation({
     mutationKey: moveKey(slug, segmentId),
     mutationFn: ({ shotId, afterId }: MoveVariables) =>
-      apiFetch<{ shot: ShotDto }>(`${api(slug)}/shots/${shotId}/position`, { method: 'PUT', body: { afterId } }),
+      apiFetch<{ shot: ShotDto }>(channelApi(slug, 'shots', shotId, 'position'), { method: 'PUT', body: { afterId } }),
     // Synchronous on purpose: the cache holds the new order before React paints the drop, so the row does not jump back.
     onMutate: ({ shotId, afterId }: MoveVariables) => {
       void qc.cancelQueries({ queryKey: key, exact: true });
@@ -113,7 +113,7 @@ export function useBulkAddShots(slug: string, segmentId: string) {
   const refresh = useRefreshShots(slug);
   return useMutation({
     mutationFn: (body: BulkVariables) =>
-      apiFetch<{ shots: ShotDto[] }>(`${api(slug)}/segments/${segmentId}/shots/bulk`, { method: 'POST', body }).then((r) => r.shots),
+      apiFetch<{ shots: ShotDto[] }>(channelApi(slug, 'segments', segmentId, 'shots', 'bulk'), { method: 'POST', body }).then((r) => r.shots),
     onSuccess: refresh,
   });
 }
@@ -121,7 +121,7 @@ export function useBulkAddShots(slug: string, segmentId: string) {
 export function useSegmentSafety(slug: string, segmentId: string, initialSafety: SegmentSafetyDto) {
   return useQuery({
     queryKey: segmentSafetyKey(slug, segmentId),
-    queryFn: () => apiFetch<{ safety: SegmentSafetyDto }>(`${api(slug)}/segments/${segmentId}/tools`).then((r) => r.safety),
+    queryFn: () => apiFetch<{ safety: SegmentSafetyDto }>(channelApi(slug, 'segments', segmentId, 'tools')).then((r) => r.safety),
     initialData: initialSafety,
   });
 }
@@ -140,12 +140,12 @@ function useSafetyMutation<V>(slug: string, segmentId: string, request: (v: V) =
 
 export function useSaveTools(slug: string, segmentId: string) {
   return useSafetyMutation(slug, segmentId, (body: { tools: Tool[]; otherTool: string }) =>
-    apiFetch<{ safety: SegmentSafetyDto }>(`${api(slug)}/segments/${segmentId}/tools`, { method: 'PUT', body }),
+    apiFetch<{ safety: SegmentSafetyDto }>(channelApi(slug, 'segments', segmentId, 'tools'), { method: 'PUT', body }),
   );
 }
 
 export function useSafetyReview(slug: string, segmentId: string) {
   return useSafetyMutation(slug, segmentId, (reviewed: boolean) =>
-    apiFetch<{ safety: SegmentSafetyDto }>(`${api(slug)}/segments/${segmentId}/safety-review`, { method: 'PUT', body: { reviewed } }),
+    apiFetch<{ safety: SegmentSafetyDto }>(channelApi(slug, 'segments', segmentId, 'safety-review'), { method: 'PUT', body: { reviewed } }),
   );
 }

@@ -10,6 +10,7 @@ import type { FieldErrors } from '@/lib/errors';
 import { stockKindLabels, stockKinds, type CutSettingsDto, type StockItemDto } from '@/lib/stock/schemas';
 import { formatLength } from '@/lib/units';
 import { StockForm } from './stock-form';
+import { channelApi } from '@/lib/api/paths';
 
 type Props = { channelSlug: string; canEdit: boolean; initialStock: StockItemDto[]; initialSettings: CutSettingsDto };
 
@@ -17,8 +18,7 @@ const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
 
 export function StockRack({ channelSlug, canEdit, initialStock, initialSettings }: Props) {
   const client = useQueryClient();
-  const api = `/api/channels/${channelSlug}`;
-  const stock = useQuery({ queryKey: ['stock', channelSlug], queryFn: () => apiFetch<{ stock: StockItemDto[] }>(`${api}/stock`).then((r) => r.stock), initialData: initialStock });
+  const stock = useQuery({ queryKey: ['stock', channelSlug], queryFn: () => apiFetch<{ stock: StockItemDto[] }>(channelApi(channelSlug, 'stock')).then((r) => r.stock), initialData: initialStock });
   const [editing, setEditing] = useState<string | null>(null);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [message, setMessage] = useState<string | undefined>();
@@ -32,13 +32,13 @@ export function StockRack({ channelSlug, canEdit, initialStock, initialSettings 
     setMessage(undefined);
     await Promise.all([client.invalidateQueries({ queryKey: ['stock', channelSlug] }), client.invalidateQueries({ queryKey: ['cut-plan'] })]);
   };
-  const add = useMutation({ mutationFn: (b: Record<string, unknown>) => apiFetch(`${api}/stock`, { method: 'POST', body: b }), onSuccess: () => done().then(() => setFormKey((k) => k + 1)), onError });
+  const add = useMutation({ mutationFn: (b: Record<string, unknown>) => apiFetch(channelApi(channelSlug, 'stock'), { method: 'POST', body: b }), onSuccess: () => done().then(() => setFormKey((k) => k + 1)), onError });
   const save = useMutation({
-    mutationFn: ({ id, b }: { id: string; b: Record<string, unknown> }) => apiFetch(`${api}/stock/${id}`, { method: 'PUT', body: b }),
+    mutationFn: ({ id, b }: { id: string; b: Record<string, unknown> }) => apiFetch(channelApi(channelSlug, 'stock', id), { method: 'PUT', body: b }),
     onSuccess: () => done().then(() => setEditing(null)),
     onError,
   });
-  const remove = useMutation({ mutationFn: (id: string) => apiFetch(`${api}/stock/${id}`, { method: 'DELETE' }), onSuccess: done, onError });
+  const remove = useMutation({ mutationFn: (id: string) => apiFetch(channelApi(channelSlug, 'stock', id), { method: 'DELETE' }), onSuccess: done, onError });
   const inch = (n: number) => formatLength(n, { unit: initialSettings.lengthUnit });
 
   return (
@@ -106,7 +106,7 @@ function CutSettingsForm({ channelSlug, canEdit, initial }: { channelSlug: strin
   const client = useQueryClient();
   const [errors, setErrors] = useState<FieldErrors>({});
   const save = useMutation({
-    mutationFn: (b: Record<string, string>) => apiFetch(`/api/channels/${channelSlug}/cut-settings`, { method: 'PATCH', body: b }),
+    mutationFn: (b: Record<string, string>) => apiFetch(channelApi(channelSlug, 'cut-settings'), { method: 'PATCH', body: b }),
     onSuccess: () => {
       setErrors({});
       return client.invalidateQueries({ queryKey: ['cut-plan'] });

@@ -6,6 +6,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { can, roleLabels } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
+import { channelPage } from '@/lib/api/paths';
 
 export const metadata: Metadata = { title: 'Dashboard' };
 
@@ -13,7 +14,7 @@ export default async function DashboardPage({ params }: { params: Promise<{ chan
   const { channel } = await params;
   const member = await requireMember(channel);
   const crew = await listCrew(member.channel.id);
-  const base = `/c/${member.channel.slug}`;
+  const base = channelPage(member.channel.slug);
   return (
     <>
       <PageHeader title={member.channel.name}>

@@ -7,13 +7,14 @@ import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { listEpisodes } from '@/lib/episodes/queries';
+import { channelPage } from '@/lib/api/paths';
 
 export const metadata: Metadata = { title: 'Episodes' };
 
 export default async function EpisodesPage({ params }: { params: Promise<{ channel: string }> }) {
   const member = await requireMember((await params).channel);
   const episodes = await listEpisodes(member.channel.id, member.channel.speakingRateWpm);
-  const base = `/c/${member.channel.slug}/episodes`;
+  const base = channelPage(member.channel.slug, 'episodes');
   const newEpisode = can(member.role, 'episodes.edit') ? (
     <Link href={`${base}/new`} className={buttonClasses('primary')}>
       New episode

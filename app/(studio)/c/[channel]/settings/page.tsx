@@ -6,6 +6,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { getProfile } from '@/lib/users/queries';
+import { channelPage } from '@/lib/api/paths';
 
 export const metadata: Metadata = { title: 'Settings' };
 
@@ -18,7 +19,7 @@ export default async function SettingsPage({ params }: { params: Promise<{ chann
       <PageHeader title="Settings">Your profile, channel settings{host ? ' and crew' : ''}.</PageHeader>
       {host ? (
         <nav aria-label="Settings sections" className="mb-6">
-          <Link href={`/c/${member.channel.slug}/settings/crew`} className="font-bold text-blueprint underline">
+          <Link href={channelPage(member.channel.slug, 'settings', 'crew')} className="font-bold text-blueprint underline">
             Crew and invitations
           </Link>
         </nav>

@@ -9,6 +9,7 @@ import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { formatDuration } from '@/lib/runtime';
 import { getRunningOrder } from '@/lib/segments/queries';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
+import { channelPage } from '@/lib/api/paths';
 
 export const metadata: Metadata = { title: 'Running order' };
 
@@ -17,7 +18,7 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
   const member = await requireMember(channel);
   const runningOrder = await orNotFound(getRunningOrder(member, uuidOr404(episodeId)));
   const { episode } = runningOrder;
-  const base = `/c/${member.channel.slug}/episodes`;
+  const base = channelPage(member.channel.slug, 'episodes');
   return (
     <>
       <Breadcrumb items={[{ href: base, label: 'Episodes' }]} />

@@ -6,6 +6,7 @@ import { planEpisode } from '@/lib/cut-plans/queries';
 import { findEpisode } from '@/lib/episodes/queries';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
+import { channelPage } from '@/lib/api/paths';
 
 export const metadata: Metadata = { title: 'Cut plan' };
 
@@ -16,7 +17,7 @@ export default async function EpisodeCutPlanPage({ params }: { params: Promise<{
   const [episode, plan] = await orNotFound(Promise.all([findEpisode(member.channel.id, id), planEpisode(member.channel.id, id)]));
   return (
     <>
-      <Breadcrumb items={[{ href: `/c/${member.channel.slug}/episodes/${episode.id}`, label: episode.title }, { href: `/c/${member.channel.slug}/stock`, label: 'Stock rack' }]} />
+      <Breadcrumb items={[{ href: channelPage(member.channel.slug, 'episodes', episode.id), label: episode.title }, { href: channelPage(member.channel.slug, 'stock'), label: 'Stock rack' }]} />
       <header className="mb-6 border-b border-paper-edge pb-4">
         <h1 className="text-2xl font-bold tracking-tight">Cut plan: {episode.title}</h1>
         <p className="text-sm text-ink-soft">What to buy for every build in this episode, and where each cut goes.</p>

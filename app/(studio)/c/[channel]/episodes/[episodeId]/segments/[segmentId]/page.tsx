@@ -24,6 +24,7 @@ import { listSegmentShots } from '@/lib/shots/queries';
 import { getSegmentSafety } from '@/lib/safety/queries';
 import { listStock } from '@/lib/stock/queries';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
+import { channelPage } from '@/lib/api/paths';
 
 export const metadata: Metadata = { title: 'Segment' };
 
@@ -52,10 +53,10 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
   // Only a Host or a Shop hand may hold a shot.
   const assignable = crew.filter((c) => c.role === 'host' || c.role === 'shop_hand').map((c) => ({ userId: c.userId, name: c.name }));
   const spoken = spokenSeconds(segment.wordCount, member.channel.speakingRateWpm);
-  const base = `/c/${member.channel.slug}/episodes/${episode.id}`;
+  const base = channelPage(member.channel.slug, 'episodes', episode.id);
   return (
     <>
-      <Breadcrumb items={[{ href: `/c/${member.channel.slug}/episodes`, label: 'Episodes' }, { href: base, label: episode.title }]} />
+      <Breadcrumb items={[{ href: channelPage(member.channel.slug, 'episodes'), label: 'Episodes' }, { href: base, label: episode.title }]} />
       <header className="mb-6 border-b border-paper-edge pb-4">
         <p className="text-sm font-bold uppercase tracking-wide text-ink-faint">
           {kindLabels[segment.kind]}

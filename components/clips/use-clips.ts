@@ -6,16 +6,16 @@ import { can } from '@/lib/auth/policy';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { Viewer } from '@/components/providers/viewer-provider';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys } from '@/lib/api/query-keys';
 
 
-export const segmentClipsKey = (slug: string, segmentId: string) => ['clips', slug, 'segment', segmentId] as const;
 
 export const clipFileUrl = (slug: string, clipId: string) => channelApi(slug, 'clips', clipId, 'file');
 export const clipPosterUrl = (slug: string, clipId: string) => channelApi(slug, 'clips', clipId, 'poster');
 
 export function useSegmentClips(slug: string, segmentId: string, initialClips?: ClipDto[]) {
   return useQuery({
-    queryKey: segmentClipsKey(slug, segmentId),
+    queryKey: queryKeys.segmentClips(slug, segmentId),
     queryFn: () => apiFetch<{ clips: ClipDto[] }>(channelApi(slug, 'segments', segmentId, 'clips')).then((r) => r.clips),
     initialData: initialClips,
     // The media worker reads duration and poster a few seconds after an upload finishes.
@@ -29,7 +29,7 @@ export const mayDeleteClip = (viewer: Viewer, clip: ClipDto) =>
 
 export function useDeleteClip(slug: string, segmentId: string) {
   const qc = useQueryClient();
-  const key = segmentClipsKey(slug, segmentId);
+  const key = queryKeys.segmentClips(slug, segmentId);
   return useMutation({
     mutationFn: (clip: ClipDto) => apiFetch<void>(channelApi(slug, 'clips', clip.id), { method: 'DELETE' }),
     onMutate: async (clip) => {
@@ -45,7 +45,7 @@ export function useDeleteClip(slug: string, segmentId: string) {
       Promise.all([
         qc.invalidateQueries({ queryKey: key }),
         // Shot cards say "Has footage" from their clip count.
-        qc.invalidateQueries({ queryKey: ['shots', slug] }),
+        qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
       ]),
   });
 }

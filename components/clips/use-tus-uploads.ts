@@ -3,7 +3,7 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useCallback, useMemo, useSyncExternalStore } from 'react';
 import type { DetailedError as TusDetailedError, PreviousUpload, Upload } from 'tus-js-client';
-import { segmentClipsKey } from './use-clips';
+import { queryKeys } from '@/lib/api/query-keys';
 
 export type UploadState = 'waiting' | 'starting' | 'uploading' | 'paused' | 'reconnecting' | 'done' | 'failed';
 
@@ -193,9 +193,9 @@ async function begin(e: Entry) {
       },
       onSuccess: () => {
         patch(e, { state: 'done', sent: e.row.size, percent: 100, bytesPerSecond: null, secondsLeft: null });
-        void e.qc.invalidateQueries({ queryKey: segmentClipsKey(slug, segmentId) });
+        void e.qc.invalidateQueries({ queryKey: queryKeys.segmentClips(slug, segmentId) });
         // Shot cards say "Has footage" from their clip count.
-        void e.qc.invalidateQueries({ queryKey: ['shots', slug] });
+        void e.qc.invalidateQueries({ queryKey: queryKeys.shots(slug) });
         pump();
       },
     });

@@ -5,13 +5,12 @@ import { apiFetch } from '@/lib/api/client';
 import type { Role } from '@/lib/auth/policy';
 import type { CrewMemberDto, InvitationDto, InviteInput } from '@/lib/crew/schemas';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys } from '@/lib/api/query-keys';
 
-const crewKey = (slug: string) => ['crew', slug] as const;
-const invitationsKey = (slug: string) => ['invitations', slug] as const;
 
 export function useCrew(slug: string, initialData: CrewMemberDto[]) {
   return useQuery({
-    queryKey: crewKey(slug),
+    queryKey: queryKeys.crew(slug),
     queryFn: () => apiFetch<{ crew: CrewMemberDto[] }>(channelApi(slug, 'crew')).then((r) => r.crew),
     initialData,
   });
@@ -19,7 +18,7 @@ export function useCrew(slug: string, initialData: CrewMemberDto[]) {
 
 export function useInvitations(slug: string, initialData: InvitationDto[]) {
   return useQuery({
-    queryKey: invitationsKey(slug),
+    queryKey: queryKeys.invitations(slug),
     queryFn: () => apiFetch<{ invitations: InvitationDto[] }>(channelApi(slug, 'invitations')).then((r) => r.invitations),
     initialData,
   });
@@ -29,7 +28,7 @@ type Delivery = { invitation: InvitationDto; delivered: boolean };
 
 export function useCrewMutations(slug: string) {
   const qc = useQueryClient();
-  const refresh = () => Promise.all([qc.invalidateQueries({ queryKey: crewKey(slug) }), qc.invalidateQueries({ queryKey: invitationsKey(slug) })]);
+  const refresh = () => Promise.all([qc.invalidateQueries({ queryKey: queryKeys.crew(slug) }), qc.invalidateQueries({ queryKey: queryKeys.invitations(slug) })]);
   return {
     invite: useMutation({
       mutationFn: (input: InviteInput) => apiFetch<Delivery>(channelApi(slug, 'invitations'), { method: 'POST', body: input }),

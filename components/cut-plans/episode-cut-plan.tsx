@@ -10,11 +10,12 @@ import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
 import { CutPlanView, money } from './cut-plan-view';
 import { SafetyNote } from './safety-note';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys } from '@/lib/api/query-keys';
 
 type Props = { channelSlug: string; episodeId: string; levelLabels: string[]; canEdit: boolean; initial: EpisodePlanDto };
 
 export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, initial }: Props) {
-  const key = ['cut-plan', 'episode', episodeId];
+  const key = queryKeys.episodeCutPlan(episodeId);
   const client = useQueryClient();
   const [scope, setScope] = useState<'whole' | number>('whole');
   const [error, setError] = useState<string | undefined>();

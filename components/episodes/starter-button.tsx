@@ -6,6 +6,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { apiFetch } from '@/lib/api/client';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys } from '@/lib/api/query-keys';
 
 export function StarterButton({ channelSlug, episodeId }: { channelSlug: string; episodeId: string }) {
   const router = useRouter();
@@ -13,7 +14,7 @@ export function StarterButton({ channelSlug, episodeId }: { channelSlug: string;
   const start = useMutation({
     mutationFn: () => apiFetch(channelApi(channelSlug, 'episodes', episodeId, 'starter'), { method: 'POST' }),
     onSuccess: async () => {
-      await qc.invalidateQueries({ queryKey: ['board', channelSlug, episodeId] });
+      await qc.invalidateQueries({ queryKey: queryKeys.runningOrder(channelSlug, episodeId) });
       router.refresh();
     },
   });

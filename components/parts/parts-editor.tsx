@@ -15,6 +15,7 @@ import type { StockItemDto } from '@/lib/stock/schemas';
 import { formatLength } from '@/lib/units';
 import { PartForm, type PartFormValues } from './part-form';
 import { channelApi, channelPage } from '@/lib/api/paths';
+import { queryKeys } from '@/lib/api/query-keys';
 
 type SegmentPlan = { plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number };
 type Props = {
@@ -29,9 +30,9 @@ type Props = {
 
 export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock, initialParts, initialPlan }: Props) {
   const client = useQueryClient();
-  const partsKey = ['parts', segmentId];
+  const partsKey = queryKeys.parts(segmentId);
   const parts = useQuery({ queryKey: partsKey, queryFn: () => apiFetch<{ parts: PartDto[] }>(channelApi(channelSlug, 'segments', segmentId, 'parts')).then((r) => r.parts), initialData: initialParts });
-  const plan = useQuery({ queryKey: ['cut-plan', 'segment', segmentId], queryFn: () => apiFetch<SegmentPlan>(channelApi(channelSlug, 'segments', segmentId, 'cut-plan')), initialData: initialPlan });
+  const plan = useQuery({ queryKey: queryKeys.segmentCutPlan(segmentId), queryFn: () => apiFetch<SegmentPlan>(channelApi(channelSlug, 'segments', segmentId, 'cut-plan')), initialData: initialPlan });
   const [editing, setEditing] = useState<string | null>(null);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [message, setMessage] = useState<string | undefined>();
@@ -42,7 +43,7 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
     setErrors(e instanceof ApiError ? e.fields : {});
     setMessage(e instanceof ApiError ? e.message : 'Could not save the part.');
   };
-  const refresh = () => Promise.all([client.invalidateQueries({ queryKey: partsKey }), client.invalidateQueries({ queryKey: ['cut-plan'] })]);
+  const refresh = () => Promise.all([client.invalidateQueries({ queryKey: partsKey }), client.invalidateQueries({ queryKey: queryKeys.cutPlans() })]);
   const done = () => {
     setErrors({});
     setMessage(undefined);

@@ -5,13 +5,12 @@ import { apiFetch } from '@/lib/api/client';
 import { reorderRunningOrder } from '@/lib/segments/order';
 import type { RunningOrderDto, CreateSegmentInput, SegmentDto, UpdateSegmentInput } from '@/lib/segments/schemas';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys, mutationKeys } from '@/lib/api/query-keys';
 
-export const runningOrderKey = (slug: string, episodeId: string) => ['running-order', slug, episodeId] as const;
-const moveKey = (slug: string, episodeId: string) => ['running-order', slug, episodeId, 'move'] as const;
 
 export function useRunningOrder(slug: string, initialRunningOrder: RunningOrderDto) {
   return useQuery({
-    queryKey: runningOrderKey(slug, initialRunningOrder.episode.id),
+    queryKey: queryKeys.runningOrder(slug, initialRunningOrder.episode.id),
     queryFn: () => apiFetch<RunningOrderDto>(channelApi(slug, 'episodes', initialRunningOrder.episode.id, 'running-order')),
     initialData: initialRunningOrder,
   });
@@ -21,9 +20,9 @@ export type MoveVariables = { segmentId: string; afterId: string | null; title: 
 
 export function useMoveSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
-  const key = runningOrderKey(slug, episodeId);
+  const key = queryKeys.runningOrder(slug, episodeId);
   return useMutation({
-    mutationKey: moveKey(slug, episodeId),
+    mutationKey: mutationKeys.moveSegment(slug, episodeId),
     mutationFn: ({ segmentId, afterId }: MoveVariables) =>
       apiFetch<{ segment: SegmentDto }>(channelApi(slug, 'segments', segmentId, 'position'), { method: 'PUT', body: { afterId } }),
     // Kept synchronous on purpose: the cache must hold the new order before React paints the drop,
@@ -40,7 +39,7 @@ export function useMoveSegment(slug: string, episodeId: string) {
     },
     onSettled: () => {
       // With several moves in flight, only the last one refetches, so an early answer cannot undo a later move.
-      if (qc.isMutating({ mutationKey: moveKey(slug, episodeId) }) > 1) return;
+      if (qc.isMutating({ mutationKey: mutationKeys.moveSegment(slug, episodeId) }) > 1) return;
       return qc.invalidateQueries({ queryKey: key, exact: true });
     },
   });
@@ -54,7 +53,7 @@ export function useAddSegment(slug: string, episodeId: string) {
   return useMutation({
     mutationFn: (input: CreateSegmentInput) =>
       apiFetch<{ segment: SegmentDto }>(channelApi(slug, 'episodes', episodeId, 'segments'), { method: 'POST', body: input }),
-    onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
+    onSettled: () => qc.invalidateQueries({ queryKey: queryKeys.runningOrder(slug, episodeId), exact: true }),
   });
 }
 
@@ -63,7 +62,7 @@ export function useUpdateSegment(slug: string, episodeId: string) {
   return useMutation({
     mutationFn: ({ segmentId, patch }: { segmentId: string; patch: UpdateSegmentInput }) =>
       apiFetch<{ segment: SegmentDto }>(channelApi(slug, 'segments', segmentId), { method: 'PATCH', body: patch }),
-    onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
+    onSettled: () => qc.invalidateQueries({ queryKey: queryKeys.runningOrder(slug, episodeId), exact: true }),
   });
 }
 
@@ -71,6 +70,6 @@ export function useDeleteSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (segmentId: string) => apiFetch<void>(channelApi(slug, 'segments', segmentId), { method: 'DELETE' }),
-    onSettled: () => qc.invalidateQueries({ queryKey: runningOrderKey(slug, episodeId), exact: true }),
+    onSettled: () => qc.invalidateQueries({ queryKey: queryKeys.runningOrder(slug, episodeId), exact: true }),
   });
 }

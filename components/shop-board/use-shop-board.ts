@@ -1,7 +1,6 @@
 'use client';
 
 import { useMutation, useQuery, useQueryClient, type QueryKey } from '@tanstack/react-query';
-import { runningOrderKey } from '@/components/running-order/use-running-order';
 import { apiFetch } from '@/lib/api/client';
 import { moveAfter } from '@/lib/segments/order';
 import type { RunningOrderDto } from '@/lib/segments/schemas';
@@ -10,20 +9,16 @@ import type { PendingSafetyDto } from '@/lib/safety/schemas';
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { filtersToSearch, type BoardFilters } from './board-query';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys, mutationKeys } from '@/lib/api/query-keys';
 
 export type BoardData = { shots: BoardShotDto[]; pendingSafety: PendingSafetyDto[] };
 
-// Under the same ['shots', slug] prefix as the segment shot lists, so an edit in either view refreshes the other.
-export const shopBoardKey = (slug: string, filters: BoardFilters) => ['shots', slug, 'board', filtersToSearch(filters)] as const;
-const allBoardsKey = (slug: string) => ['shots', slug, 'board'] as const;
-export const myShotsKey = (slug: string) => ['shots', slug, 'mine'] as const;
-const shotMailKey = (slug: string) => ['shot-mail', slug] as const;
-const stateKey = (slug: string) => ['shot-state', slug] as const;
+// Under the same queryKeys.shots(slug) prefix as the segment shot lists, so an edit in either view refreshes the other.
 
 export function useBoardShots(slug: string, filters: BoardFilters, initial: { filters: BoardFilters; data: BoardData }) {
   const search = filtersToSearch(filters);
   return useQuery({
-    queryKey: shopBoardKey(slug, filters),
+    queryKey: queryKeys.shopBoard(slug, filtersToSearch(filters)),
     queryFn: () => apiFetch<BoardData>(`${channelApi(slug, 'shots')}${search ? `?${search}` : ''}`),
     // The server's first view only answers the filters it was rendered for.
     initialData: search === filtersToSearch(initial.filters) ? initial.data : undefined,
@@ -34,7 +29,7 @@ export function useBoardShots(slug: string, filters: BoardFilters, initial: { fi
 
 export function useMyShots(slug: string, initialShots: BoardShotDto[]) {
   return useQuery({
-    queryKey: myShotsKey(slug),
+    queryKey: queryKeys.myShots(slug),
     queryFn: () => apiFetch<{ shots: BoardShotDto[] }>(channelApi(slug, 'shots', 'mine')).then((r) => r.shots),
     initialData: initialShots,
   });
@@ -43,7 +38,7 @@ export function useMyShots(slug: string, initialShots: BoardShotDto[]) {
 /** Segments of the chosen episode, for the Segment filter; shares the running order's cache. */
 export function useEpisodeSegments(slug: string, episodeId: string | undefined, initialRunningOrder: RunningOrderDto | null) {
   return useQuery({
-    queryKey: runningOrderKey(slug, episodeId ?? ''),
+    queryKey: queryKeys.runningOrder(slug, episodeId ?? ''),
     queryFn: () => apiFetch<RunningOrderDto>(channelApi(slug, 'episodes', episodeId ?? '', 'running-order')),
     enabled: episodeId !== undefined,
     initialData: initialRunningOrder && initialRunningOrder.episode.id === episodeId ? initialRunningOrder : undefined,
@@ -78,26 +73,26 @@ const replaceShot = (shots: BoardShotDto[], shot: BoardShotDto) => shots.map((s)
 export function useChangeShotState(slug: string, viewerName: string) {
   const qc = useQueryClient();
   const { mutateAsync } = useMutation({
-    mutationKey: stateKey(slug),
+    mutationKey: mutationKeys.setShotState(slug),
     mutationFn: ({ shot, state, reason, afterId }: StateChange) =>
       apiFetch<{ shot: BoardShotDto }>(channelApi(slug, 'shots', shot.id, 'state'), {
         method: 'PUT',
         body: { state, ...(reason !== undefined && { reason }), ...(afterId !== undefined && { afterId }) },
       }).then((r) => r.shot),
     onSuccess: (shot) => {
-      for (const [key, data] of qc.getQueriesData<BoardData>({ queryKey: allBoardsKey(slug) })) {
+      for (const [key, data] of qc.getQueriesData<BoardData>({ queryKey: queryKeys.shopBoards(slug) })) {
         if (data) qc.setQueryData<BoardData>(key, { ...data, shots: replaceShot(data.shots, shot) });
       }
-      const mine = qc.getQueryData<BoardShotDto[]>(myShotsKey(slug));
-      if (mine) qc.setQueryData(myShotsKey(slug), replaceShot(mine, shot));
+      const mine = qc.getQueryData<BoardShotDto[]>(queryKeys.myShots(slug));
+      if (mine) qc.setQueryData(queryKeys.myShots(slug), replaceShot(mine, shot));
     },
     onSettled: () => {
       // With several changes in flight only the last refetches, so an early answer cannot undo a later move.
-      if (qc.isMutating({ mutationKey: stateKey(slug) }) > 1) return;
+      if (qc.isMutating({ mutationKey: mutationKeys.setShotState(slug) }) > 1) return;
       return Promise.all([
-        qc.invalidateQueries({ queryKey: ['shots', slug] }),
+        qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
         // Running orders show shot progress per segment.
-        qc.invalidateQueries({ queryKey: ['board', slug] }),
+        qc.invalidateQueries({ queryKey: queryKeys.runningOrders(slug) }),
       ]);
     },
   });
@@ -106,18 +101,18 @@ export function useChangeShotState(slug: string, viewerName: string) {
     // Written here rather than in onMutate, which TanStack runs a tick later: the cache must hold the new
     // column in the same render as the drop, or the card is drawn back in its old column for a frame.
     // Cancelling first (it reverts at once) stops a refetch in flight from overwriting the move.
-    void qc.cancelQueries({ queryKey: allBoardsKey(slug) });
-    void qc.cancelQueries({ queryKey: myShotsKey(slug) });
+    void qc.cancelQueries({ queryKey: queryKeys.shopBoards(slug) });
+    void qc.cancelQueries({ queryKey: queryKeys.myShots(slug) });
     const now = new Date().toISOString();
-    const boards = qc.getQueriesData<BoardData>({ queryKey: allBoardsKey(slug) });
-    const mine = qc.getQueryData<BoardShotDto[]>(myShotsKey(slug));
+    const boards = qc.getQueriesData<BoardData>({ queryKey: queryKeys.shopBoards(slug) });
+    const mine = qc.getQueryData<BoardShotDto[]>(queryKeys.myShots(slug));
     for (const [key, data] of boards) {
       if (data) qc.setQueryData<BoardData>(key, { ...data, shots: applyChange(data.shots, v, viewerName, now, true) });
     }
-    if (mine) qc.setQueryData<BoardShotDto[]>(myShotsKey(slug), applyChange(mine, v, viewerName, now, false));
+    if (mine) qc.setQueryData<BoardShotDto[]>(queryKeys.myShots(slug), applyChange(mine, v, viewerName, now, false));
     return mutateAsync(v).catch((err: unknown) => {
       for (const [key, data] of boards as [QueryKey, BoardData | undefined][]) qc.setQueryData(key, data);
-      if (mine) qc.setQueryData(myShotsKey(slug), mine);
+      if (mine) qc.setQueryData(queryKeys.myShots(slug), mine);
       throw err;
     });
   };
@@ -126,7 +121,7 @@ export function useChangeShotState(slug: string, viewerName: string) {
 export function useShotMail(slug: string, initialWaiting: number) {
   const qc = useQueryClient();
   const waiting = useQuery({
-    queryKey: shotMailKey(slug),
+    queryKey: queryKeys.shotMail(slug),
     queryFn: () => apiFetch<{ waiting: number }>(channelApi(slug, 'shot-mail')).then((r) => r.waiting),
     initialData: initialWaiting,
     // Assignments made in another tab or by the worker change the count.
@@ -134,7 +129,7 @@ export function useShotMail(slug: string, initialWaiting: number) {
   });
   const send = useMutation({
     mutationFn: () => apiFetch<{ sent: number; failed: number }>(channelApi(slug, 'shot-mail'), { method: 'POST' }),
-    onSettled: () => qc.invalidateQueries({ queryKey: shotMailKey(slug) }),
+    onSettled: () => qc.invalidateQueries({ queryKey: queryKeys.shotMail(slug) }),
   });
   return { waiting, send };
 }

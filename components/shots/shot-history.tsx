@@ -6,6 +6,7 @@ import { LocalTime } from '@/components/shop-board/dates';
 import { apiFetch } from '@/lib/api/client';
 import { shotStateLabels, type ShotState } from '@/lib/shots/catalog';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys } from '@/lib/api/query-keys';
 
 type Event = { from: ShotState; to: ShotState; reason: string | null; by: string | null; at: string };
 
@@ -13,7 +14,7 @@ type Event = { from: ShotState; to: ShotState; reason: string | null; by: string
 export function ShotHistory({ channelSlug, shotId, number }: { channelSlug: string; shotId: string; number: number }) {
   const [open, setOpen] = useState(false);
   const history = useQuery({
-    queryKey: ['shots', channelSlug, 'history', shotId],
+    queryKey: queryKeys.shotHistory(channelSlug, shotId),
     queryFn: () => apiFetch<{ history: Event[] }>(channelApi(channelSlug, 'shots', shotId)).then((r) => r.history),
     enabled: open,
   });

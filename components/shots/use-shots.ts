@@ -7,10 +7,8 @@ import type { Tool } from '@/lib/safety/tools';
 import type { SegmentSafetyDto } from '@/lib/safety/schemas';
 import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys, mutationKeys } from '@/lib/api/query-keys';
 
-export const segmentShotsKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId] as const;
-export const segmentSafetyKey = (slug: string, segmentId: string) => ['safety', slug, 'segment', segmentId] as const;
-const moveKey = (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId, 'move'] as const;
 
 
 // Numbers follow the list order, so an optimistic move or delete renumbers at once, as the server will.
@@ -18,7 +16,7 @@ const renumber = (shots: ShotDto[]): ShotDto[] => shots.map((s, i) => (s.number 
 
 export function useSegmentShots(slug: string, segmentId: string, initialShots: ShotDto[]) {
   return useQuery({
-    queryKey: segmentShotsKey(slug, segmentId),
+    queryKey: queryKeys.segmentShots(slug, segmentId),
     queryFn: () => apiFetch<{ shots: ShotDto[] }>(channelApi(slug, 'segments', segmentId, 'shots')).then((r) => r.shots),
     initialData: initialShots,
   });
@@ -27,7 +25,7 @@ export function useSegmentShots(slug: string, segmentId: string, initialShots: S
 /** Settles a shot mutation: the segment's list refetches, and so does any other shot view under the same prefix. */
 function useRefreshShots(slug: string) {
   const qc = useQueryClient();
-  return () => qc.invalidateQueries({ queryKey: ['shots', slug] });
+  return () => qc.invalidateQueries({ queryKey: queryKeys.shots(slug) });
 }
 
 export function useUpdateShot(slug: string, segmentId: string) {
@@ -37,7 +35,7 @@ export function useUpdateShot(slug: string, segmentId: string) {
     mutationFn: ({ shotId, patch }: { shotId: string; patch: UpdateShotInput }) =>
       apiFetch<{ shot: ShotDto }>(channelApi(slug, 'shots', shotId), { method: 'PATCH', body: patch }).then((r) => r.shot),
     onSuccess: (shot) => {
-      qc.setQueryData<ShotDto[]>(segmentShotsKey(slug, segmentId), (list) => list?.map((s) => (s.id === shot.id ? { ...shot, number: s.number } : s)));
+      qc.setQueryData<ShotDto[]>(queryKeys.segmentShots(slug, segmentId), (list) => list?.map((s) => (s.id === shot.id ? { ...shot, number: s.number } : s)));
       return refresh();
     },
   });
@@ -47,7 +45,7 @@ export type DeleteVariables = { shotId: string; number: number };
 
 export function useDeleteShot(slug: string, segmentId: string) {
   const qc = useQueryClient();
-  const key = segmentShotsKey(slug, segmentId);
+  const key = queryKeys.segmentShots(slug, segmentId);
   const refresh = useRefreshShots(slug);
   return useMutation({
     mutationFn: ({ shotId }: DeleteVariables) => apiFetch<void>(channelApi(slug, 'shots', shotId), { method: 'DELETE' }),
@@ -84,9 +82,9 @@ export type MoveVariables = { shotId: string; afterId: string | null; number: nu
 
 export function useMoveShot(slug: string, segmentId: string) {
   const qc = useQueryClient();
-  const key = segmentShotsKey(slug, segmentId);
+  const key = queryKeys.segmentShots(slug, segmentId);
   return useMutation({
-    mutationKey: moveKey(slug, segmentId),
+    mutationKey: mutationKeys.moveShot(slug, segmentId),
     mutationFn: ({ shotId, afterId }: MoveVariables) =>
       apiFetch<{ shot: ShotDto }>(channelApi(slug, 'shots', shotId, 'position'), { method: 'PUT', body: { afterId } }),
     // Synchronous on purpose: the cache holds the new order before React paints the drop, so the row does not jump back.
@@ -101,8 +99,8 @@ export function useMoveShot(slug: string, segmentId: string) {
     },
     onSettled: () => {
       // Only the last of several moves in flight refetches, so an early answer cannot undo a later move.
-      if (qc.isMutating({ mutationKey: moveKey(slug, segmentId) }) > 1) return;
-      return qc.invalidateQueries({ queryKey: ['shots', slug] });
+      if (qc.isMutating({ mutationKey: mutationKeys.moveShot(slug, segmentId) }) > 1) return;
+      return qc.invalidateQueries({ queryKey: queryKeys.shots(slug) });
     },
   });
 }
@@ -120,7 +118,7 @@ export function useBulkAddShots(slug: string, segmentId: string) {
 
 export function useSegmentSafety(slug: string, segmentId: string, initialSafety: SegmentSafetyDto) {
   return useQuery({
-    queryKey: segmentSafetyKey(slug, segmentId),
+    queryKey: queryKeys.segmentSafety(slug, segmentId),
     queryFn: () => apiFetch<{ safety: SegmentSafetyDto }>(channelApi(slug, 'segments', segmentId, 'tools')).then((r) => r.safety),
     initialData: initialSafety,
   });
@@ -132,8 +130,8 @@ function useSafetyMutation<V>(slug: string, segmentId: string, request: (v: V) =
   return useMutation({
     mutationFn: (v: V) => request(v).then((r) => r.safety),
     onSuccess: (safety) => {
-      qc.setQueryData(segmentSafetyKey(slug, segmentId), safety);
-      return qc.invalidateQueries({ queryKey: ['shots', slug] });
+      qc.setQueryData(queryKeys.segmentSafety(slug, segmentId), safety);
+      return qc.invalidateQueries({ queryKey: queryKeys.shots(slug) });
     },
   });
 }

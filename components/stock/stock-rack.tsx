@@ -11,6 +11,7 @@ import { stockKindLabels, stockKinds, type CutSettingsDto, type StockItemDto } f
 import { formatLength } from '@/lib/units';
 import { StockForm } from './stock-form';
 import { channelApi } from '@/lib/api/paths';
+import { queryKeys } from '@/lib/api/query-keys';
 
 type Props = { channelSlug: string; canEdit: boolean; initialStock: StockItemDto[]; initialSettings: CutSettingsDto };
 
@@ -18,7 +19,7 @@ const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
 
 export function StockRack({ channelSlug, canEdit, initialStock, initialSettings }: Props) {
   const client = useQueryClient();
-  const stock = useQuery({ queryKey: ['stock', channelSlug], queryFn: () => apiFetch<{ stock: StockItemDto[] }>(channelApi(channelSlug, 'stock')).then((r) => r.stock), initialData: initialStock });
+  const stock = useQuery({ queryKey: queryKeys.stock(channelSlug), queryFn: () => apiFetch<{ stock: StockItemDto[] }>(channelApi(channelSlug, 'stock')).then((r) => r.stock), initialData: initialStock });
   const [editing, setEditing] = useState<string | null>(null);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [message, setMessage] = useState<string | undefined>();
@@ -30,7 +31,7 @@ export function StockRack({ channelSlug, canEdit, initialStock, initialSettings 
   const done = async () => {
     setErrors({});
     setMessage(undefined);
-    await Promise.all([client.invalidateQueries({ queryKey: ['stock', channelSlug] }), client.invalidateQueries({ queryKey: ['cut-plan'] })]);
+    await Promise.all([client.invalidateQueries({ queryKey: queryKeys.stock(channelSlug) }), client.invalidateQueries({ queryKey: queryKeys.cutPlans() })]);
   };
   const add = useMutation({ mutationFn: (b: Record<string, unknown>) => apiFetch(channelApi(channelSlug, 'stock'), { method: 'POST', body: b }), onSuccess: () => done().then(() => setFormKey((k) => k + 1)), onError });
   const save = useMutation({
@@ -109,7 +110,7 @@ function CutSettingsForm({ channelSlug, canEdit, initial }: { channelSlug: strin
     mutationFn: (b: Record<string, string>) => apiFetch(channelApi(channelSlug, 'cut-settings'), { method: 'PATCH', body: b }),
     onSuccess: () => {
       setErrors({});
-      return client.invalidateQueries({ queryKey: ['cut-plan'] });
+      return client.invalidateQueries({ queryKey: queryKeys.cutPlans() });
     },
     onError: (e) => setErrors(e instanceof ApiError ? { ...e.fields, _: e.message } : { _: 'Could not save.' }),
   });

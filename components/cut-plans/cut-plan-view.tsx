@@ -4,6 +4,7 @@ import type { CutPlan, StockPlan } from '@/lib/cut-plans/build';
 import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
 import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
+import { Stat } from '@/components/ui/stat';
 
 export const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
 
@@ -153,14 +154,5 @@ function StockSection({
         ))}
       </ol>
     </section>
-  );
-}
-
-function Stat({ label, value }: { label: string; value: string }) {
-  return (
-    <div className="rounded-md bg-paper-deep/70 px-3 py-2">
-      <dt className="text-xs text-ink-faint">{label}</dt>
-      <dd className="font-mono text-base">{value}</dd>
-    </div>
   );
 }

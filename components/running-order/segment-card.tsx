@@ -10,8 +10,9 @@ import { kindLabels, type SegmentDto } from '@/lib/segments/schemas';
 import type { ShotProgress } from '@/lib/shots/schemas';
 import { kindSwatches } from './runtime-bar';
 import { levelText, SegmentEditForm } from './segment-edit-form';
-import { GripIcon } from '@/components/ui/grip-icon';
+import { DragHandle, DragHandlePreview } from '@/components/ui/drag-handle';
 import { channelPage } from '@/lib/api/paths';
+import { Badge } from '@/components/ui/badge';
 
 export const segmentHref = (channelSlug: string, episodeId: string, segmentId: string) =>
   channelPage(channelSlug, 'episodes', episodeId, 'segments', segmentId);
@@ -38,18 +39,7 @@ export function SortableSegmentItem({ onDeleted, ...props }: ItemProps & { onDel
     toggleRef.current?.focus();
   };
 
-  const handle = (
-    <button
-      type="button"
-      ref={setActivatorNodeRef}
-      {...attributes}
-      {...listeners}
-      aria-label={`Move ${segment.title}`}
-      className="flex min-h-touch w-12 shrink-0 cursor-grab touch-none items-center justify-center self-stretch border-r border-paper-edge text-ink-faint hover:bg-paper-deep hover:text-ink active:cursor-grabbing"
-    >
-      <GripIcon />
-    </button>
-  );
+  const handle = <DragHandle sortable={{ attributes, listeners, setActivatorNodeRef }} label={`Move ${segment.title}`} layout="strip" className="min-h-touch w-12" />;
 
   const editToggle = (
     <button
@@ -101,11 +91,7 @@ export function SegmentCardPreview(props: ItemProps) {
     <SegmentCardBody
       {...props}
       overlay
-      handle={
-        <span aria-hidden="true" className="flex w-12 shrink-0 cursor-grabbing items-center justify-center self-stretch border-r border-paper-edge text-ink">
-          <GripIcon />
-        </span>
-      }
+      handle={<DragHandlePreview className="w-12" />}
     />
   );
 }
@@ -202,13 +188,17 @@ function ShotProgressLine({ progress }: { progress: ShotProgress | undefined }) 
 
 function ScriptBadge({ hasScript }: { hasScript: boolean }) {
   return hasScript ? (
-    <span className="inline-flex items-center gap-1 rounded-full bg-ok-soft px-2 py-0.5 text-xs font-bold text-ok">
-      <svg aria-hidden="true" width="12" height="12" viewBox="0 0 12 12">
-        <path d="M2.5 6.5l2.2 2.2 4.8-5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
-      </svg>
+    <Badge
+      tone="ok"
+      icon={
+        <svg aria-hidden="true" width="12" height="12" viewBox="0 0 12 12">
+          <path d="M2.5 6.5l2.2 2.2 4.8-5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+        </svg>
+      }
+    >
       Script
-    </span>
+    </Badge>
   ) : (
-    <span className="inline-flex items-center rounded-full border border-dashed border-ink/30 px-2 py-0.5 text-xs text-ink-soft">No script yet</span>
+    <Badge tone="missing">No script yet</Badge>
   );
 }

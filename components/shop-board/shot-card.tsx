@@ -13,13 +13,14 @@ import { cameraLabels, framingLabels, shotStateLabels, type ShotState } from '@/
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { shotHref } from './board-query';
 import { formatDay, LocalTime } from './dates';
-import { GripIcon } from '@/components/ui/grip-icon';
+import { DragHandle, DragHandlePreview } from '@/components/ui/drag-handle';
 import { DueBadge } from '@/components/shots/due-badge';
+import { Badge, type BadgeTone } from '@/components/ui/badge';
 
-const statePills: Record<ShotState, string> = {
-  planned: 'border border-ink/25 text-ink-soft',
-  captured: 'bg-ok-soft text-ok',
-  retake: 'bg-attention text-white',
+const statePills: Record<ShotState, BadgeTone> = {
+  planned: 'neutral',
+  captured: 'ok',
+  retake: 'attentionSolid',
 };
 
 const changedText: Record<ShotState, string> = {
@@ -29,7 +30,7 @@ const changedText: Record<ShotState, string> = {
 };
 
 export function StatePill({ state }: { state: ShotState }) {
-  return <span className={`inline-flex rounded-full px-2 py-0.5 text-xs font-bold ${statePills[state]}`}>{shotStateLabels[state]}</span>;
+  return <Badge tone={statePills[state]}>{shotStateLabels[state]}</Badge>;
 }
 
 type BodyProps = {
@@ -120,12 +121,16 @@ export function ShotCardBody({ slug, shot, handle, footer, showState = false, ov
 
 function FootageBadge() {
   return (
-    <span className="inline-flex items-center gap-1 rounded-full bg-ok-soft px-2 py-0.5 text-xs font-bold text-ok">
-      <svg aria-hidden="true" width="12" height="12" viewBox="0 0 12 12" fill="none" stroke="currentColor" strokeWidth="1.3" strokeLinejoin="round">
-        <path d="M1 3h7v6H1zM8 5l3-1.5v5L8 7" />
-      </svg>
+    <Badge
+      tone="ok"
+      icon={
+        <svg aria-hidden="true" width="12" height="12" viewBox="0 0 12 12" fill="none" stroke="currentColor" strokeWidth="1.3" strokeLinejoin="round">
+          <path d="M1 3h7v6H1zM8 5l3-1.5v5L8 7" />
+        </svg>
+      }
+    >
       Has footage
-    </span>
+    </Badge>
   );
 }
 
@@ -158,13 +163,17 @@ function ShotClipsBody({ slug, shot }: { slug: string; shot: BoardShotDto }) {
 
 export function SafetyPendingBadge() {
   return (
-    <span className="inline-flex items-center gap-1 rounded-full border border-attention bg-attention-soft px-2 py-0.5 text-xs font-bold text-attention-ink">
-      <svg aria-hidden="true" width="12" height="12" viewBox="0 0 12 12">
-        <path d="M6 1.2L11 10.5H1z" fill="none" stroke="currentColor" strokeWidth="1.4" strokeLinejoin="round" />
-        <path d="M6 4.6v2.8M6 8.6v.4" stroke="currentColor" strokeWidth="1.4" strokeLinecap="round" />
-      </svg>
+    <Badge
+      tone="attention"
+      icon={
+        <svg aria-hidden="true" width="12" height="12" viewBox="0 0 12 12">
+          <path d="M6 1.2L11 10.5H1z" fill="none" stroke="currentColor" strokeWidth="1.4" strokeLinejoin="round" />
+          <path d="M6 4.6v2.8M6 8.6v.4" stroke="currentColor" strokeWidth="1.4" strokeLinecap="round" />
+        </svg>
+      }
+    >
       Safety review pending
-    </span>
+    </Badge>
   );
 }
 
@@ -172,17 +181,13 @@ export function SafetyPendingBadge() {
 export function SortableShotCard({ slug, shot }: { slug: string; shot: BoardShotDto }) {
   const { attributes, listeners, setNodeRef, setActivatorNodeRef, transform, transition, isDragging } = useSortable({ id: shot.id });
   const handle = (
-    <button
-      type="button"
-      ref={setActivatorNodeRef}
-      {...attributes}
-      {...listeners}
-      aria-label={`Move: ${shot.description}`}
+    <DragHandle
+      sortable={{ attributes, listeners, setActivatorNodeRef }}
+      label={`Move: ${shot.description}`}
+      layout="strip"
+      className="w-11 focus-visible:[outline-offset:-4px]"
       data-shot-handle={shot.id}
-      className="flex w-11 shrink-0 cursor-grab touch-none focus-visible:[outline-offset:-4px] items-center justify-center self-stretch border-r border-paper-edge text-ink-faint hover:bg-paper-deep hover:text-ink active:cursor-grabbing"
-    >
-      <GripIcon />
-    </button>
+    />
   );
   return (
     <li ref={setNodeRef} style={{ transform: CSS.Translate.toString(transform), transition }}>
@@ -205,11 +210,7 @@ export function ShotCardPreview({ slug, shot }: { slug: string; shot: BoardShotD
       slug={slug}
       shot={shot}
       overlay
-      handle={
-        <span aria-hidden="true" className="flex w-11 shrink-0 cursor-grabbing items-center justify-center self-stretch border-r border-paper-edge text-ink">
-          <GripIcon />
-        </span>
-      }
+      handle={<DragHandlePreview className="w-11" />}
     />
   );
 }

@@ -3,6 +3,7 @@
 import { useSyncExternalStore } from 'react';
 import type { ShotState } from '@/lib/shots/catalog';
 import { dueStatus } from '@/lib/shots/due';
+import { Badge } from '@/components/ui/badge';
 
 const noop = () => () => {};
 const localToday = () => {
@@ -17,5 +18,5 @@ export function DueBadge({ dueDate, state }: { dueDate: string | null; state: Sh
   const today = useSyncExternalStore(noop, localToday, () => null);
   const status = today ? dueStatus(dueDate, state, today) : null;
   if (!status) return null;
-  return <span className="rounded-full bg-attention-soft px-2 py-0.5 text-xs font-bold text-attention-ink">{text[status]}</span>;
+  return <Badge tone="attentionSoft">{text[status]}</Badge>;
 }

@@ -11,10 +11,11 @@ import type { FieldErrors } from '@/lib/errors';
 import { cameraLabels, cameras, framingLabels, framings, MAX_DESCRIPTION, type Camera, type Framing } from '@/lib/shots/catalog';
 import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 import { useUpdateShot } from './use-shots';
-import { GripIcon } from '@/components/ui/grip-icon';
+import { DragHandle } from '@/components/ui/drag-handle';
 import { DueBadge } from './due-badge';
 import { ShotHistory } from './shot-history';
 import { formatDay } from '@/components/shop-board/dates';
+import { Badge } from '@/components/ui/badge';
 
 export type CrewOption = { userId: string; name: string };
 
@@ -63,16 +64,7 @@ export function ShotRow(props: Props) {
   }
 
   const handle = canReorder ? (
-    <button
-      type="button"
-      ref={setActivatorNodeRef}
-      {...attributes}
-      {...listeners}
-      aria-label={`Move shot ${shot.number}`}
-      className="flex min-h-touch min-w-touch cursor-grab touch-none items-center justify-center rounded-md text-ink-faint hover:bg-paper-deep hover:text-ink active:cursor-grabbing"
-    >
-      <GripIcon small />
-    </button>
+    <DragHandle sortable={{ attributes, listeners, setActivatorNodeRef }} label={`Move shot ${shot.number}`} layout="button" small />
   ) : null;
 
   return (
@@ -155,17 +147,19 @@ function RowActions({ shot, canEdit, canManage, editLocked, onEdit, onDuplicate,
 
 function StateBadge({ shot }: { shot: ShotDto }) {
   if (shot.state === 'captured') {
-    return <span className="inline-flex rounded-full border border-ok bg-ok-soft px-2 py-0.5 text-xs font-bold text-ok">Captured</span>;
+    return <Badge tone="okOutlined">Captured</Badge>;
   }
   if (shot.state === 'retake') {
     return (
       <span className="inline-flex flex-col gap-0.5">
-        <span className="inline-flex w-fit rounded-full border border-attention bg-attention-soft px-2 py-0.5 text-xs font-bold text-attention-ink">Retake</span>
+        <Badge tone="attention" className="w-fit">
+          Retake
+        </Badge>
         {shot.retakeReason ? <span className="text-xs text-attention-ink">{shot.retakeReason}</span> : null}
       </span>
     );
   }
-  return <span className="inline-flex rounded-full border border-ink/30 px-2 py-0.5 text-xs font-bold text-ink-soft">Planned</span>;
+  return <Badge tone="neutral">Planned</Badge>;
 }
 
 type Draft = { description: string; framing: Framing; camera: Camera; assigneeId: string; dueDate: string; notes: string };

@@ -25,6 +25,7 @@ import { getSegmentSafety } from '@/lib/safety/queries';
 import { listStock } from '@/lib/stock/queries';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
 import { channelPage } from '@/lib/api/paths';
+import { Stat } from '@/components/ui/stat';
 
 export const metadata: Metadata = { title: 'Segment' };
 
@@ -140,14 +141,5 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
         </section>
       ) : null}
     </>
-  );
-}
-
-function Stat({ label, value }: { label: string; value: string }) {
-  return (
-    <div className="rounded-md bg-paper-deep/70 px-3 py-2">
-      <dt className="text-xs text-ink-faint">{label}</dt>
-      <dd className="font-mono text-base">{value}</dd>
-    </div>
   );
 }

@@ -31,7 +31,8 @@ export class ShopBoardPage {
     const { keyboard } = this.page;
     await this.page.getByRole('button', { name: `Move: ${description}` }).focus();
     await keyboard.press('Space');
-    await expectAnnounced(this.page, 'Picked up');
+    // The pick-up is announced, then at once where the card is over (its own column).
+    await expectAnnounced(this.page, /Picked up|is over/);
     await keyboard.press('ArrowRight');
     await expectAnnounced(this.page, `is over ${to}`);
     const saved = this.page.waitForResponse((r) => r.url().includes('/state') && r.request().method() === 'PUT');

@@ -6,6 +6,7 @@ import { reorderRunningOrder } from '@/lib/segments/order';
 import type { RunningOrderDto, CreateSegmentInput, SegmentDto, UpdateSegmentInput } from '@/lib/segments/schemas';
 import { channelApi } from '@/lib/api/paths';
 import { queryKeys, mutationKeys } from '@/lib/api/query-keys';
+import { optimisticReorder } from '@/lib/api/optimistic';
 
 
 export function useRunningOrder(slug: string, initialRunningOrder: RunningOrderDto) {
@@ -22,26 +23,14 @@ export function useMoveSegment(slug: string, episodeId: string) {
   const qc = useQueryClient();
   const key = queryKeys.runningOrder(slug, episodeId);
   return useMutation({
-    mutationKey: mutationKeys.moveSegment(slug, episodeId),
     mutationFn: ({ segmentId, afterId }: MoveVariables) =>
       apiFetch<{ segment: SegmentDto }>(channelApi(slug, 'segments', segmentId, 'position'), { method: 'PUT', body: { afterId } }),
-    // Kept synchronous on purpose: the cache must hold the new order before React paints the drop,
-    // otherwise the card jumps back to its old place for a frame. Cancelling first (it reverts
-    // synchronously) stops a refetch in flight from overwriting the optimistic order.
-    onMutate: ({ segmentId, afterId }: MoveVariables) => {
-      void qc.cancelQueries({ queryKey: key, exact: true });
-      const previous = qc.getQueryData<RunningOrderDto>(key);
-      if (previous) qc.setQueryData<RunningOrderDto>(key, reorderRunningOrder(previous, segmentId, afterId));
-      return { previous };
-    },
-    onError: (_err, _vars, context) => {
-      if (context?.previous) qc.setQueryData<RunningOrderDto>(key, context.previous);
-    },
-    onSettled: () => {
-      // With several moves in flight, only the last one refetches, so an early answer cannot undo a later move.
-      if (qc.isMutating({ mutationKey: mutationKeys.moveSegment(slug, episodeId) }) > 1) return;
-      return qc.invalidateQueries({ queryKey: key, exact: true });
-    },
+    ...optimisticReorder<RunningOrderDto, MoveVariables>(qc, {
+      key,
+      mutationKey: mutationKeys.moveSegment(slug, episodeId),
+      reorder: (current, { segmentId, afterId }) => reorderRunningOrder(current, segmentId, afterId),
+      refresh: () => qc.invalidateQueries({ queryKey: key, exact: true }),
+    }),
   });
 }
 

@@ -8,6 +8,7 @@ import type { SegmentSafetyDto } from '@/lib/safety/schemas';
 import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 import { channelApi } from '@/lib/api/paths';
 import { queryKeys, mutationKeys } from '@/lib/api/query-keys';
+import { optimisticReorder } from '@/lib/api/optimistic';
 
 
 
@@ -84,24 +85,14 @@ export function useMoveShot(slug: string, segmentId: string) {
   const qc = useQueryClient();
   const key = queryKeys.segmentShots(slug, segmentId);
   return useMutation({
-    mutationKey: mutationKeys.moveShot(slug, segmentId),
     mutationFn: ({ shotId, afterId }: MoveVariables) =>
       apiFetch<{ shot: ShotDto }>(channelApi(slug, 'shots', shotId, 'position'), { method: 'PUT', body: { afterId } }),
-    // Synchronous on purpose: the cache holds the new order before React paints the drop, so the row does not jump back.
-    onMutate: ({ shotId, afterId }: MoveVariables) => {
-      void qc.cancelQueries({ queryKey: key, exact: true });
-      const previous = qc.getQueryData<ShotDto[]>(key);
-      if (previous) qc.setQueryData<ShotDto[]>(key, renumber(moveAfter(previous, shotId, afterId)));
-      return { previous };
-    },
-    onError: (_err, _vars, context) => {
-      if (context?.previous) qc.setQueryData<ShotDto[]>(key, context.previous);
-    },
-    onSettled: () => {
-      // Only the last of several moves in flight refetches, so an early answer cannot undo a later move.
-      if (qc.isMutating({ mutationKey: mutationKeys.moveShot(slug, segmentId) }) > 1) return;
-      return qc.invalidateQueries({ queryKey: queryKeys.shots(slug) });
-    },
+    ...optimisticReorder<ShotDto[], MoveVariables>(qc, {
+      key,
+      mutationKey: mutationKeys.moveShot(slug, segmentId),
+      reorder: (current, { shotId, afterId }) => renumber(moveAfter(current, shotId, afterId)),
+      refresh: () => qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
+    }),
   });
 }
 

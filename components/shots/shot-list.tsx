@@ -23,7 +23,8 @@ import { afterIdFor, moveInList } from '@/lib/segments/order';
 import { mayEditShot } from '@/lib/shots/policy';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { emptyQuickAdd, ShotQuickAdd, type QuickAddDraft } from './shot-quick-add';
-import { ShotRow, type CrewOption } from './shot-row';
+import { type CrewOption } from './shot-editor';
+import { ShotRow } from './shot-row';
 import { useDeleteShot, useDuplicateShot, useMoveShot, useRestoreShot, useSegmentShots } from './use-shots';
 import { useViewer } from '@/components/providers/viewer-provider';
 

@@ -7,7 +7,7 @@ import { SelectField, TextField } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import { cameraLabels, framingLabels, MAX_QUICK_ADD_LINES } from '@/lib/shots/catalog';
 import { parseShotLines, type QuickAddResult } from '@/lib/shots/quick-add';
-import { TextArea, type CrewOption } from './shot-row';
+import { TextArea, type CrewOption } from './shot-editor';
 import { useBulkAddShots, type BulkVariables } from './use-shots';
 
 export type QuickAddDraft = { text: string; assigneeId: string; dueDate: string };

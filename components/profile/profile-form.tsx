@@ -1,32 +1,27 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
-import { ApiError, apiFetch } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
-import type { FieldErrors } from '@/lib/errors';
-import { updateProfileSchema, type ProfileDto, type UpdateProfileInput } from '@/lib/users/schemas';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
+import { apiFetch } from '@/lib/api/client';
+import { api } from '@/lib/api/paths';
+import { updateProfileSchema, type ProfileDto } from '@/lib/users/schemas';
 
 export function ProfileForm({ profile }: { profile: ProfileDto }) {
   const router = useRouter();
-  const [fields, setFields] = useState<FieldErrors>({});
-  const save = useMutation({
-    mutationFn: (input: UpdateProfileInput) => apiFetch<{ profile: ProfileDto }>('/api/profile', { method: 'PATCH', body: input }),
+  const { fields, submit, mutation: save } = useSchemaForm({
+    schema: updateProfileSchema,
+    send: (input) => apiFetch<{ profile: ProfileDto }>(api('profile'), { method: 'PATCH', body: input }),
     onSuccess: () => router.refresh(),
-    onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
   });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
-    const parsed = updateProfileSchema.safeParse({ name: String(form.get('name') ?? ''), emailOptOut: form.get('shotMail') !== 'on' });
-    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
-    setFields({});
-    save.mutate(parsed.data);
+    submit({ name: String(form.get('name') ?? ''), emailOptOut: form.get('shotMail') !== 'on' });
   }
 
   return (

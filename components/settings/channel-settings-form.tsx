@@ -1,35 +1,27 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
-import { ApiError, apiFetch } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
-import { channelSettingsSchema, type ChannelDto, type ChannelSettingsInput } from '@/lib/channels/schemas';
-import type { FieldErrors } from '@/lib/errors';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
+import { apiFetch } from '@/lib/api/client';
+import { channelSettingsSchema, type ChannelDto } from '@/lib/channels/schemas';
 import { channelApi } from '@/lib/api/paths';
 
 export function ChannelSettingsForm({ channel }: { channel: ChannelDto }) {
   const router = useRouter();
-  const [fields, setFields] = useState<FieldErrors>({});
-  const save = useMutation({
-    mutationFn: (input: ChannelSettingsInput) =>
-      apiFetch<{ channel: ChannelDto }>(channelApi(channel.slug), { method: 'PATCH', body: input }),
+  const { fields, submit, mutation: save } = useSchemaForm({
+    schema: channelSettingsSchema,
+    send: (input) => apiFetch<{ channel: ChannelDto }>(channelApi(channel.slug), { method: 'PATCH', body: input }),
     onSuccess: () => router.refresh(),
-    onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
   });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
-    const raw = { name: String(form.get('name') ?? ''), speakingRateWpm: Number(form.get('speakingRateWpm')) };
-    const parsed = channelSettingsSchema.safeParse(raw);
-    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
-    setFields({});
-    save.mutate(parsed.data);
+    submit({ name: String(form.get('name') ?? ''), speakingRateWpm: Number(form.get('speakingRateWpm')) });
   }
 
   return (

@@ -4,11 +4,6 @@ import {
   closestCenter,
   DndContext,
   DragOverlay,
-  KeyboardSensor,
-  PointerSensor,
-  TouchSensor,
-  useSensor,
-  useSensors,
   type Announcements,
   type DragEndEvent,
   type DragStartEvent,
@@ -16,12 +11,12 @@ import {
   type ScreenReaderInstructions,
   type UniqueIdentifier,
 } from '@dnd-kit/core';
-import { SortableContext, sortableKeyboardCoordinates, verticalListSortingStrategy } from '@dnd-kit/sortable';
-import { useId, useMemo, useRef, useState } from 'react';
+import { SortableContext, verticalListSortingStrategy } from '@dnd-kit/sortable';
+import { useMemo, useRef, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
-import { afterIdFor, moveInList } from '@/lib/segments/order';
+import { useSortableList } from '@/components/ui/use-sortable-list';
 import type { RunningOrderDto } from '@/lib/segments/schemas';
 import { AddSegmentForm } from './add-segment-form';
 import { RuntimeBar } from './runtime-bar';
@@ -43,18 +38,8 @@ export function RunningOrderList({ channelSlug, initialRunningOrder }: { channel
   const [activeId, setActiveId] = useState<string | null>(null);
   const [deletedTitle, setDeletedTitle] = useState<string | null>(null);
   const headingRef = useRef<HTMLHeadingElement>(null);
-  // The drop target the screen reader last heard about, so picking up does not also announce "moved".
-  const announcedOver = useRef<UniqueIdentifier | null>(null);
-  const dndId = useId();
-
-  const sensors = useSensors(
-    // A few pixels of travel before a drag starts, so a click on the handle stays a click.
-    useSensor(PointerSensor, { activationConstraint: { distance: 6 } }),
-    useSensor(TouchSensor, { activationConstraint: { delay: 150, tolerance: 5 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
-
   const ids = useMemo(() => segments.map((s) => s.id), [segments]);
+  const { dndId, sensors, dropOf, noteStart, overChanged } = useSortableList(ids);
   const forecastById = new Map(forecast.segments.map((f) => [f.id, f]));
   const count = ids.length;
   const titleOf = (id: UniqueIdentifier) => segments.find((s) => s.id === id)?.title ?? 'The segment';
@@ -63,12 +48,12 @@ export function RunningOrderList({ channelSlug, initialRunningOrder }: { channel
 
   const announcements: Announcements = {
     onDragStart: ({ active }) => {
-      announcedOver.current = active.id;
+      noteStart(active.id);
       return `Picked up ${titleOf(active.id)}, ${at(active.id)}.`;
     },
     onDragOver: ({ active, over }) => {
-      if ((over?.id ?? null) === announcedOver.current) return undefined;
-      announcedOver.current = over?.id ?? null;
+      // Picking up does not also announce "moved".
+      if (!overChanged(over?.id ?? null)) return undefined;
       return over
         ? `${titleOf(active.id)} moved to ${at(over.id)}.`
         : `${titleOf(active.id)} is no longer over a position in the running order.`;
@@ -85,16 +70,12 @@ export function RunningOrderList({ channelSlug, initialRunningOrder }: { channel
     setDeletedTitle(null);
   }
 
-  function onDragEnd({ active, over }: DragEndEvent) {
+  function onDragEnd(event: DragEndEvent) {
     setActiveId(null);
-    if (!over || active.id === over.id) return;
-    const from = ids.indexOf(String(active.id));
-    const to = ids.indexOf(String(over.id));
-    if (from < 0 || to < 0) return;
-    const segmentId = String(active.id);
-    const afterId = afterIdFor(moveInList(ids, from, to), segmentId);
+    const drop = dropOf(event);
+    if (!drop) return;
     // Called in the same event as setActiveId(null): the optimistic order lands in the same render as the drop.
-    move.mutate({ segmentId, afterId, title: titleOf(active.id) });
+    move.mutate({ segmentId: drop.id, afterId: drop.afterId, title: titleOf(drop.id) });
   }
 
   function onDeleted(title: string) {

@@ -5,13 +5,8 @@ import {
   DndContext,
   DragOverlay,
   getFirstCollision,
-  KeyboardSensor,
-  PointerSensor,
   pointerWithin,
   rectIntersection,
-  TouchSensor,
-  useSensor,
-  useSensors,
   type Announcements,
   type CollisionDetection,
   type DragEndEvent,
@@ -20,7 +15,8 @@ import {
   type ScreenReaderInstructions,
   type UniqueIdentifier,
 } from '@dnd-kit/core';
-import { arrayMove, sortableKeyboardCoordinates } from '@dnd-kit/sortable';
+import { arrayMove } from '@dnd-kit/sortable';
+import { useSortableSensors } from '@/components/ui/use-sortable-list';
 import { useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
 import { shotStateLabels, shotStates, type ShotState } from '@/lib/shots/catalog';
 import type { BoardShotDto } from '@/lib/shots/schemas';
@@ -74,11 +70,7 @@ export function DesktopBoard({ slug, shots, canMove, onMove, askRetake }: Props)
   const movedToNewColumn = useRef(false);
   const dndId = useId();
 
-  const sensors = useSensors(
-    useSensor(PointerSensor, { activationConstraint: { distance: 6 } }),
-    useSensor(TouchSensor, { activationConstraint: { delay: 150, tolerance: 5 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
+  const sensors = useSortableSensors();
 
   useEffect(() => {
     requestAnimationFrame(() => {

@@ -3,23 +3,18 @@
 import {
   closestCenter,
   DndContext,
-  KeyboardSensor,
-  PointerSensor,
-  TouchSensor,
-  useSensor,
-  useSensors,
   type Announcements,
   type DragEndEvent,
   type Modifier,
   type ScreenReaderInstructions,
   type UniqueIdentifier,
 } from '@dnd-kit/core';
-import { SortableContext, sortableKeyboardCoordinates, verticalListSortingStrategy } from '@dnd-kit/sortable';
-import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { SortableContext, verticalListSortingStrategy } from '@dnd-kit/sortable';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { can } from '@/lib/auth/policy';
-import { afterIdFor, moveInList } from '@/lib/segments/order';
+import { useSortableList } from '@/components/ui/use-sortable-list';
 import { mayEditShot } from '@/lib/shots/policy';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { emptyQuickAdd, ShotQuickAdd, type QuickAddDraft } from './shot-quick-add';
@@ -60,8 +55,6 @@ export function ShotList({ channelSlug, segmentId, initialShots, crew }: Props) 
   const [draft, setDraft] = useState<QuickAddDraft>(emptyQuickAdd);
   const headingRef = useRef<HTMLHeadingElement>(null);
   const returnFocusTo = useRef<string | null>(null);
-  const announcedOver = useRef<UniqueIdentifier | null>(null);
-  const dndId = useId();
 
   // A row deleted elsewhere while open simply closes its editor.
   const editingShot = editingId ? list.find((s) => s.id === editingId) : undefined;
@@ -70,25 +63,19 @@ export function ShotList({ channelSlug, segmentId, initialShots, crew }: Props) 
   const mayEditAny = canManage || list.some((s) => mayEditShot(viewer, s));
   const columns = mayEditAny ? 9 : 8;
 
-  const sensors = useSensors(
-    // A few pixels of travel before a drag starts, so a click on the handle stays a click.
-    useSensor(PointerSensor, { activationConstraint: { distance: 6 } }),
-    useSensor(TouchSensor, { activationConstraint: { delay: 150, tolerance: 5 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
   const ids = useMemo(() => list.map((s) => s.id), [list]);
+  const { dndId, sensors, dropOf, noteStart, overChanged } = useSortableList(ids);
   const count = ids.length;
   const numberOf = (id: UniqueIdentifier) => ids.indexOf(String(id)) + 1;
   const at = (id: UniqueIdentifier) => `place ${numberOf(id)} of ${count}`;
 
   const announcements: Announcements = {
     onDragStart: ({ active }) => {
-      announcedOver.current = active.id;
+      noteStart(active.id);
       return `Picked up shot ${numberOf(active.id)}.`;
     },
     onDragOver: ({ active, over }) => {
-      if ((over?.id ?? null) === announcedOver.current) return undefined;
-      announcedOver.current = over?.id ?? null;
+      if (!overChanged(over?.id ?? null)) return undefined;
       return over ? `Shot ${numberOf(active.id)} moved to ${at(over.id)}.` : `Shot ${numberOf(active.id)} is no longer over the list.`;
     },
     onDragEnd: ({ active, over }) =>
@@ -103,13 +90,9 @@ export function ShotList({ channelSlug, segmentId, initialShots, crew }: Props) 
     returnFocusTo.current = null;
   }, [editing]);
 
-  function onDragEnd({ active, over }: DragEndEvent) {
-    if (!over || active.id === over.id) return;
-    const from = ids.indexOf(String(active.id));
-    const to = ids.indexOf(String(over.id));
-    if (from < 0 || to < 0) return;
-    const shotId = String(active.id);
-    move.mutate({ shotId, afterId: afterIdFor(moveInList(ids, from, to), shotId), number: from + 1 });
+  function onDragEnd(event: DragEndEvent) {
+    const drop = dropOf(event);
+    if (drop) move.mutate({ shotId: drop.id, afterId: drop.afterId, number: drop.from + 1 });
   }
 
   function onDelete(shot: ShotDto) {

@@ -29,7 +29,7 @@ export default tseslint.config(
       'no-restricted-imports': ['error', { paths: [{ name: 'knex', message: 'Use lib/<domain>/queries.ts.' }, { name: '@/db/client', message: 'Use lib/<domain>/queries.ts.' }] }],
     },
   },
-  { files: ['scripts/**/*.mjs', '*.mjs'], languageOptions: { globals: globals.node } },
+  { files: ['scripts/**/*.mjs', '*.mjs', 'lib/**/*.mjs'], languageOptions: { globals: globals.node } },
   {
     files: ['**/*.cjs'],
     languageOptions: { sourceType: 'commonjs', globals: globals.node },

@@ -33,12 +33,15 @@ const statusByCode: Record<ErrorCode, number> = {
 export class AppError extends Error {
   readonly code: ErrorCode;
   readonly fields: FieldErrors | undefined;
+  /** For 429: when to try again, sent as Retry-After (the wrapper's default is 900 s, the sign-in window). */
+  readonly retryAfterSeconds: number | undefined;
 
-  constructor(code: ErrorCode, message: string, fields?: FieldErrors, options?: { cause?: unknown }) {
+  constructor(code: ErrorCode, message: string, fields?: FieldErrors, options?: { cause?: unknown; retryAfterSeconds?: number }) {
     super(message, options);
     this.name = 'AppError';
     this.code = code;
     this.fields = fields;
+    this.retryAfterSeconds = options?.retryAfterSeconds;
   }
 
   get status(): number {

@@ -229,7 +229,7 @@ export async function createShotsFromText(
 export async function updateShot(member: Membership, shotId: string, input: UpdateShotInput): Promise<ShotDto> {
   const channelId = member.channel.id;
   return db.transaction(async (trx) => {
-    const current = await findShotRow(trx, channelId, shotId);
+    const current = await findShotRow(trx, channelId, shotId, { lock: true });
     assertMayEditShot(member, { assigneeId: current.assignee_id }, input);
     await assigneeInCrewOr400(trx, channelId, input.assigneeId);
     await trx('shots')
@@ -253,7 +253,7 @@ export async function updateShot(member: Membership, shotId: string, input: Upda
 
 export async function deleteShot(channelId: string, shotId: string): Promise<void> {
   await db.transaction(async (trx) => {
-    const current = await findShotRow(trx, channelId, shotId);
+    const current = await findShotRow(trx, channelId, shotId, { lock: true });
     await trx('shots').where({ id: shotId }).update({ deleted_at: trx.fn.now(), updated_at: trx.fn.now() });
     await openBursts(trx, channelId, [current.assignee_id]);
   });
@@ -261,7 +261,7 @@ export async function deleteShot(channelId: string, shotId: string): Promise<voi
 
 export async function restoreShot(channelId: string, shotId: string): Promise<ShotDto> {
   return db.transaction(async (trx) => {
-    const current = await findShotRow(trx, channelId, shotId, { deleted: true });
+    const current = await findShotRow(trx, channelId, shotId, { deleted: true, lock: true });
     await trx('shots').where({ id: shotId }).update({ deleted_at: null, updated_at: trx.fn.now() });
     await openBursts(trx, channelId, [current.assignee_id]);
     return toShotDto(await findShotRow(trx, channelId, shotId));

@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
+import * as cutSettingsRoute from '@/app/api/channels/[channel]/cut-settings/route';
+import * as episodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/route';
+import * as segmentRoute from '@/app/api/channels/[channel]/segments/[segmentId]/route';
 import * as stateRoute from '@/app/api/channels/[channel]/shots/[shotId]/state/route';
 import { db } from '@/db/client';
+import { toAppError } from '@/lib/errors';
+import { getCutSettings } from '@/lib/stock/queries';
+import { makeEpisode, makeOutlinedEpisode } from './episode-fixtures';
 import { createShot } from '@/lib/shots/queries';
 import { call, makeCrew } from './helpers';
 import type { Crew } from './route-matrix';
@@ -48,5 +54,64 @@ describe('shop board order in parallel', () => {
     expect(new Set(rows.map((r) => r.board_position)).size).toBe(rows.length);
     const after = rows.find((r) => r.id === shopShot.id)?.board_position ?? '';
     for (const card of cards) expect((rows.find((r) => r.id === card.id)?.board_position ?? '') > after).toBe(true);
+  });
+});
+
+describe('cut settings in parallel', () => {
+  it('keeps every field of four single-field changes sent at once', async () => {
+    for (let round = 0; round < 5; round++) {
+      const c = await makeCrew();
+      const bodies = [{ kerfIn: '3/32' }, { endTrimIn: '1/2' }, { minOffcutIn: '18' }, { lengthUnit: 'mm' }];
+      const answers = await Promise.all(bodies.map((body) => call(cutSettingsRoute.PATCH, 'PATCH', { as: c.host, params: ch(c), body })));
+      expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200]);
+      expect(await getCutSettings(c.channel.id)).toEqual({ kerfIn: 0.09375, endTrimIn: 0.5, minOffcutIn: 18, lengthUnit: 'mm' });
+    }
+  });
+});
+
+describe('episode dates in parallel', () => {
+  it('never leaves the shoot date after the publish date, and says which date is wrong', async () => {
+    const c = await makeCrew();
+    for (let round = 0; round < 8; round++) {
+      const episode = await makeEpisode(c);
+      const params = { ...ch(c), episodeId: episode.id };
+      await call(episodeRoute.PATCH, 'PATCH', { as: c.host, params, body: { shootDate: '2027-01-10', publishDate: '2027-01-20' } });
+      // Each is fine alone; together they would cross.
+      const answers = await Promise.all([
+        call(episodeRoute.PATCH, 'PATCH', { as: c.host, params, body: { shootDate: '2027-01-18' } }),
+        call(episodeRoute.PATCH, 'PATCH', { as: c.host, params, body: { publishDate: '2027-01-12' } }),
+      ]);
+      expect(answers.map((a) => a.status).sort()).toEqual([200, 400]);
+      expect(answers.find((a) => a.status === 400)?.json.error?.fields?.publishDate).toBeTruthy();
+      const row: { shoot: string; publish: string } = await db('episodes').where({ id: episode.id }).first(db.raw('shoot_date::text as shoot'), db.raw('publish_date::text as publish'));
+      expect(row.shoot <= row.publish).toBe(true);
+    }
+  });
+
+  it('holds the rule in the database too, with the same clear message', async () => {
+    const c = await makeCrew();
+    const episode = await makeEpisode(c);
+    const err = await db('episodes').where({ id: episode.id }).update({ shoot_date: '2027-02-02', publish_date: '2027-02-01' }).catch((e: unknown) => e);
+    expect(toAppError(err)).toMatchObject({ code: 'invalid_input', fields: { publishDate: 'The publish date comes after the shoot date.' } });
+  });
+});
+
+describe('segment kind and level in parallel', () => {
+  it('never loses a kind change to a parallel level change, nor leaves a level on a non-Build', async () => {
+    const c = await makeCrew();
+    const builds = [];
+    for (let i = 0; i < 3; i++) builds.push(...(await makeOutlinedEpisode(c)).segments.filter((s) => s.kind === 'build'));
+    for (const build of builds) {
+      const params = { ...ch(c), segmentId: build.id };
+      const answers = await Promise.all([
+        call(segmentRoute.PATCH, 'PATCH', { as: c.host, params, body: { kind: 'interlude' } }),
+        call(segmentRoute.PATCH, 'PATCH', { as: c.host, params, body: { level: 3 } }),
+      ]);
+      expect(answers.every((a) => a.status === 200 || a.status === 400)).toBe(true);
+      const row: { kind: string; level: number | null } = await db('segments').where({ id: build.id }).first('kind', 'level');
+      if (row.kind !== 'build') expect(row.level).toBeNull();
+      // Both can succeed only as "level, then kind"; the kind change must then be what is left.
+      if (answers.every((a) => a.status === 200)) expect(row.kind).toBe('interlude');
+    }
   });
 });

@@ -6,6 +6,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db/client';
 import { AppServer } from './app-server';
+import { makeLoadEpisode } from './cut-plan-fixtures';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { makeCrew, sessionCookie } from './helpers';
 import type { Crew } from './route-matrix';
@@ -232,5 +233,18 @@ describe('clip files', () => {
     expect(whole.headers.get('content-disposition')).toBe(`attachment; filename="Glue up ? take 2.mp4"; filename*=UTF-8''Glue%20up%20%E2%80%93%20take%202.mp4`);
     expect(Buffer.from(await whole.arrayBuffer()).equals(bytes)).toBe(true);
     expect((await fetch(fileUrl())).status).toBe(401);
+  });
+});
+
+// Issue 12, item 1: the planner's worker file is not part of Next's bundle, so it must load from `next start` too.
+describe('cut plans in the built app', () => {
+  it('plans an episode of 8 stock items x 9 parts on the worker pool under next start', async () => {
+    const { episode } = await makeLoadEpisode(crew, 401);
+    const res = await fetch(`${app.url}/api/channels/${crew.channel.slug}/episodes/${episode.id}/cut-plan`, { headers: { cookie } });
+    expect(res.status, app.output()).toBe(200);
+    const plan = (await res.json()) as { whole: { groups: unknown[]; pieceCount: number }; levels: unknown[] };
+    expect(plan.whole.groups).toHaveLength(8);
+    expect(plan.whole.pieceCount).toBeGreaterThan(0);
+    expect(plan.levels).toHaveLength(3);
   });
 });

@@ -58,6 +58,8 @@ export function uploadHooks(store: ClipStore) {
     },
 
     async onUploadFinish(_req: Request, upload: Upload): Promise<Record<string, never>> {
+      // Test hook (tests/integration/uploads.test.ts): die after the last byte, before the clip row, as a crash would.
+      if (process.env.KERFLINE_TEST_CRASH_BEFORE_CLIP_ROW === '1') process.exit(137);
       await ingestUpload(store, upload);
       return {};
     },

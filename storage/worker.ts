@@ -2,15 +2,32 @@ import 'server-only';
 import { pollEvery } from '@/lib/jobs/poll';
 import { removeStaleUploads } from './cleanup';
 import { runClipJobs } from './media-job';
+import { reconcileFinishedUploads } from './reconcile';
 import { clipStore } from './tus-server';
 
 const state = globalThis as unknown as { kerflineClipWorker?: NodeJS.Timeout[] };
 
-/** Media jobs every few seconds, stale-upload cleanup every hour; both read their work from PostgreSQL and disk. */
+/** How often finished uploads are checked for a missing clip row, and how long their bytes must have been still. */
+const reconcileMs = () => Number(process.env.CLIP_RECONCILE_MS ?? 60_000);
+const RECONCILE_SETTLED_MS = 60_000;
+
+/**
+ * Media jobs every few seconds, finished uploads without a clip row at start and every minute,
+ * stale-upload cleanup every hour; all read their work from PostgreSQL and disk.
+ */
 export function startClipWorker(pollMs = Number(process.env.CLIP_JOB_POLL_MS ?? 2000)): void {
   if (state.kerflineClipWorker) return;
   const sweep = () => removeStaleUploads(clipStore());
   const first = setTimeout(() => void sweep().catch((err: unknown) => console.error('stale upload cleanup', err)), 10_000);
   first.unref();
-  state.kerflineClipWorker = [pollEvery(pollMs, 'clip media jobs', () => runClipJobs(clipStore())), pollEvery(3600_000, 'stale upload cleanup', sweep), first];
+  // At start no finish hook of this process can be running, so every finished upload is settled.
+  const atStart = setTimeout(() => void reconcileFinishedUploads(clipStore(), 0).catch((err: unknown) => console.error('upload reconciler', err)), 0);
+  atStart.unref();
+  state.kerflineClipWorker = [
+    pollEvery(pollMs, 'clip media jobs', () => runClipJobs(clipStore())),
+    pollEvery(reconcileMs(), 'upload reconciler', () => reconcileFinishedUploads(clipStore(), RECONCILE_SETTLED_MS)),
+    pollEvery(3600_000, 'stale upload cleanup', sweep),
+    first,
+    atStart,
+  ];
 }

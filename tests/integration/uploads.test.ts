@@ -18,14 +18,15 @@ const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfline-uploads-'));
 const uploadDir = path.join(dir, 'uploads');
 const MAX = 300 * 1024 * 1024;
 const UPLOAD_PORT = Number(process.env.UPLOAD_TEST_PORT ?? 3197);
-const app = new AppServer(UPLOAD_PORT, {
+const appEnv = {
   DATABASE_URL: process.env.DATABASE_URL ?? '',
   NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? '',
   NEXTAUTH_URL: `http://127.0.0.1:${UPLOAD_PORT}`,
   UPLOAD_DIR: uploadDir,
   MAX_UPLOAD_BYTES: String(MAX),
   CLIP_JOB_POLL_MS: '300',
-});
+};
+const app = new AppServer(UPLOAD_PORT, appEnv);
 const endpoint = () => `${app.url}/api/uploads`;
 const b64 = (s: string) => Buffer.from(s).toString('base64');
 const metaHeader = (m: Record<string, string>) =>
@@ -187,6 +188,32 @@ describe('tus uploads: every byte arrives', () => {
     expect(fs.existsSync(path.join(uploadDir, id))).toBe(true);
     expect(new Set(fs.readdirSync(dir))).toEqual(before);
   });
+});
+
+// Issue 12, item 4: the server dies after the last byte is stored and before the finish hook writes the clip row.
+describe('an upload whose server died before its clip row', () => {
+  it('gets its clip row exactly once from the reconciler when the app starts again', async () => {
+    const file = path.join(dir, 'crash.bin');
+    const sha = await makeRandomFile(file, 300_000);
+    await app.kill();
+    const crashing = new AppServer(UPLOAD_PORT, { ...appEnv, KERFLINE_TEST_CRASH_BEFORE_CLIP_ROW: '1' });
+    await crashing.start();
+    const run = startTusUpload(endpoint(), file, { cookie, metadata: meta({ filename: 'crash.bin' }), retryDelays: [] });
+    await expect(run.done).rejects.toBeDefined();
+    await expect.poll(() => crashing.exited(), { timeout: 10_000 }).toBe(true);
+    const id = idOf(run.url!);
+    expect(fs.statSync(path.join(uploadDir, id)).size).toBe(300_000);
+    expect(await clipsOf(id)).toHaveLength(0);
+
+    await app.start();
+    await expect.poll(async () => (await clipsOf(id)).length, { timeout: 20_000, interval: 250 }).toBe(1);
+    expect((await clipsOf(id))[0]).toMatchObject({ sha256: sha, size_bytes: '300000', original_name: 'crash.bin' });
+    // Another start finds the row and adds none.
+    await app.kill();
+    await app.start();
+    await new Promise((r) => setTimeout(r, 1500));
+    expect(await clipsOf(id)).toHaveLength(1);
+  }, 120_000);
 });
 
 describe('clip files', () => {

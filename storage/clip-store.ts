@@ -20,4 +20,6 @@ export interface ClipStore {
   savePoster(clipId: string, jpegPath: string): Promise<void>;
   readPoster(clipId: string): Promise<Readable | null>;
   removePoster(clipId: string): Promise<void>;
+  /** Clip ids that have a stored poster, for the orphan sweep. */
+  listPosters(): Promise<string[]>;
 }

@@ -83,4 +83,9 @@ export class DiskClipStore implements ClipStore {
   async removePoster(clipId: string): Promise<void> {
     await rm(this.poster(clipId), { force: true });
   }
+
+  async listPosters(): Promise<string[]> {
+    const names = await readdir(this.posterDir).catch(() => [] as string[]);
+    return names.filter((n) => n.endsWith('.jpg') && SAFE_CLIP.test(n.slice(0, -4))).map((n) => n.slice(0, -4));
+  }
 }

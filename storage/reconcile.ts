@@ -1,5 +1,5 @@
 import 'server-only';
-import { uploadIdsInUse } from '@/lib/clips/queries';
+import { uploadIdsBeingRemoved, uploadIdsInUse } from '@/lib/clips/queries';
 import type { ClipStore } from './clip-store';
 import { ingestUpload } from './ingest';
 import { isTusError } from './tus-errors';
@@ -15,11 +15,13 @@ import { isTusError } from './tus-errors';
  */
 export async function reconcileFinishedUploads(store: ClipStore, settledMs: number, now = Date.now()): Promise<{ ingested: string[]; removed: string[] }> {
   const finished = (await store.listFinished()).filter((u) => now - u.touchedAt.getTime() >= settledMs);
-  const recorded = await uploadIdsInUse(finished.map((u) => u.uploadId));
+  const ids = finished.map((u) => u.uploadId);
+  // A clip deleted a moment ago leaves its bytes until the removal job runs; they are not a lost clip.
+  const [recorded, removing] = await Promise.all([uploadIdsInUse(ids), uploadIdsBeingRemoved(ids)]);
   const ingested: string[] = [];
   const removed: string[] = [];
   for (const { uploadId } of finished) {
-    if (recorded.has(uploadId)) continue;
+    if (recorded.has(uploadId) || removing.has(uploadId)) continue;
     const upload = await store.tus.getUpload(uploadId).catch(() => null);
     if (!upload) continue;
     try {

@@ -3,6 +3,7 @@ import { pollEvery } from '@/lib/jobs/poll';
 import { removeStaleUploads } from './cleanup';
 import { runClipJobs } from './media-job';
 import { reconcileFinishedUploads } from './reconcile';
+import { runByteRemovals, sweepOrphans } from './removals';
 import { clipStore } from './tus-server';
 
 const state = globalThis as unknown as { kerflineClipWorker?: NodeJS.Timeout[] };
@@ -12,8 +13,8 @@ const reconcileMs = () => Number(process.env.CLIP_RECONCILE_MS ?? 60_000);
 const RECONCILE_SETTLED_MS = 60_000;
 
 /**
- * Media jobs every few seconds, finished uploads without a clip row at start and every minute,
- * stale-upload cleanup every hour; all read their work from PostgreSQL and disk.
+ * Media jobs and byte removals every few seconds, finished uploads without a clip row at start and every minute,
+ * stale-upload cleanup and the orphan sweep every hour; all read their work from PostgreSQL and disk.
  */
 export function startClipWorker(pollMs = Number(process.env.CLIP_JOB_POLL_MS ?? 2000)): void {
   if (state.kerflineClipWorker) return;
@@ -26,7 +27,10 @@ export function startClipWorker(pollMs = Number(process.env.CLIP_JOB_POLL_MS ?? 
   state.kerflineClipWorker = [
     pollEvery(pollMs, 'clip media jobs', () => runClipJobs(clipStore())),
     pollEvery(reconcileMs(), 'upload reconciler', () => reconcileFinishedUploads(clipStore(), RECONCILE_SETTLED_MS)),
+    // Off only where another store shares the database (tests/integration/uploads.test.ts).
+    ...(process.env.KERFLINE_BYTE_REMOVALS === 'off' ? [] : [pollEvery(pollMs, 'clip byte removals', () => runByteRemovals(clipStore()))]),
     pollEvery(3600_000, 'stale upload cleanup', sweep),
+    pollEvery(3600_000, 'orphan sweep', () => sweepOrphans(clipStore())),
     first,
     atStart,
   ];

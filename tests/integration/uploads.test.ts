@@ -25,6 +25,8 @@ const appEnv = {
   UPLOAD_DIR: uploadDir,
   MAX_UPLOAD_BYTES: String(MAX),
   CLIP_JOB_POLL_MS: '300',
+  // byte-removals.test.ts takes the removal queue of this database with its own store.
+  KERFLINE_BYTE_REMOVALS: 'off',
 };
 const app = new AppServer(UPLOAD_PORT, appEnv);
 const endpoint = () => `${app.url}/api/uploads`;

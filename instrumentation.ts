@@ -5,6 +5,10 @@ export async function register(): Promise<void> {
     const { startShotMailWorker } = await import('./lib/shots/mail-worker');
     startShotMailWorker();
   }
+  {
+    const { warmPlanPool } = await import('./lib/cut-plans/plan-pool');
+    warmPlanPool().catch((err: unknown) => console.error('cut plan workers', err));
+  }
   if (process.env.KERFLINE_CLIP_WORKER !== 'off') {
     const { startClipWorker } = await import('./storage/worker');
     startClipWorker();

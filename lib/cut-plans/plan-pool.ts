@@ -13,8 +13,16 @@ import type { PlanTask, PlanTaskResult } from './plan-task';
 
 /** Plans of one channel computed at once in this process; more wait for the client to retry. */
 export const PLANS_PER_CHANNEL = 2;
-/** After the budget, how long a worker may still run before it is stopped and the request fails. */
-const OVERRUN_GRACE_MS = 10_000;
+/**
+ * After the budget, how long a worker may still run before it is stopped and the request fails.
+ * Generous: stopping a thread costs a new one that loads the planner again, and on a loaded
+ * machine that load alone took over 10 s (bench/cut-plan-load).
+ */
+const OVERRUN_GRACE_MS = 60_000;
+/** Plans waiting per thread; more are refused at once rather than left to wait many budgets long. */
+const QUEUE_PER_THREAD = 4;
+// One core stays with the request thread.
+const THREADS = Math.max(1, os.availableParallelism() - 1);
 
 type PoolState = {
   pool: Piscina<PlanTask, PlanTaskResult>;
@@ -31,11 +39,11 @@ function state(): PoolState {
       // A plain .mjs outside the bundle: Next would not compile a worker entry, and Vitest runs the
       // same file. Every start script runs the app from the repository root.
       filename: pathToFileURL(path.join(process.cwd(), 'lib', 'cut-plans', 'plan-worker.mjs')).href,
-      // One core stays with the request thread.
-      maxThreads: Math.max(1, os.availableParallelism() - 1),
-      minThreads: 0,
-      idleTimeout: 60_000,
-      maxQueue: 32,
+      maxThreads: THREADS,
+      // Threads stay up once started: each one loads (and compiles) the planner when it starts.
+      minThreads: THREADS,
+      idleTimeout: Number.POSITIVE_INFINITY,
+      maxQueue: THREADS * QUEUE_PER_THREAD,
     }),
     running: new Map(),
     inFlight: new Map(),
@@ -87,15 +95,25 @@ export async function computePlan(channelId: string, task: PlanTask): Promise<Pl
 }
 
 async function runOnPool(s: PoolState, task: PlanTask): Promise<PlanTaskResult> {
-  if (s.pool.queueSize >= s.pool.options.maxQueue) throw busy();
   try {
-    return await s.pool.run(task, { signal: AbortSignal.timeout(task.budgetMs + OVERRUN_GRACE_MS) });
+    if (s.pool.queueSize >= s.pool.options.maxQueue) throw busy();
+    // The signal counts from now, so it allows for the budgets of the plans queued ahead of this one.
+    const waitAhead = Math.ceil((s.pool.queueSize + 1) / THREADS) * task.budgetMs;
+    return await s.pool.run(task, { signal: AbortSignal.timeout(waitAhead + task.budgetMs + OVERRUN_GRACE_MS) });
   } catch (err) {
+    // Source: piscina 5 (dist/errors.js): a full queue rejects with this message.
+    if (err instanceof Error && err.message === 'Task queue is at limit') throw busy();
     if (err instanceof Error && err.name === 'AbortError') {
       throw new AppError('internal', 'Working out this cut plan took too long. Try again with fewer parts.', undefined, { cause: err });
     }
     throw err;
   }
+}
+
+/** Starts the threads and loads the planner in them, so the first plan request does not wait for that. */
+export async function warmPlanPool(): Promise<void> {
+  const settings = { kerfIn: 0, endTrimIn: 0, minOffcutIn: 0, lengthUnit: 'in' as const };
+  await state().pool.run({ parts: [], stock: [], settings, byLevel: false, budgetMs: 0 });
 }
 
 /** For tests: how many plans of a channel are running in this process now. */

@@ -40,7 +40,7 @@ export default tseslint.config(
       ],
     },
   },
-  { files: ['scripts/**/*.mjs', '*.mjs'], languageOptions: { globals: globals.node } },
+  { files: ['scripts/**/*.mjs', '*.mjs', 'lib/**/*.mjs'], languageOptions: { globals: globals.node } },
   {
     files: ['**/*.cjs'],
     languageOptions: { sourceType: 'commonjs', globals: globals.node },

@@ -9,6 +9,10 @@ export async function register(): Promise<void> {
     const { startShotMailWorker } = await import('./lib/mail/assignment-worker');
     startShotMailWorker();
   }
+  {
+    const { warmPlanPool } = await import('./lib/cut-plans/plan-pool');
+    warmPlanPool().catch((err: unknown) => console.error('cut plan workers', err));
+  }
   if (env.KERFLINE_CLIP_WORKER) {
     const { startClipWorker } = await import('./storage/worker');
     startClipWorker();

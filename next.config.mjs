@@ -19,7 +19,7 @@ const csp = [
 const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
-  serverExternalPackages: ['knex', 'pg', 'bcryptjs', 'nodemailer'],
+  serverExternalPackages: ['knex', 'pg', 'bcryptjs', 'nodemailer', 'piscina'],
   experimental: { authInterrupts: true },
   async headers() {
     return [

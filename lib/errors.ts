@@ -33,12 +33,15 @@ const statusByCode: Record<ErrorCode, number> = {
 export class AppError extends Error {
   readonly code: ErrorCode;
   readonly fields: FieldErrors | undefined;
+  /** For 429: when to try again, sent as Retry-After (the wrapper's default is 900 s, the sign-in window). */
+  readonly retryAfterSeconds: number | undefined;
 
-  constructor(code: ErrorCode, message: string, fields?: FieldErrors, options?: { cause?: unknown }) {
+  constructor(code: ErrorCode, message: string, fields?: FieldErrors, options?: { cause?: unknown; retryAfterSeconds?: number }) {
     super(message, options);
     this.name = 'AppError';
     this.code = code;
     this.fields = fields;
+    this.retryAfterSeconds = options?.retryAfterSeconds;
   }
 
   get status(): number {
@@ -58,8 +61,15 @@ export type ErrorBody = { error: { code: ErrorCode; message: string; fields?: Fi
 
 type PgError = { code?: unknown; constraint?: unknown };
 
+// CHECK constraints whose rule a person can act on: the field and message the route would have given.
+const checkMessages: Record<string, FieldErrors> = {
+  episodes_shoot_not_after_publish: { publishDate: 'The publish date comes after the shoot date.' },
+};
+
 // PostgreSQL SQLSTATEs that come from bad input rather than a bug (see the PostgreSQL manual, appendix A).
 function fromPgError(err: PgError): AppError | null {
+  const named = err.code === '23514' && typeof err.constraint === 'string' ? checkMessages[err.constraint] : undefined;
+  if (named) return invalidInput(named);
   switch (err.code) {
     case '23505':
       return new AppError('conflict', 'That already exists.');

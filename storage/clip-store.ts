@@ -13,9 +13,13 @@ export interface ClipStore {
   remove(uploadId: string): Promise<void>;
   /** Unfinished uploads and when their bytes last changed. */
   listUnfinished(): Promise<{ uploadId: string; touchedAt: Date }[]>;
+  /** Uploads whose every byte is stored (offset = size), and when their bytes last changed. */
+  listFinished(): Promise<{ uploadId: string; touchedAt: Date }[]>;
   /** A path ffprobe and ffmpeg can open, or null when the bytes are not on this machine. */
   localPath(uploadId: string): string | null;
   savePoster(clipId: string, jpegPath: string): Promise<void>;
   readPoster(clipId: string): Promise<Readable | null>;
   removePoster(clipId: string): Promise<void>;
+  /** Clip ids that have a stored poster, for the orphan sweep. */
+  listPosters(): Promise<string[]>;
 }

@@ -42,14 +42,22 @@ export class DiskClipStore implements ClipStore {
     });
   }
 
-  async listUnfinished(): Promise<{ uploadId: string; touchedAt: Date }[]> {
+  listUnfinished(): Promise<{ uploadId: string; touchedAt: Date }[]> {
+    return this.listUploads(false);
+  }
+
+  listFinished(): Promise<{ uploadId: string; touchedAt: Date }[]> {
+    return this.listUploads(true);
+  }
+
+  private async listUploads(finished: boolean): Promise<{ uploadId: string; touchedAt: Date }[]> {
     await mkdir(this.directory, { recursive: true });
     const names = await readdir(this.directory);
     const out: { uploadId: string; touchedAt: Date }[] = [];
     for (const name of names) {
       if (!SAFE_ID.test(name)) continue;
       const upload = await this.tus.getUpload(name).catch(() => null);
-      if (!upload || (upload.size !== undefined && upload.offset === upload.size)) continue;
+      if (!upload || (upload.size !== undefined && upload.offset === upload.size) !== finished) continue;
       const [data, info] = await Promise.all([stat(this.file(name)).catch(() => null), stat(`${this.file(name)}.json`).catch(() => null)]);
       const touched = Math.max(data?.mtimeMs ?? 0, info?.mtimeMs ?? 0);
       out.push({ uploadId: name, touchedAt: new Date(touched) });
@@ -74,5 +82,10 @@ export class DiskClipStore implements ClipStore {
 
   async removePoster(clipId: string): Promise<void> {
     await rm(this.poster(clipId), { force: true });
+  }
+
+  async listPosters(): Promise<string[]> {
+    const names = await readdir(this.posterDir).catch(() => [] as string[]);
+    return names.filter((n) => n.endsWith('.jpg') && SAFE_CLIP.test(n.slice(0, -4))).map((n) => n.slice(0, -4));
   }
 }

@@ -1,6 +1,7 @@
 import 'server-only';
 import type { Upload } from '@tus/server';
 import { NextRequest } from 'next/server';
+import { config } from '@/lib/config';
 import { can } from '@/lib/auth/policy';
 import { getUserFromRequest } from '@/lib/auth/session';
 import { displayName } from '@/lib/clips/names';
@@ -61,6 +62,8 @@ export function uploadHooks(store: ClipStore) {
     },
 
     async onUploadFinish(_req: Request, upload: Upload): Promise<Record<string, never>> {
+      // Test hook (tests/integration/uploads.test.ts): die after the last byte, before the clip row, as a crash would.
+      if (config().KERFLINE_TEST_CRASH_BEFORE_CLIP_ROW) process.exit(137);
       await ingestUpload(store, upload);
       return {};
     },

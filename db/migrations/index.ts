@@ -4,6 +4,8 @@ import * as episodes from './20261201100000_episodes';
 import * as cutlist from './20261202000000_cutlist';
 import * as shots from './20261202100000_shots';
 import * as clips from './20261203000000_clips';
+import * as episodeDateOrder from './20261212000000_episode_date_order';
+import * as byteRemovals from './20261212000001_byte_removals';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -15,6 +17,8 @@ const migrations: Record<string, Migration> = {
   '20261202000000_cutlist': cutlist,
   '20261202100000_shots': shots,
   '20261203000000_clips': clips,
+  '20261212000000_episode_date_order': episodeDateOrder,
+  '20261212000001_byte_removals': byteRemovals,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -82,7 +82,7 @@ export function errorResponse(err: unknown, req?: Request): Response {
   if (appError.code === 'internal') {
     console.error(`[api] ${req?.method ?? ''} ${req ? new URL(req.url).pathname : ''} failed`, appError.cause ?? err);
   }
-  const headers: HeadersInit = appError.code === 'too_many_requests' ? { 'retry-after': '900' } : {};
+  const headers: HeadersInit = appError.code === 'too_many_requests' ? { 'retry-after': String(appError.retryAfterSeconds ?? 900) } : {};
   return Response.json(toErrorBody(appError), { status: appError.status, headers });
 }
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { AppError } from '@/lib/errors';
-import { fieldErrorsFrom, parseWith, readJsonBody } from './validation';
+import { MAX_JSON_DEPTH, fieldErrorsFrom, findNul, jsonDepth, parseWith, readJsonBody } from './validation';
 
 const req = (body: string, type = 'application/json') =>
   new Request('http://127.0.0.1/x', { method: 'POST', body, headers: type ? { 'content-type': type } : {} });
@@ -34,6 +34,28 @@ describe('readJsonBody', () => {
   });
   it('refuses bodies over the cap with 413 while reading', async () => {
     expect(await codeOf(readJsonBody(req(JSON.stringify({ a: 'x'.repeat(2000) })), 1000))).toBe('payload_too_large');
+  });
+});
+
+describe('deeply nested bodies (issue 12, item 3)', () => {
+  it('answers 400 naming the body, not a stack overflow, for 6,000 levels of arrays or objects', async () => {
+    const arrays = '['.repeat(6000) + ']'.repeat(6000);
+    const objects = '{"a":'.repeat(6000) + '1' + '}'.repeat(6000);
+    for (const body of [arrays, objects]) {
+      const err = await readJsonBody(req(body)).catch((e: unknown) => e);
+      expect(err).toMatchObject({ code: 'invalid_input', fields: { _: expect.stringContaining(String(MAX_JSON_DEPTH)) } });
+    }
+  });
+  it('accepts nesting up to the limit and counts no brackets inside strings', async () => {
+    const atLimit = '['.repeat(MAX_JSON_DEPTH) + ']'.repeat(MAX_JSON_DEPTH);
+    expect(await codeOf(readJsonBody(req(atLimit)))).toBe('ok');
+    expect(jsonDepth(JSON.stringify({ a: '[[[{{{"\\', b: ['x'] }))).toBe(2);
+  });
+  it('walks a value of any depth for NUL without recursion', () => {
+    let deep: unknown = 'a\u0000';
+    for (let i = 0; i < 200_000; i++) deep = [deep];
+    expect(findNul(deep)?.length).toBe(200_000);
+    expect(findNul({ a: [1, { b: 'ok' }], c: 'x\u0000' })).toEqual(['c']);
   });
 });
 

@@ -33,34 +33,69 @@ export async function readJsonBody(req: Request, maxBytes = DEFAULT_MAX_BODY_BYT
   const bytes = await readCapped(req, maxBytes);
   const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
   if (text.trim() === '') throw new AppError('malformed_json', 'The request body is empty; send a JSON object.');
+  // Refused before JSON.parse and before any walk, so nothing below ever meets a deep value.
+  if (jsonDepth(text) > MAX_JSON_DEPTH) {
+    throw invalidInput({ _: `The body is nested more than ${MAX_JSON_DEPTH} levels deep.` }, 'The request body is nested too deeply.');
+  }
   let value: unknown;
   try {
     value = JSON.parse(text) as unknown;
   } catch {
     throw new AppError('malformed_json', 'The request body is not valid JSON.');
   }
-  const nul = findNul(value, []);
+  const nul = findNul(value);
   if (nul) throw invalidInput({ [nul.join('.') || '_']: 'Text cannot contain NUL characters.' });
   return value;
 }
 
-// PostgreSQL text cannot hold U+0000 (SQLSTATE 22021), so it is refused here, named by its field.
-function findNul(value: unknown, path: string[]): string[] | null {
-  if (typeof value === 'string') return value.includes('\u0000') ? path : null;
-  if (Array.isArray(value)) {
-    for (let i = 0; i < value.length; i++) {
-      const hit = findNul(value[i], [...path, String(i)]);
-      if (hit) return hit;
-    }
-    return null;
+/**
+ * The deepest bracket nesting of a JSON text, brackets inside strings not counted. A script body
+ * (lib/scripts: 20 node levels, two JSON levels each, plus marks and the wrapper) stays under 50.
+ */
+export const MAX_JSON_DEPTH = 64;
+
+export function jsonDepth(text: string): number {
+  let depth = 0;
+  let max = 0;
+  let inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (inString) {
+      if (c === 0x5c) i++; // backslash: the next character is escaped
+      else if (c === 0x22) inString = false;
+    } else if (c === 0x22) inString = true;
+    else if (c === 0x5b || c === 0x7b) max = Math.max(max, ++depth);
+    else if (c === 0x5d || c === 0x7d) depth--;
   }
-  if (value && typeof value === 'object') {
-    for (const [k, v] of Object.entries(value)) {
-      const hit = findNul(v, [...path, k]);
-      if (hit) return hit;
+  return max;
+}
+
+// PostgreSQL text cannot hold U+0000 (SQLSTATE 22021), so it is refused here, named by its field.
+// An explicit stack rather than recursion: the walk's depth never depends on the body.
+export function findNul(root: unknown): string[] | null {
+  type Item = { value: unknown; key: string; parent: Item | null };
+  const stack: Item[] = [{ value: root, key: '', parent: null }];
+  for (let item = stack.pop(); item; item = stack.pop()) {
+    const { value } = item;
+    if (typeof value === 'string') {
+      if (value.includes('\u0000')) return pathOf(item);
+    } else if (Array.isArray(value)) {
+      for (let i = value.length - 1; i >= 0; i--) stack.push({ value: value[i], key: String(i), parent: item });
+    } else if (value && typeof value === 'object') {
+      const entries = Object.entries(value);
+      for (let i = entries.length - 1; i >= 0; i--) {
+        const [key, v] = entries[i] ?? ['', undefined];
+        stack.push({ value: v, key, parent: item });
+      }
     }
   }
   return null;
+}
+
+function pathOf(item: { key: string; parent: { key: string; parent: unknown } | null }): string[] {
+  const path: string[] = [];
+  for (let at: typeof item | null = item; at?.parent; at = at.parent as typeof item | null) path.push(at.key);
+  return path.reverse();
 }
 
 const tooLarge = (maxBytes: number) =>

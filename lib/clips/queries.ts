@@ -228,3 +228,56 @@ export async function retryClipJob(job: ClipJob, error: string, maxAttempts = 3)
     .where({ id: job.id })
     .update({ locked_at: null, last_error: error.slice(0, 500), run_after: db.raw(`now() + make_interval(secs => ?)`, [30 * job.attempts]) });
 }
+
+// Byte removals: queued by a trigger whenever a clip row goes (migration 20261212000001); taken with
+// SKIP LOCKED so several app processes share the queue; a failed removal is retried later.
+export type ByteRemoval = { id: string; uploadId: string; clipId: string };
+
+/** Runs `remove` for up to `limit` due removals, each in its own transaction; returns how many were done. */
+export async function takeByteRemovals(limit: number, remove: (job: ByteRemoval) => Promise<void>): Promise<number> {
+  let done = 0;
+  for (let i = 0; i < limit; i++) {
+    const more = await db.transaction(async (trx) => {
+      const row: { id: string; upload_id: string; clip_id: string } | undefined = await trx('byte_removals')
+        .where('run_after', '<=', trx.fn.now())
+        .orderBy('id')
+        .forUpdate()
+        .skipLocked()
+        .first('id', 'upload_id', 'clip_id');
+      if (!row) return false;
+      try {
+        await remove({ id: row.id, uploadId: row.upload_id, clipId: row.clip_id });
+        await trx('byte_removals').where({ id: row.id }).delete();
+        done++;
+      } catch (err) {
+        await trx('byte_removals')
+          .where({ id: row.id })
+          .update({ attempts: trx.raw('attempts + 1'), run_after: trx.raw("now() + interval '5 minutes'"), last_error: String(err).slice(0, 500) });
+      }
+      return true;
+    });
+    if (!more) break;
+  }
+  return done;
+}
+
+/** Upload ids (of those given) whose clip was deleted and whose bytes wait for removal: never ingest them again. */
+export async function uploadIdsBeingRemoved(uploadIds: string[]): Promise<Set<string>> {
+  if (uploadIds.length === 0) return new Set();
+  const rows: { upload_id: string }[] = await db('byte_removals').whereIn('upload_id', uploadIds).select('upload_id');
+  return new Set(rows.map((r) => r.upload_id));
+}
+
+/** Segment ids (of those given) that still exist. */
+export async function existingSegmentIds(segmentIds: string[]): Promise<Set<string>> {
+  if (segmentIds.length === 0) return new Set();
+  const rows: { id: string }[] = await db('segments').whereIn('id', segmentIds).select('id');
+  return new Set(rows.map((r) => r.id));
+}
+
+/** Clip ids (of those given) that still have a row. */
+export async function existingClipIds(clipIds: string[]): Promise<Set<string>> {
+  if (clipIds.length === 0) return new Set();
+  const rows: { id: string }[] = await db('clips').whereIn('id', clipIds).select('id');
+  return new Set(rows.map((r) => r.id));
+}

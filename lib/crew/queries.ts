@@ -196,12 +196,18 @@ async function lockOpenInvitation(trx: Knex.Transaction, token: string): Promise
 
 export type Accepted = { channelSlug: string; role: Role; email: string };
 
+const accountExists = () => conflict('An account with this e-mail already exists. Sign in to accept the invitation.');
+
+/** Token and e-mail are checked before the password is hashed, and again under the lock. */
 export async function acceptInvitationAsNewUser(token: string, input: { name: string; password: string }): Promise<Accepted> {
+  // A bogus or used token must cost a lookup, not a password hash (issue 12, item 2).
+  const early = await db.transaction(async (trx) => lockOpenInvitation(trx, token));
+  if (await db('users').where({ email: early.email }).first('id')) throw accountExists();
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (trx) => {
     const inv = await lockOpenInvitation(trx, token);
     const existing = await trx('users').where({ email: inv.email }).first('id');
-    if (existing) throw conflict('An account with this e-mail already exists. Sign in to accept the invitation.');
+    if (existing) throw accountExists();
     const [user] = await trx('users')
       .insert({ email: inv.email, name: input.name, password_hash: passwordHash })
       .returning<{ id: string }[]>('id');

@@ -188,8 +188,12 @@ function cheapestPerSize<T extends { lengthIn: number; widthIn?: number; priceCe
 
 const pickStock = (s: StockItemDto): StockPlan['stock'] => ({ id: s.id, kind: s.kind, name: s.name, thicknessIn: s.thicknessIn, widthIn: s.widthIn });
 
-/** One plan per stock item used; parts without stock are listed, not guessed. */
+/**
+ * One plan per stock item used; parts without stock are listed, not guessed. `timeLimitMs` is the
+ * budget of the whole plan: each stock group gets an equal share of what is left when it starts.
+ */
 export function buildCutPlan(parts: PlanPart[], stock: StockItemDto[], settings: CutSettingsDto, timeLimitMs = 1000): CutPlan {
+  const deadline = Date.now() + timeLimitMs;
   const byStock = new Map<string, PlanPart[]>();
   const noStock: PlanUnplaced[] = [];
   const rack = new Map(stock.map((s) => [s.id, s]));
@@ -201,11 +205,12 @@ export function buildCutPlan(parts: PlanPart[], stock: StockItemDto[], settings:
     byStock.set(p.stockItemId, [...(byStock.get(p.stockItemId) ?? []), p]);
   }
   const groups: StockPlan[] = [];
-  for (const s of stock) {
-    const group = byStock.get(s.id);
-    if (!group) continue;
-    groups.push(s.kind === 'sheet' ? planSheets(s, group, settings, timeLimitMs) : planLumber(s, group, settings, timeLimitMs));
-  }
+  const used = stock.filter((s) => byStock.has(s.id));
+  used.forEach((s, i) => {
+    const group = byStock.get(s.id) ?? [];
+    const share = Math.max(0, deadline - Date.now()) / (used.length - i);
+    groups.push(s.kind === 'sheet' ? planSheets(s, group, settings, share) : planLumber(s, group, settings, share));
+  });
   return {
     groups,
     noStock,

@@ -4,12 +4,14 @@ import { findEpisode } from '@/lib/episodes/queries';
 import { notFound } from '@/lib/errors';
 import { listEpisodeParts, listSegmentParts } from '@/lib/parts/queries';
 import { getCutSettings, listStock } from '@/lib/stock/queries';
-import { buildCutPlan, type CutPlan } from './build';
+import type { CutPlan } from './build';
+import { computePlan } from './plan-pool';
 import type { ShoppingTickDto, ShoppingTickInput } from './schemas';
 
-// Kept short so a page never waits long; the planner returns its best plan and says if it is proven.
-const WHOLE_MS = 1000;
-const LEVEL_MS = 300;
+// One budget per request, shared by every plan in it (the whole episode and each level), kept short
+// so a page never waits long; the planner returns its best plan and says if it is proven.
+export const EPISODE_BUDGET_MS = 1500;
+export const SEGMENT_BUDGET_MS = 1000;
 
 export type EpisodePlanDto = {
   whole: CutPlan;
@@ -28,20 +30,14 @@ export async function planEpisode(channelId: string, episodeId: string): Promise
     getCutSettings(channelId),
     listTicks(episodeId),
   ]);
-  const levelNumbers = [...new Set(parts.map((p) => p.level).filter((l): l is number => l !== null))].sort();
-  return {
-    whole: buildCutPlan(parts, stock, settings, WHOLE_MS),
-    levels: levelNumbers.map((level) => ({ level, plan: buildCutPlan(parts.filter((p) => p.level === level), stock, settings, LEVEL_MS) })),
-    ticks,
-    lengthUnit: settings.lengthUnit,
-    minOffcutIn: settings.minOffcutIn,
-    kerfIn: settings.kerfIn,
-  };
+  const { whole, levels } = await computePlan(channelId, { parts, stock, settings, byLevel: true, budgetMs: EPISODE_BUDGET_MS });
+  return { whole, levels, ticks, lengthUnit: settings.lengthUnit, minOffcutIn: settings.minOffcutIn, kerfIn: settings.kerfIn };
 }
 
 export async function planSegment(channelId: string, segmentId: string): Promise<{ plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number }> {
   const [parts, stock, settings] = await Promise.all([listSegmentParts(channelId, segmentId), listStock(channelId), getCutSettings(channelId)]);
-  return { plan: buildCutPlan(parts, stock, settings, WHOLE_MS), lengthUnit: settings.lengthUnit, kerfIn: settings.kerfIn };
+  const { whole } = await computePlan(channelId, { parts, stock, settings, byLevel: false, budgetMs: SEGMENT_BUDGET_MS });
+  return { plan: whole, lengthUnit: settings.lengthUnit, kerfIn: settings.kerfIn };
 }
 
 async function listTicks(episodeId: string): Promise<ShoppingTickDto[]> {

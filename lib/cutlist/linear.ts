@@ -381,7 +381,7 @@ function minimumSlack(inst: Instance, deadline: number): Solution {
           // Equal sizes: only take the first of a run at each depth.
           if (k > from && size(remaining[k - 1] ?? -1) === size(i)) continue;
           if (load + size(i) > s.cap) continue;
-          if (++nodes > 20_000 || (nodes % 1024 === 0 && Date.now() > deadline)) return true;
+          if (++nodes > 20_000 || (nodes % DEADLINE_CHECK_EVERY === 0 && Date.now() > deadline)) return true;
           chosen.push(i);
           if (search(k + 1, load + size(i))) return true;
           chosen.pop();
@@ -782,6 +782,8 @@ function achievableCost(stocks: readonly StockType[], x: number): number {
 // ---------- exact search ----------
 
 const COMPLETIONS_PER_NODE = 20_000;
+/** Search steps between two looks at the clock: a Date.now() every few microseconds of work. */
+const DEADLINE_CHECK_EVERY = 128;
 
 /**
  * Bin completion (Korf 2003, with the Martello–Toth dominance rule): boards are filled one at a time,
@@ -810,9 +812,15 @@ function completionSearch(
   let cost = 0;
   let yLeft = kinds.reduce((a, k, i) => a + k.pieces.length * (y[i] ?? 0), 0);
   let sizeLeft = kinds.reduce((a, k) => a + k.pieces.length * k.size, 0);
-  let nodes = 0;
+  let ticks = 0;
   let timedOut = false;
   let truncated = false;
+  // One counter for search nodes and the completion enumeration inside each node: a single node can
+  // enumerate millions of sets, so checking per node alone overran timeLimitMs 0 by seconds (issue 12).
+  const pastDeadline = (): boolean => {
+    if (!timedOut && ++ticks % DEADLINE_CHECK_EVERY === 0 && Date.now() > deadline) timedOut = true;
+    return timedOut;
+  };
   // ratio[j]: the most value per micro-inch among kinds j.., to bound what a partial set can still gain.
   const ratio = new Array<number>(K + 1).fill(0);
   // Cheapest price per micro-inch, availability aside: a bound on what the rest costs by length.
@@ -871,7 +879,7 @@ function completionSearch(
       const counts = new Array<number>(K).fill(0);
       counts[k0] = 1;
       const gen = (j: number, room: number, value: number): void => {
-        if (over) return;
+        if (over || pastDeadline()) return;
         if (value + room * (ratio[j] ?? 0) < need - 1e-3 - 1e-9 * Math.abs(need)) return;
         const load = st.cap - room;
         if (load + Math.min(room, suffix[j] ?? 0) < needLoad - 1e-3) return;
@@ -897,16 +905,12 @@ function completionSearch(
       };
       gen(0, st.cap - (size[k0] ?? 0), y[k0] ?? 0);
     }
-    if (over) return null;
+    if (over || timedOut) return null;
     return candidates.sort((a, b) => a.bound - b.bound || b.load - a.load);
   };
 
   const dfs = (): void => {
-    if (timedOut) return;
-    if (++nodes % 256 === 0 && Date.now() > deadline) {
-      timedOut = true;
-      return;
-    }
+    if (pastDeadline()) return;
     let k0 = 0;
     while (k0 < K && (left[k0] ?? 0) === 0) k0++;
     if (k0 === K) {
@@ -915,6 +919,7 @@ function completionSearch(
     }
     if (bound() > target()) return;
     let candidates = completions(k0, COMPLETIONS_PER_NODE);
+    if (timedOut) return;
     if (candidates === null) {
       truncated = true;
       candidates = [];
@@ -924,6 +929,7 @@ function completionSearch(
     for (let k = k0 + 1; k < K && candidates.length > 1; k++) {
       if ((left[k] ?? 0) === 0) continue;
       const fewer = completions(k, candidates.length - 1);
+      if (timedOut) return;
       if (fewer !== null) candidates = fewer;
     }
     for (const cand of candidates) {

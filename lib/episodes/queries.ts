@@ -95,6 +95,9 @@ export async function createEpisode(channelId: string, input: CreateEpisodeInput
 
 export async function updateEpisode(channelId: string, episodeId: string, input: UpdateEpisodeInput): Promise<EpisodeDto> {
   return db.transaction(async (trx) => {
+    // Locked before reading, so a parallel edit of the other date is seen (the CHECK constraint
+    // episodes_shoot_not_after_publish holds the same rule in the database).
+    await lockEpisode(trx, channelId, episodeId);
     const current = await findEpisode(channelId, episodeId, trx);
     const shoot = input.shootDate !== undefined ? input.shootDate : current.shootDate;
     const publish = input.publishDate !== undefined ? input.publishDate : current.publishDate;

@@ -70,11 +70,10 @@ export async function getRunningOrder(member: Membership, episodeId: string): Pr
   };
 }
 
-async function findSegmentRow(trx: Knex | Knex.Transaction, channelId: string, segmentId: string): Promise<SegmentRow> {
-  const row: SegmentRow | undefined = await trx('segments as s')
-    .join('episodes as e', 'e.id', 's.episode_id')
-    .where({ 's.id': segmentId, 'e.channel_id': channelId })
-    .first(segmentColumns);
+async function findSegmentRow(trx: Knex | Knex.Transaction, channelId: string, segmentId: string, lock = false): Promise<SegmentRow> {
+  const q = trx('segments as s').join('episodes as e', 'e.id', 's.episode_id').where({ 's.id': segmentId, 'e.channel_id': channelId });
+  if (lock) q.forUpdate('s');
+  const row: SegmentRow | undefined = await q.first(segmentColumns);
   if (!row) throw notFound('That segment');
   return row;
 }
@@ -143,7 +142,8 @@ export async function createSegment(channelId: string, episodeId: string, input:
 
 export async function updateSegment(channelId: string, segmentId: string, input: UpdateSegmentInput): Promise<SegmentDto> {
   return db.transaction(async (trx) => {
-    const current = await findSegmentRow(trx, channelId, segmentId);
+    // Kind and level are written from what was read, so the row is locked first (issue 12).
+    const current = await findSegmentRow(trx, channelId, segmentId, true);
     const kind = input.kind ?? current.kind;
     // Leaving Build drops the level; giving a level to anything else is a mistake worth saying.
     let level = input.level !== undefined ? input.level : kind === 'build' ? current.level : null;

@@ -100,10 +100,12 @@ const shotsWithPeople = (trx: Db, channelId: string) =>
 
 export const liveShotsOfChannel = (trx: Db, channelId: string) => shotsWithPeople(trx, channelId).whereNull('sh.deleted_at');
 
-async function findShotRow(trx: Db, channelId: string, shotId: string, opts: { deleted?: boolean } = {}): Promise<BoardShotRow> {
+async function findShotRow(trx: Db, channelId: string, shotId: string, opts: { deleted?: boolean; lock?: boolean } = {}): Promise<BoardShotRow> {
   const q = shotsWithPeople(trx, channelId).where('sh.id', shotId);
   if (opts.deleted) q.whereNotNull('sh.deleted_at');
   else q.whereNull('sh.deleted_at');
+  // PostgreSQL waits for the lock, then returns the row as the last writer committed it.
+  if (opts.lock) q.forUpdate('sh');
   const row: BoardShotRow | undefined = await q.first(boardColumns);
   if (!row) throw notFound('That shot');
   return row;
@@ -111,6 +113,15 @@ async function findShotRow(trx: Db, channelId: string, shotId: string, opts: { d
 
 export async function findShot(channelId: string, shotId: string): Promise<BoardShotDto> {
   return toBoardShotDto(await findShotRow(db, channelId, shotId));
+}
+
+/**
+ * Serialises shop-board order changes of one channel: two moves computing a key between the same
+ * neighbours would get the same key (issue 12: nine parallel moves left six cards on one position).
+ * An advisory lock rather than the channel row, so it never blocks writes that reference the channel.
+ */
+async function lockShopBoard(trx: Knex.Transaction, channelId: string): Promise<void> {
+  await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [`shop-board:${channelId}`]);
 }
 
 /** Locks the segment so two writers cannot take the same list position. */
@@ -157,6 +168,7 @@ async function insertShots(trx: Knex.Transaction, channelId: string, segmentId: 
     const next: { position: string } | undefined = await trx('shots').where({ segment_id: segmentId }).where('position', '>', after).orderBy('position').first('position');
     upper = next?.position ?? null;
   } else key = await lastPosition(trx, segmentId);
+  await lockShopBoard(trx, channelId);
   let board = await lastBoardPosition(trx, channelId);
   const rows = items.map((i) => {
     key = generateKeyBetween(key, upper);
@@ -217,7 +229,7 @@ export async function createShotsFromText(
 export async function updateShot(member: Membership, shotId: string, input: UpdateShotInput): Promise<ShotDto> {
   const channelId = member.channel.id;
   return db.transaction(async (trx) => {
-    const current = await findShotRow(trx, channelId, shotId);
+    const current = await findShotRow(trx, channelId, shotId, { lock: true });
     assertMayEditShot(member, { assigneeId: current.assignee_id }, input);
     await assigneeInCrewOr400(trx, channelId, input.assigneeId);
     await trx('shots')
@@ -241,7 +253,7 @@ export async function updateShot(member: Membership, shotId: string, input: Upda
 
 export async function deleteShot(channelId: string, shotId: string): Promise<void> {
   await db.transaction(async (trx) => {
-    const current = await findShotRow(trx, channelId, shotId);
+    const current = await findShotRow(trx, channelId, shotId, { lock: true });
     await trx('shots').where({ id: shotId }).update({ deleted_at: trx.fn.now(), updated_at: trx.fn.now() });
     await openBursts(trx, channelId, [current.assignee_id]);
   });
@@ -249,7 +261,7 @@ export async function deleteShot(channelId: string, shotId: string): Promise<voi
 
 export async function restoreShot(channelId: string, shotId: string): Promise<ShotDto> {
   return db.transaction(async (trx) => {
-    const current = await findShotRow(trx, channelId, shotId, { deleted: true });
+    const current = await findShotRow(trx, channelId, shotId, { deleted: true, lock: true });
     await trx('shots').where({ id: shotId }).update({ deleted_at: null, updated_at: trx.fn.now() });
     await openBursts(trx, channelId, [current.assignee_id]);
     return toShotDto(await findShotRow(trx, channelId, shotId));
@@ -314,15 +326,21 @@ async function boardKeyAfter(trx: Knex.Transaction, channelId: string, afterId: 
   return generateKeyBetween(lower, next?.board_position ?? null);
 }
 
+/** The safety gate reads the segment under a share lock, so a review withdrawn meanwhile is seen or waited for. */
+async function awaitsSafetyReview(trx: Knex.Transaction, segmentId: string): Promise<boolean> {
+  const seg: { tools: Tool[]; safety_reviewed_at: Date | null } | undefined = await trx('segments').where({ id: segmentId }).forShare().first('tools', 'safety_reviewed_at');
+  return Boolean(seg && needsSafetyReview(seg.tools) && !seg.safety_reviewed_at);
+}
+
 /** Records who changed the state and when; Captured waits for the safety review of a power-tool segment. */
 export async function changeShotState(member: Membership, shotId: string, input: ShotStateInput): Promise<BoardShotDto> {
   const channelId = member.channel.id;
   if (input.afterId === shotId) throw invalidInput({ afterId: 'A card cannot follow itself.' });
   return db.transaction(async (trx) => {
-    const s = await findShotRow(trx, channelId, shotId);
-    await trx('shots').where({ id: shotId }).forUpdate().first('id');
+    // Lock first, then read: reading before the lock let 17 of 60 parallel changes vanish (issue 12).
+    const s = await findShotRow(trx, channelId, shotId, { lock: true });
     const changing = s.state !== input.state || (input.state === 'retake' && input.reason !== s.retake_reason);
-    if (input.state === 'captured' && s.state !== 'captured' && needsSafetyReview(s.tools) && !s.safety_reviewed_at) {
+    if (input.state === 'captured' && s.state !== 'captured' && (await awaitsSafetyReview(trx, s.segment_id))) {
       throw conflict(`“${s.segment_title}” uses power tools and waits for a Host’s safety review before its shots can be marked Captured.`);
     }
     const update: Record<string, unknown> = {};
@@ -335,7 +353,10 @@ export async function changeShotState(member: Membership, shotId: string, input:
       });
       await trx('shot_events').insert({ shot_id: shotId, from_state: s.state, to_state: input.state, reason: input.state === 'retake' ? input.reason : null, user_id: member.userId });
     }
-    if (input.afterId !== undefined) update.board_position = await boardKeyAfter(trx, channelId, input.afterId, shotId);
+    if (input.afterId !== undefined) {
+      await lockShopBoard(trx, channelId);
+      update.board_position = await boardKeyAfter(trx, channelId, input.afterId, shotId);
+    }
     if (Object.keys(update).length > 0) await trx('shots').where({ id: shotId }).update({ ...update, updated_at: trx.fn.now() });
     return toBoardShotDto(await findShotRow(trx, channelId, shotId));
   });

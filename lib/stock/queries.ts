@@ -73,13 +73,19 @@ export async function getCutSettings(channelId: string): Promise<CutSettingsDto>
   return row ? toSettingsDto(row) : DEFAULT_CUT_SETTINGS;
 }
 
+const settingsColumns = { kerfIn: 'kerf_in', endTrimIn: 'end_trim_in', minOffcutIn: 'min_offcut_in', lengthUnit: 'length_unit' } as const;
+
+/**
+ * One statement that writes only the fields given: a first change inserts the defaults with them,
+ * later ones update just those columns. Reading first and writing all four lost parallel changes (issue 12).
+ */
 export async function updateCutSettings(channelId: string, input: CutSettingsInput): Promise<CutSettingsDto> {
-  const current = await getCutSettings(channelId);
-  const next = { ...current, ...Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)) } as CutSettingsDto;
+  const given = (Object.keys(settingsColumns) as (keyof typeof settingsColumns)[]).filter((k) => input[k] !== undefined);
+  const next = { ...DEFAULT_CUT_SETTINGS, ...Object.fromEntries(given.map((k) => [k, input[k]])) } as CutSettingsDto;
   const [row] = await db('cut_settings')
     .insert({ channel_id: channelId, kerf_in: next.kerfIn, end_trim_in: next.endTrimIn, min_offcut_in: next.minOffcutIn, length_unit: next.lengthUnit })
     .onConflict('channel_id')
-    .merge(['kerf_in', 'end_trim_in', 'min_offcut_in', 'length_unit', 'updated_at'])
+    .merge([...given.map((k) => settingsColumns[k]), 'updated_at'])
     .returning<SettingsRow[]>(['kerf_in', 'end_trim_in', 'min_offcut_in', 'length_unit']);
   if (!row) throw new Error('upsert returned no row');
   return toSettingsDto(row);

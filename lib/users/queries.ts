@@ -26,11 +26,15 @@ export async function findCredentialsByEmail(email: string): Promise<{ user: Use
   return row ? { user: toUserDto(row), passwordHash: row.password_hash } : null;
 }
 
+const alreadyRegistered = () => conflict('An account with that e-mail already exists. Sign in instead.', { email: 'Already registered.' });
+
+/** The e-mail is checked before the password is hashed (issue 12, item 2), and again in the transaction. */
 export async function signUp(input: SignUpInput): Promise<{ user: UserDto; channel: ChannelDto }> {
+  if (await db('users').where({ email: input.email }).first('id')) throw alreadyRegistered();
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (trx) => {
     const existing = await trx('users').where({ email: input.email }).first('id');
-    if (existing) throw conflict('An account with that e-mail already exists. Sign in instead.', { email: 'Already registered.' });
+    if (existing) throw alreadyRegistered();
     const [row] = await trx('users')
       .insert({ email: input.email, name: input.name, password_hash: passwordHash })
       .returning<UserRow[]>(['id', 'email', 'name']);

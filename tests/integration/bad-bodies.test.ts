@@ -128,6 +128,28 @@ describe('no body makes a 500', () => {
   });
 });
 
+// Issue 12, item 3: about 6,000 levels in 12 KB overflowed the recursive NUL check into a 500 on every
+// JSON route, signed out too.
+describe('a deeply nested body', () => {
+  it('is a 400 naming the nesting on every route with a body, signed in or out', async () => {
+    const deep = '['.repeat(6000) + ']'.repeat(6000);
+    let refused = 0;
+    for (const t of targets()) {
+      for (const as of [crew.host, null]) {
+        const res = await call(t.fn, t.method, { as, params: t.params, rawBody: deep, headers: { 'content-type': 'application/json' } });
+        expect(res.status, `${t.name} ${as ? 'signed in' : 'signed out'}`).toBeLessThan(500);
+        // Routes that read no body (resend) ignore it; every one that reads it refuses it by name.
+        if (res.status === 400) {
+          expect(res.json.error?.message, t.name).toBe('The request body is nested too deeply.');
+          refused++;
+        }
+      }
+    }
+    // Signed in every route that reads a body, signed out sign-up and accept.
+    expect(refused).toBeGreaterThanOrEqual(targets().length - 1 + 2);
+  });
+});
+
 // Script bodies near the real shape: Tiptap-like trees with wrong node types, attrs and nesting.
 const node: fc.Arbitrary<unknown> = fc.letrec((tie) => ({
   node: fc.record(

@@ -38,9 +38,11 @@ describe.each(stores)('ClipStore contract: $name', ({ make }) => {
     const id = await newUpload(store, bytes.length);
     expect(await store.tus.write(Readable.from([bytes.subarray(0, 3000)]), id, 0)).toBe(3000);
     expect((await store.listUnfinished()).map((u) => u.uploadId)).toEqual([id]);
+    expect(await store.listFinished()).toEqual([]);
     await store.tus.write(Readable.from([bytes.subarray(3000)]), id, 3000);
     expect((await store.tus.getUpload(id)).offset).toBe(5000);
     expect(await store.listUnfinished()).toEqual([]);
+    expect((await store.listFinished()).map((u) => u.uploadId)).toEqual([id]);
     expect((await text(await store.read(id))).equals(bytes)).toBe(true);
     expect((await text(await store.read(id, { start: 10, end: 19 }))).equals(bytes.subarray(10, 20))).toBe(true);
   });

@@ -53,6 +53,11 @@ export class AppServer {
     this.child = null;
   }
 
+  /** True once the process has ended by itself or been killed. */
+  exited(): boolean {
+    return !this.child || this.child.exitCode !== null || this.child.signalCode !== null;
+  }
+
   output(): string {
     return this.log;
   }

@@ -6,6 +6,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db/client';
 import { AppServer } from './app-server';
+import { makeLoadEpisode } from '../integration/cut-plan-fixtures';
 import { makeOutlinedEpisode } from '../integration/episode-fixtures';
 import { makeCrew, sessionCookie } from '../integration/helpers';
 import type { Crew } from '../integration/route-matrix';
@@ -17,14 +18,17 @@ const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfline-uploads-'));
 const uploadDir = path.join(dir, 'uploads');
 const MAX = 300 * 1024 * 1024;
 const UPLOAD_PORT = Number(process.env.UPLOAD_TEST_PORT ?? 3197);
-const app = new AppServer(UPLOAD_PORT, {
+const appEnv = {
   DATABASE_URL: process.env.DATABASE_URL ?? '',
   NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? '',
   NEXTAUTH_URL: `http://127.0.0.1:${UPLOAD_PORT}`,
   UPLOAD_DIR: uploadDir,
   MAX_UPLOAD_BYTES: String(MAX),
   CLIP_JOB_POLL_MS: '300',
-});
+  // byte-removals.test.ts takes the removal queue of this database with its own store.
+  KERFLINE_BYTE_REMOVALS: 'off',
+};
+const app = new AppServer(UPLOAD_PORT, appEnv);
 const endpoint = () => `${app.url}/api/uploads`;
 const b64 = (s: string) => Buffer.from(s).toString('base64');
 const metaHeader = (m: Record<string, string>) =>
@@ -188,6 +192,32 @@ describe('tus uploads: every byte arrives', () => {
   });
 });
 
+// Issue 12, item 4: the server dies after the last byte is stored and before the finish hook writes the clip row.
+describe('an upload whose server died before its clip row', () => {
+  it('gets its clip row exactly once from the reconciler when the app starts again', async () => {
+    const file = path.join(dir, 'crash.bin');
+    const sha = await makeRandomFile(file, 300_000);
+    await app.kill();
+    const crashing = new AppServer(UPLOAD_PORT, { ...appEnv, KERFLINE_TEST_CRASH_BEFORE_CLIP_ROW: '1' });
+    await crashing.start();
+    const run = startTusUpload(endpoint(), file, { cookie, metadata: meta({ filename: 'crash.bin' }), retryDelays: [] });
+    await expect(run.done).rejects.toBeDefined();
+    await expect.poll(() => crashing.exited(), { timeout: 10_000 }).toBe(true);
+    const id = idOf(run.url!);
+    expect(fs.statSync(path.join(uploadDir, id)).size).toBe(300_000);
+    expect(await clipsOf(id)).toHaveLength(0);
+
+    await app.start();
+    await expect.poll(async () => (await clipsOf(id)).length, { timeout: 20_000, interval: 250 }).toBe(1);
+    expect((await clipsOf(id))[0]).toMatchObject({ sha256: sha, size_bytes: '300000', original_name: 'crash.bin' });
+    // Another start finds the row and adds none.
+    await app.kill();
+    await app.start();
+    await new Promise((r) => setTimeout(r, 1500));
+    expect(await clipsOf(id)).toHaveLength(1);
+  }, 120_000);
+});
+
 describe('clip files', () => {
   let clipId: string;
   let bytes: Buffer;
@@ -232,5 +262,18 @@ describe('clip files', () => {
     expect(whole.headers.get('content-disposition')).toBe(`attachment; filename="Glue up ? take 2.mp4"; filename*=UTF-8''Glue%20up%20%E2%80%93%20take%202.mp4`);
     expect(Buffer.from(await whole.arrayBuffer()).equals(bytes)).toBe(true);
     expect((await fetch(fileUrl())).status).toBe(401);
+  });
+});
+
+// Issue 12, item 1: the planner's worker file is not part of Next's bundle, so it must load from `next start` too.
+describe('cut plans in the built app', () => {
+  it('plans an episode of 8 stock items x 9 parts on the worker pool under next start', async () => {
+    const { episode } = await makeLoadEpisode(crew, 401);
+    const res = await fetch(`${app.url}/api/channels/${crew.channel.slug}/episodes/${episode.id}/cut-plan`, { headers: { cookie } });
+    expect(res.status, app.output()).toBe(200);
+    const plan = (await res.json()) as { whole: { groups: unknown[]; pieceCount: number }; levels: unknown[] };
+    expect(plan.whole.groups).toHaveLength(8);
+    expect(plan.whole.pieceCount).toBeGreaterThan(0);
+    expect(plan.levels).toHaveLength(3);
   });
 });

@@ -15,6 +15,13 @@ const csp = [
   "frame-ancestors 'none'",
 ].join('; ');
 
+// Source: RFC 6797 §6.1 (Strict-Transport-Security); one year is common practice. Only when the
+// public URL is https: an http-only local app must not pin browsers to https. Headers are fixed
+// at build time, so scripts/lib/build.mjs rebuilds when the scheme changes.
+const hsts = (process.env.NEXTAUTH_URL ?? '').startsWith('https://')
+  ? [{ key: 'Strict-Transport-Security', value: 'max-age=31536000; includeSubDomains' }]
+  : [];
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
@@ -31,6 +38,7 @@ const nextConfig = {
           { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
           { key: 'X-Frame-Options', value: 'DENY' },
           { key: 'Permissions-Policy', value: 'camera=(), microphone=(), geolocation=()' },
+          ...hsts,
         ],
       },
     ];

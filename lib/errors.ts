@@ -33,12 +33,15 @@ const statusByCode: Record<ErrorCode, number> = {
 export class AppError extends Error {
   readonly code: ErrorCode;
   readonly fields: FieldErrors | undefined;
+  /** For too_many_requests: the Retry-After the answer carries. */
+  readonly retryAfterSeconds: number | undefined;
 
-  constructor(code: ErrorCode, message: string, fields?: FieldErrors, options?: { cause?: unknown }) {
+  constructor(code: ErrorCode, message: string, fields?: FieldErrors, options?: { cause?: unknown; retryAfterSeconds?: number }) {
     super(message, options);
     this.name = 'AppError';
     this.code = code;
     this.fields = fields;
+    this.retryAfterSeconds = options?.retryAfterSeconds;
   }
 
   get status(): number {
@@ -53,6 +56,8 @@ export const forbidden = (message = 'Your role on this channel does not allow th
   new AppError('forbidden', message);
 export const notFound = (what = 'That') => new AppError('not_found', `${what} was not found.`);
 export const conflict = (message: string, fields?: FieldErrors) => new AppError('conflict', message, fields);
+export const tooManyRequests = (message: string, retryAfterSeconds: number) =>
+  new AppError('too_many_requests', message, undefined, { retryAfterSeconds: Math.max(1, Math.ceil(retryAfterSeconds)) });
 
 export type ErrorBody = { error: { code: ErrorCode; message: string; fields?: FieldErrors } };
 

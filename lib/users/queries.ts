@@ -6,7 +6,7 @@ import type { ChannelDto } from '@/lib/channels/schemas';
 import { conflict, notFound } from '@/lib/errors';
 import type { ProfileDto, SignUpInput, UpdateProfileInput, UserDto } from './schemas';
 
-type UserRow = { id: string; email: string; name: string; password_hash: string };
+type UserRow = { id: string; email: string; name: string; password_hash: string; session_version: number };
 
 const toUserDto = (row: Pick<UserRow, 'id' | 'email' | 'name'>): UserDto => ({ id: row.id, email: row.email, name: row.name });
 
@@ -21,9 +21,11 @@ export async function findUserByEmail(email: string): Promise<UserDto | null> {
 }
 
 /** Only for checking a password; the hash never leaves lib/auth. */
-export async function findCredentialsByEmail(email: string): Promise<{ user: UserDto; passwordHash: string } | null> {
-  const row: UserRow | undefined = await db('users').where({ email }).first(['id', 'email', 'name', 'password_hash']);
-  return row ? { user: toUserDto(row), passwordHash: row.password_hash } : null;
+export async function findCredentialsByEmail(
+  email: string,
+): Promise<{ user: UserDto; passwordHash: string; sessionVersion: number } | null> {
+  const row: UserRow | undefined = await db('users').where({ email }).first(['id', 'email', 'name', 'password_hash', 'session_version']);
+  return row ? { user: toUserDto(row), passwordHash: row.password_hash, sessionVersion: row.session_version } : null;
 }
 
 export async function signUp(input: SignUpInput): Promise<{ user: UserDto; channel: ChannelDto }> {

@@ -59,6 +59,7 @@ afterAll(async () => {
 async function create(opts: { cookie?: string; length?: number; metadata?: Record<string, string> }) {
   const headers: Record<string, string> = { 'Tus-Resumable': '1.0.0', 'Upload-Length': String(opts.length ?? 10) };
   if (opts.cookie) headers.cookie = opts.cookie;
+  headers.origin = new URL(app.url).origin;
   if (opts.metadata) headers['Upload-Metadata'] = metaHeader(opts.metadata);
   const res = await fetch(endpoint(), { method: 'POST', headers });
   return { status: res.status, body: await res.text(), location: res.headers.get('location') };
@@ -167,7 +168,7 @@ describe('tus uploads: every byte arrives', () => {
     await run.done;
     const again = await fetch(run.url!, {
       method: 'PATCH',
-      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': '1000', 'Content-Type': 'application/offset+octet-stream', cookie },
+      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': '1000', 'Content-Type': 'application/offset+octet-stream', cookie, origin: new URL(app.url).origin },
       body: new Uint8Array(0),
     });
     expect(again.status).toBeLessThan(500);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { dateSchema } from '@/lib/episodes/schemas';
 import { cameras, framings, MAX_DESCRIPTION, shotStates, type Camera, type Framing, type ShotState } from './catalog';
@@ -9,7 +10,8 @@ const fields = {
     .string({ error: 'Say what the shot shows.' })
     .trim()
     .min(1, 'Say what the shot shows.')
-    .max(MAX_DESCRIPTION, `Keep the description under ${MAX_DESCRIPTION} characters.`),
+    .max(MAX_DESCRIPTION, `Keep the description under ${MAX_DESCRIPTION} characters.`)
+    .refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE),
   framing: z.enum(framings, { error: 'Choose a framing.' }),
   camera: z.enum(cameras, { error: 'Choose a camera.' }),
   assigneeId: z.uuid({ error: 'Choose someone from the crew.' }).nullable(),
@@ -65,7 +67,7 @@ export type ShotStateInput = z.infer<typeof shotStateSchema>;
 export const segmentToolsSchema = z
   .strictObject({
     tools: z.array(z.enum(tools, { error: 'Choose tools from the list.' }), { error: 'Choose tools from the list.' }).max(tools.length),
-    otherTool: z.string({ error: 'Name the other tool.' }).trim().max(80, 'Keep the tool name under 80 characters.').default(''),
+    otherTool: z.string({ error: 'Name the other tool.' }).trim().max(80, 'Keep the tool name under 80 characters.').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE).default(''),
   })
   .superRefine((v, ctx) => {
     if (v.tools.includes('other') && !v.otherTool) ctx.addIssue({ code: 'custom', path: ['otherTool'], message: 'Name the other tool.' });

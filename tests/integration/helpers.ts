@@ -70,7 +70,9 @@ export async function call(fn: RouteFn, method: string, opts: CallOptions = {}) 
   const req = new NextRequest(new URL(opts.path ?? '/api/test', BASE), { method, headers, body });
   const res = await fn(req, { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();
-  const json: unknown = text ? JSON.parse(text) : null;
+  // Bytes (clip files, posters) are not JSON; only JSON answers are parsed.
+  const isJson = /json/i.test(res.headers.get('content-type') ?? '');
+  const json: unknown = text && isJson ? JSON.parse(text) : null;
   return { status: res.status, json: json as Record<string, unknown> & { error?: { code: string; message: string; fields?: Record<string, string> } } };
 }
 

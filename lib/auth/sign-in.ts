@@ -3,7 +3,7 @@ import { clientAddress } from '@/lib/http/peer';
 import { credentialsSchema, type UserDto } from '@/lib/users/schemas';
 import { findCredentialsByEmail } from '@/lib/users/queries';
 import { burnPasswordCheck, verifyPassword } from './password';
-import { claimTry, clearFailures, emailKey, ipKey } from './throttle';
+import { claimTry, clearFailures, emailKey, forgiveTry, ipKey } from './throttle';
 
 export const SIGN_IN_FAILED_MESSAGE =
   'That e-mail and password did not match, or there were too many tries. Check them, or wait a minute and try again.';
@@ -22,7 +22,7 @@ export async function authorizeCredentials(raw: unknown, ip: string): Promise<Si
   const found = await findCredentialsByEmail(email);
   const ok = found ? await verifyPassword(password, found.passwordHash) : await burnPasswordCheck(password);
   if (!found || !ok) return null;
-  await clearFailures(emailKey(email));
+  await Promise.all([clearFailures(emailKey(email)), forgiveTry(ipKey(ip))]);
   return { ...found.user, sessionVersion: found.sessionVersion };
 }
 

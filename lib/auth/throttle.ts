@@ -1,5 +1,5 @@
 import 'server-only';
-import { pruneLimits, resetLimit, secondsUntilAllowed, takeHit } from '@/lib/rate-limits/queries';
+import { pruneLimits, refundHit, resetLimit, secondsUntilAllowed, takeHit } from '@/lib/rate-limits/queries';
 import { SIGN_IN_BACKOFF } from '@/lib/rate-limits/rules';
 
 // Issue 12 item 9: tries are counted atomically in rate_limits, and after THROTTLE_LIMIT tries each
@@ -35,4 +35,9 @@ export async function recordFailure(keys: string[]): Promise<void> {
 
 export async function clearFailures(key: string): Promise<void> {
   await resetLimit(key);
+}
+
+/** A try that turned out right does not count against a shared key (an address many people use). */
+export async function forgiveTry(key: string): Promise<void> {
+  await refundHit(key, SIGN_IN_BACKOFF);
 }

@@ -72,6 +72,19 @@ export async function secondsUntilAllowed(keys: string[], executor: Knex | Knex.
   return Math.max(0, Number(result.rows[0]?.wait ?? 0));
 }
 
+/**
+ * Gives back one hit on a back-off key (a try that turned out right): shared addresses (an office,
+ * a test runner) are slowed only by wrong tries. Below the free tries the wait is lifted too.
+ */
+export async function refundHit(key: string, rule: BackoffRule, executor: Knex | Knex.Transaction = db): Promise<void> {
+  await executor.raw(
+    `update rate_limits set hits = greatest(hits - 1, 0),
+       next_allowed_at = case when hits - 1 < :free then least(next_allowed_at, now()) else next_allowed_at end
+     where limit_key = :key`,
+    { key, free: rule.freeTries },
+  );
+}
+
 /** Forgets a key (a correct password ends the e-mail's back-off). */
 export async function resetLimit(key: string, executor: Knex | Knex.Transaction = db): Promise<void> {
   await executor('rate_limits').where({ limit_key: key }).delete();

@@ -3,7 +3,7 @@ import { db } from '@/db/client';
 import { hashPassword } from '@/lib/auth/password';
 import { createChannelWithHost } from '@/lib/channels/queries';
 import type { ChannelDto } from '@/lib/channels/schemas';
-import { conflict, notFound } from '@/lib/errors';
+import { notFound } from '@/lib/errors';
 import type { ProfileDto, SignUpInput, UpdateProfileInput, UserDto } from './schemas';
 
 type UserRow = { id: string; email: string; name: string; password_hash: string; session_version: number };
@@ -28,18 +28,28 @@ export async function findCredentialsByEmail(
   return row ? { user: toUserDto(row), passwordHash: row.password_hash, sessionVersion: row.session_version } : null;
 }
 
-export async function signUp(input: SignUpInput): Promise<{ user: UserDto; channel: ChannelDto }> {
+/**
+ * Creates the user, their channel and Host membership; null when the address already has an
+ * account. The password is hashed on both paths, so the answer takes as long either way.
+ */
+export async function signUp(input: SignUpInput): Promise<{ user: UserDto; channel: ChannelDto } | null> {
+  const existing = await db('users').where({ email: input.email }).first('id');
   const passwordHash = await hashPassword(input.password);
-  return db.transaction(async (trx) => {
-    const existing = await trx('users').where({ email: input.email }).first('id');
-    if (existing) throw conflict('An account with that e-mail already exists. Sign in instead.', { email: 'Already registered.' });
-    const [row] = await trx('users')
-      .insert({ email: input.email, name: input.name, password_hash: passwordHash })
-      .returning<UserRow[]>(['id', 'email', 'name']);
-    if (!row) throw new Error('user insert returned no row');
-    const channel = await createChannelWithHost(trx, input.channelName, row.id);
-    return { user: toUserDto(row), channel };
-  });
+  if (existing) return null;
+  try {
+    return await db.transaction(async (trx) => {
+      const [row] = await trx('users')
+        .insert({ email: input.email, name: input.name, password_hash: passwordHash })
+        .returning<UserRow[]>(['id', 'email', 'name']);
+      if (!row) throw new Error('user insert returned no row');
+      const channel = await createChannelWithHost(trx, input.channelName, row.id);
+      return { user: toUserDto(row), channel };
+    });
+  } catch (err) {
+    // Two sign-ups for one new address at once: the second finds it taken, as above.
+    if ((err as { code?: unknown }).code === '23505' && /email/.test(String((err as { constraint?: unknown }).constraint))) return null;
+    throw err;
+  }
 }
 
 type ProfileRow = { id: string; email: string; name: string; email_opt_out: boolean };

@@ -8,6 +8,8 @@ import * as channelsRoute from '@/app/api/channels/route';
 import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
 import * as signUpRoute from '@/app/api/sign-up/route';
 import * as profileRoute from '@/app/api/profile/route';
+import * as sessionsRoute from '@/app/api/profile/sessions/route';
+import * as authRoute from '@/app/api/auth/[...nextauth]/route';
 import * as episodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/route';
 import * as segmentsRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/segments/route';
 import * as episodesRoute from '@/app/api/channels/[channel]/episodes/route';
@@ -32,7 +34,7 @@ import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
 import { createStock } from '@/lib/stock/queries';
 import { makeOutlinedEpisode } from './episode-fixtures';
-import { call, makeCrew, uniqueEmail } from './helpers';
+import { call, makeCrew, makeUser, uniqueEmail } from './helpers';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
@@ -121,6 +123,28 @@ describe('no body makes a 500', () => {
           const res = await call(t.fn, t.method, { as: crew.host, params: t.params, rawBody: body, headers: type ? { 'content-type': type } : {} });
           expect(res.status, `${t.name}: ${body}`).toBeLessThan(500);
           if (res.status >= 400) expect(typeof res.json.error?.message).toBe('string');
+        }),
+        { numRuns: 30 },
+      );
+    }
+  });
+});
+
+describe('no body makes a 500 on next-auth’s routes or a bodyless one (issue 12 item 16)', () => {
+  it('for sign-in, sign-out and “sign out everywhere”', async () => {
+    const auth = authRoute.POST as unknown as Parameters<typeof call>[0];
+    const runs: { name: string; fn: Parameters<typeof call>[0]; method: string; params: Record<string, unknown> }[] = [
+      { name: 'credentials sign-in', fn: auth, method: 'POST', params: { nextauth: ['callback', 'credentials'] } },
+      { name: 'sign-out', fn: auth, method: 'POST', params: { nextauth: ['signout'] } },
+      { name: 'sign out everywhere', fn: sessionsRoute.DELETE, method: 'DELETE', params: {} },
+    ];
+    // A throwaway user: "sign out everywhere" ends the sessions of whoever sends it.
+    const user = await makeUser('fuzz-sessions');
+    for (const t of runs) {
+      await fc.assert(
+        fc.asyncProperty(rawBody, contentType, async (body, type) => {
+          const res = await call(t.fn, t.method, { as: user, params: t.params as Record<string, string>, rawBody: body, headers: type ? { 'content-type': type } : {} });
+          expect(res.status, `${t.name}: ${body}`).toBeLessThan(500);
         }),
         { numRuns: 30 },
       );

@@ -37,9 +37,12 @@ export async function makeCrew() {
   return { channel, host, shopHand, editor };
 }
 
-/** A real next-auth session cookie, signed with the same secret the app uses. */
-export async function sessionCookie(user: UserDto): Promise<string> {
-  const token = await encode({ token: { sub: user.id, email: user.email, name: user.name }, secret: process.env.NEXTAUTH_SECRET ?? '' });
+/**
+ * A real next-auth session cookie, signed with the same secret the app uses. `session` adds what
+ * sign-in puts there (lib/auth/options.ts): a session id and the user's session version.
+ */
+export async function sessionCookie(user: UserDto, session: { sid?: string; sv?: number } = {}): Promise<string> {
+  const token = await encode({ token: { sub: user.id, email: user.email, name: user.name, ...session }, secret: process.env.NEXTAUTH_SECRET ?? '' });
   return `next-auth.session-token=${token}`;
 }
 
@@ -61,6 +64,7 @@ export async function call(fn: RouteFn, method: string, opts: CallOptions = {}) 
   const headers = new Headers(opts.headers);
   // As a browser does: Origin on every request from a Kerfline page. A test passes its own to differ.
   if (!headers.has('origin')) headers.set('origin', ORIGIN);
+  else if (headers.get('origin') === '') headers.delete('origin'); // `origin: ''` sends none, as a script might
   if (opts.as) headers.set('cookie', await sessionCookie(opts.as));
   let body: string | undefined = opts.rawBody;
   if (opts.body !== undefined) {

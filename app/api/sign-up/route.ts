@@ -1,5 +1,8 @@
-import { created, route } from '@/lib/api/handler';
+import { route } from '@/lib/api/handler';
 import { signUpSchema } from '@/lib/users/schemas';
-import { signUp } from '@/lib/users/queries';
+import { signUpWithoutDisclosure } from '@/lib/users/sign-up';
 
-export const POST = route({ auth: 'none', body: signUpSchema }, async ({ body }) => created(await signUp(body)));
+// 202 whether or not the address already had an account (lib/users/sign-up.ts says why).
+export const POST = route({ auth: 'none', body: signUpSchema }, async ({ body }) =>
+  Response.json(await signUpWithoutDisclosure(body), { status: 202 }),
+);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { z } from 'zod';
+import type { z } from 'zod';
 import { personNameSchema, channelNameSchema } from '@/lib/users/schemas';
 import { createPartSchema } from '@/lib/parts/schemas';
 import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from './visible-name';

@@ -1,5 +1,5 @@
 import type { Page } from '@playwright/test';
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+import { demo, DEMO_SLUG, expect, expectAccessible, sameOrigin, signIn, test } from './fixtures';
 
 const cardTitles = (page: Page) => page.locator('ol > li article[aria-label]').evaluateAll((els) => els.map((e) => e.getAttribute('aria-label')));
 
@@ -112,7 +112,7 @@ test('a shop hand sees the board read-only and the API refuses a reorder', async
 
   const href = await page.locator('ol > li a').first().getAttribute('href');
   const segmentId = href?.split('/').pop() ?? '';
-  const res = await page.request.put(`/api/channels/${DEMO_SLUG}/segments/${segmentId}/position`, { data: { afterId: null } });
+  const res = await page.request.put(`/api/channels/${DEMO_SLUG}/segments/${segmentId}/position`, { headers: sameOrigin, data: { afterId: null } });
   expect(res.status()).toBe(403);
 
   await page.locator('ol > li a').first().click();

@@ -1,4 +1,4 @@
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+import { demo, DEMO_SLUG, expect, expectAccessible, sameOrigin, signIn, test } from './fixtures';
 
 test('the sign-in page is accessible and signed-out pages redirect to it', async ({ page }) => {
   await page.goto(`/c/${DEMO_SLUG}/episodes`);
@@ -38,7 +38,7 @@ test('a shop hand opening crew settings is refused, on the page and by the API',
   expect(res?.status()).toBe(403);
   await expect(page.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
   await expectAccessible(page);
-  const api = await page.request.post(`/api/channels/${DEMO_SLUG}/invitations`, { data: { email: 'x@y.test', role: 'host' } });
+  const api = await page.request.post(`/api/channels/${DEMO_SLUG}/invitations`, { headers: sameOrigin, data: { email: 'x@y.test', role: 'host' } });
   expect(api.status()).toBe(403);
 });
 

@@ -1,4 +1,4 @@
-import { DEMO_SLUG, demo, expect, expectAccessible, newEpisode, signIn, test } from './fixtures';
+import { demo, DEMO_SLUG, expect, expectAccessible, newEpisode, sameOrigin, signIn, test } from './fixtures';
 
 type CaughtMail = { subject: string; text: string; to: { address: string }[] };
 
@@ -77,7 +77,7 @@ test('a host moves a card from Planned to Captured with the keyboard', async ({ 
   await signIn(page, demo.host);
   const stamp = Date.now().toString(36);
   const { episodeId, build } = await newEpisode(page, `Keyboard board ${stamp}`);
-  const add = await page.request.post(`/api/channels/${DEMO_SLUG}/segments/${build.id}/shots/bulk`, { data: { text: `Wide: plane the seat ${stamp}` } });
+  const add = await page.request.post(`/api/channels/${DEMO_SLUG}/segments/${build.id}/shots/bulk`, { headers: sameOrigin, data: { text: `Wide: plane the seat ${stamp}` } });
   expect(add.status()).toBe(201);
 
   await page.goto(`/c/${DEMO_SLUG}/shots?episodeId=${episodeId}`);

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Upload } from '@tus/server';
 import { NextRequest } from 'next/server';
-import { crossSiteRefusal, ownOrigins } from '@/lib/api/origin';
+import { refuseCrossSite } from '@/lib/api/origin';
 import { can } from '@/lib/auth/policy';
 import { getUserFromRequest } from '@/lib/auth/session';
 import { displayName } from '@/lib/clips/names';
@@ -26,7 +26,7 @@ export function uploadHooks(store: ClipStore) {
   return {
     async onIncomingRequest(req: Request, uploadId: string): Promise<void> {
       // The same cross-site guard as lib/api/handler.ts: tus POST, PATCH and DELETE change state.
-      const crossSite = crossSiteRefusal({ method: req.method, headers: req.headers, ownOrigins: ownOrigins(appUrl(), req.url) });
+      const crossSite = refuseCrossSite(req, appUrl());
       if (crossSite) throw tusError(403, crossSite.message);
       const user = await authenticate(req);
       if (req.method === 'POST' || !uploadId) return;

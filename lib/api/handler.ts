@@ -7,7 +7,7 @@ import { findMembership, type Membership } from '@/lib/channels/queries';
 import { appUrl } from '@/lib/config';
 import { AppError, forbidden, notFound, toAppError, toErrorBody, unauthenticated } from '@/lib/errors';
 import type { UserDto } from '@/lib/users/schemas';
-import { crossSiteRefusal, ownOrigins } from './origin';
+import { refuseCrossSite } from './origin';
 import { parseWith, readJsonBody, searchParamsObject } from './validation';
 
 type Auth = 'required' | 'none';
@@ -48,7 +48,7 @@ export function route<
 >(spec: Spec<P, Q, B, A, C>, handler: (ctx: HandlerContext<P, Q, B, A, C>) => Promise<unknown>) {
   return async (req: NextRequest, context: RouteContext): Promise<Response> => {
     try {
-      const crossSite = crossSiteRefusal({ method: req.method, headers: req.headers, ownOrigins: ownOrigins(appUrl(), req.url) });
+      const crossSite = refuseCrossSite(req, appUrl());
       if (crossSite) throw crossSite;
       const user = await getUserFromRequest(req);
       if ((spec.auth ?? 'required') === 'required' && !user) throw unauthenticated();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { crossSiteRefusal, ownOrigins } from './origin';
+import { crossSiteRefusal, ownOrigins, refuseCrossSite } from './origin';
 
 const own = ownOrigins('https://kerfline.example', 'https://kerfline.example/api/x');
 const check = (method: string, headers: Record<string, string>) => crossSiteRefusal({ method, headers: new Headers(headers), ownOrigins: own });
@@ -31,5 +31,21 @@ describe('crossSiteRefusal', () => {
 
   it('lets a cookie-less state change without Origin through (a script acting as nobody)', () => {
     expect(check('POST', {})).toBeNull();
+  });
+});
+
+describe('ownOrigins and refuseCrossSite', () => {
+  it('take the configured URL and the Host the browser addressed', () => {
+    expect(ownOrigins('https://kerfline.example', 'http://localhost:3000/api/x', '127.0.0.1:3230')).toEqual([
+      'https://kerfline.example',
+      'http://localhost:3000',
+      'http://127.0.0.1:3230',
+    ]);
+  });
+
+  it('accept a POST from the addressed host and refuse one from elsewhere', () => {
+    const req = (origin: string) => new Request('http://localhost:3230/api/uploads', { method: 'POST', headers: { host: '127.0.0.1:3230', origin, cookie: 'a=b' } });
+    expect(refuseCrossSite(req('http://127.0.0.1:3230'), 'https://kerfline.example')).toBeNull();
+    expect(refuseCrossSite(req('http://evil.example'), 'https://kerfline.example')?.status).toBe(403);
   });
 });

@@ -27,15 +27,32 @@ export function crossSiteRefusal({ method, headers, ownOrigins }: OriginCheck): 
 
 const refusal = () => new AppError('forbidden', CROSS_SITE_MESSAGE);
 
-/** The origins a request may come from: the configured public URL and the one the request was sent to. */
-export function ownOrigins(appUrl: string, requestUrl: string): string[] {
+/**
+ * The origins a request may come from: the configured public URL, and the origin the browser
+ * addressed (the Host header with the request's scheme: a cross-site page cannot change Host).
+ */
+export function ownOrigins(appUrl: string, requestUrl: string, host?: string | null): string[] {
   const out = new Set<string>();
-  for (const u of [appUrl, requestUrl]) {
+  const add = (u: string) => {
     try {
       out.add(new URL(u).origin);
     } catch {
       // An unparsable URL names no origin.
     }
+  };
+  add(appUrl);
+  add(requestUrl);
+  if (host) {
+    try {
+      add(`${new URL(requestUrl).protocol}//${host}`);
+    } catch {
+      // No usable request URL: the configured origin alone.
+    }
   }
   return [...out];
+}
+
+/** The guard as route code calls it, for a Fetch API request. */
+export function refuseCrossSite(req: Request, appUrl: string): AppError | null {
+  return crossSiteRefusal({ method: req.method, headers: req.headers, ownOrigins: ownOrigins(appUrl, req.url, req.headers.get('host')) });
 }

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db/client';
 import { AppServer } from './app-server';
 import { makeOutlinedEpisode } from './episode-fixtures';
-import { makeCrew, makeUser, sessionCookie } from './helpers';
+import { PASSWORD, makeCrew, makeUser, sessionCookie } from './helpers';
 
 // Real HTTP against the built app: status codes of streamed pages, and what the server takes as
 // the client's address, are only visible there. Its own port, next to the upload tests' one.
@@ -81,5 +81,65 @@ describe('the throttle keys on the socket address, not on X-Forwarded-For (issue
   it('next-auth over HTTP answers malformed JSON with 400 (issue 12 item 16)', async () => {
     const res = await fetch(`${app.url}/api/auth/callback/credentials`, { method: 'POST', headers: { 'content-type': 'application/json', origin: app.url }, body: '{"email":' });
     expect(res.status).toBe(400);
+  });
+});
+
+/** next-auth's csrf token and its cookie, as its sign-in and sign-out forms send them. */
+async function csrf(): Promise<{ token: string; cookie: string }> {
+  const res = await fetch(`${app.url}/api/auth/csrf`);
+  const { csrfToken } = (await res.json()) as { csrfToken: string };
+  const cookie = (res.headers.getSetCookie().find((c) => c.startsWith('next-auth.csrf-token=')) ?? '').split(';')[0] ?? '';
+  return { token: csrfToken, cookie };
+}
+
+const form = (fields: Record<string, string>) => new URLSearchParams(fields).toString();
+
+describe('signing out ends the session on the server (issue 12 item 10)', () => {
+  it('a real sign-in, then sign-out: the old cookie gets 401 from the API and sign-in from pages', async () => {
+    const crew = await makeCrew();
+    const { token, cookie: csrfCookie } = await csrf();
+    const signIn = await fetch(`${app.url}/api/auth/callback/credentials`, {
+      method: 'POST',
+      redirect: 'manual',
+      headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: csrfCookie, origin: app.url },
+      body: form({ csrfToken: token, email: crew.host.email, password: PASSWORD, json: 'true' }),
+    });
+    const session = (signIn.headers.getSetCookie().find((c) => c.startsWith('next-auth.session-token=')) ?? '').split(';')[0] ?? '';
+    expect(session).not.toBe('');
+    expect((await fetch(`${app.url}/api/profile`, { headers: { cookie: session } })).status).toBe(200);
+
+    const out = await fetch(`${app.url}/api/auth/signout`, {
+      method: 'POST',
+      redirect: 'manual',
+      headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: `${session}; ${csrfCookie}`, origin: app.url },
+      body: form({ csrfToken: token, json: 'true' }),
+    });
+    expect(out.status).toBeLessThan(400);
+    expect(await db('revoked_sessions').where({ user_id: crew.host.id }).first()).toBeTruthy();
+
+    // The browser dropped the cookie; whoever copied it finds it dead.
+    expect((await fetch(`${app.url}/api/profile`, { headers: { cookie: session } })).status).toBe(401);
+    const pageAfter = await page(`/c/${crew.channel.slug}`, session);
+    expect(pageAfter.status).toBe(307);
+  });
+});
+
+describe('next-auth’s routes never answer 500 to a bad body (issue 12 item 16)', () => {
+  it('for sign-in and sign-out with broken, empty and wrong-type bodies', async () => {
+    const bodies = ['', '{', '[]', 'null', '"str"', '{"a":1}{', '\u0000', '{"csrfToken":{"$ne":1}}', 'csrfToken=&email=x'];
+    const types = ['application/json', 'application/x-www-form-urlencoded', 'text/plain', ''];
+    for (const action of ['callback/credentials', 'signout']) {
+      for (const body of bodies) {
+        for (const type of types) {
+          const res = await fetch(`${app.url}/api/auth/${action}`, {
+            method: 'POST',
+            redirect: 'manual',
+            headers: { ...(type ? { 'content-type': type } : {}), origin: app.url },
+            body,
+          });
+          expect(res.status, `${action} ${type} ${body}`).toBeLessThan(500);
+        }
+      }
+    }
   });
 });

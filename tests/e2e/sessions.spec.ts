@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { expect, expectAccessible, sameOrigin, test } from './fixtures';
 
 // A fresh account of its own: "Sign out everywhere" must not end the demo accounts' other tests.
-test('a new Host signs up, then “Sign out everywhere” ends every session, old cookies included', async ({ page, browser }) => {
+test('a new Host signs up, then “Sign out everywhere” ends every session, old cookies included', async ({ page, browser }, testInfo) => {
   const email = `sessions-${randomUUID().slice(0, 8)}@e2e.kerfline.test`;
   await page.goto('/sign-up');
   await expectAccessible(page);
@@ -23,6 +23,14 @@ test('a new Host signs up, then “Sign out everywhere” ends every session, ol
   await page.goto(`${channelUrl}/settings`);
   await expect(page.getByRole('heading', { name: 'Signed-in devices' })).toBeVisible();
   await expectAccessible(page);
+  // For a person to look at: the section on a desktop and on a phone.
+  await page.getByRole('heading', { name: 'Signed-in devices' }).scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('settings-1280.png') });
+  await page.setViewportSize({ width: 375, height: 740 });
+  await page.getByRole('button', { name: 'Sign out everywhere' }).scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('settings-375.png') });
+  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+  expect(overflow).toBeLessThanOrEqual(0);
   await page.getByRole('button', { name: 'Sign out everywhere' }).click();
   await expect(page).toHaveURL(/\/sign-in/);
 
@@ -34,7 +42,7 @@ test('a new Host signs up, then “Sign out everywhere” ends every session, ol
   await other.close();
 });
 
-test('signing up with an address that has an account says nothing about it and signs no one in', async ({ page }) => {
+test('signing up with an address that has an account says nothing about it and signs no one in', async ({ page }, testInfo) => {
   await page.goto('/sign-up');
   await page.getByLabel('Your name').fill('Someone Else');
   await page.getByLabel('E-mail').fill('rowan@tallowmere.test');
@@ -44,4 +52,5 @@ test('signing up with an address that has an account says nothing about it and s
   await expect(page.getByRole('status').filter({ hasText: 'We sent a message to that address' })).toBeVisible();
   await expect(page).toHaveURL(/\/sign-up/);
   await expectAccessible(page);
+  await page.screenshot({ path: testInfo.outputPath('sign-up-known-address-1280.png') });
 });

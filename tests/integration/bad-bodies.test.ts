@@ -28,6 +28,10 @@ import * as safetyReviewRoute from '@/app/api/channels/[channel]/segments/[segme
 import * as shotRoute from '@/app/api/channels/[channel]/shots/[shotId]/route';
 import * as shotPositionRoute from '@/app/api/channels/[channel]/shots/[shotId]/position/route';
 import * as shotStateRoute from '@/app/api/channels/[channel]/shots/[shotId]/state/route';
+import * as starterRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/starter/route';
+import * as duplicateRoute from '@/app/api/channels/[channel]/shots/[shotId]/duplicate/route';
+import * as restoreRoute from '@/app/api/channels/[channel]/shots/[shotId]/restore/route';
+import * as shotMailRoute from '@/app/api/channels/[channel]/shot-mail/route';
 import { createInvitation } from '@/lib/crew/queries';
 import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
@@ -129,7 +133,28 @@ describe('no body makes a 500', () => {
   });
 });
 
-describe('no body makes a 500 on a bodyless route (issue 12 item 16)', () => {
+describe('no body makes a 500 on a bodyless route (issue 12 items 14 and 16)', () => {
+  it('for starter, duplicate, restore and send to crew: whatever body and type, never a 500', async () => {
+    const ch = crew.channel.slug;
+    const runs: { name: string; fn: Parameters<typeof call>[0]; params: Record<string, string> }[] = [
+      { name: 'starter', fn: starterRoute.POST, params: { channel: ch, episodeId } },
+      { name: 'duplicate shot', fn: duplicateRoute.POST, params: { channel: ch, shotId } },
+      { name: 'restore shot', fn: restoreRoute.POST, params: { channel: ch, shotId } },
+      { name: 'send to crew', fn: shotMailRoute.POST, params: { channel: ch } },
+    ];
+    for (const t of runs) {
+      await fc.assert(
+        fc.asyncProperty(rawBody, contentType, async (body, type) => {
+          const res = await call(t.fn, 'POST', { as: crew.host, params: t.params, rawBody: body, headers: type ? { 'content-type': type } : {} });
+          expect(res.status, `${t.name}: ${body}`).toBeLessThan(500);
+        }),
+        { numRuns: 10 },
+      );
+      // And from another site, refused before anything runs.
+      expect((await call(t.fn, 'POST', { as: crew.host, params: t.params, headers: { origin: 'https://evil.example' } })).status, t.name).toBe(403);
+    }
+  });
+
   it('for “sign out everywhere” (next-auth’s own routes are fuzzed over HTTP in page-status.test.ts)', async () => {
     // A throwaway user: "sign out everywhere" ends the sessions of whoever sends it.
     const user = await makeUser('fuzz-sessions');

@@ -51,11 +51,13 @@ test('a host outlines a three-level build and reorders it with the mouse and the
   await page.waitForTimeout(250);
   await page.keyboard.press('ArrowUp');
   await page.waitForTimeout(250);
+  // The move is saved by a PUT; reloading before it answers would cancel it (networkidle was reached long before).
+  const saved = page.waitForResponse((r) => r.url().endsWith('/position') && r.request().method() === 'PUT');
   await page.keyboard.press('Space');
   const afterKeyboard = [STARTER[0], STARTER[1], 'Sponsor read', 'Intermediate build', STARTER[5], 'Advanced build'];
   await expect.poll(() => cardTitles(page)).toEqual(afterKeyboard);
 
-  await page.waitForLoadState('networkidle');
+  expect((await saved).status()).toBe(200);
   await page.goto(url);
   await expect.poll(() => cardTitles(page)).toEqual(afterKeyboard);
 });

@@ -5,6 +5,9 @@ export async function register(): Promise<void> {
   // Validates the whole environment now, so a bad value stops the server at start with its name.
   const { config } = await import('./lib/config');
   const env = config();
+  // Throttling keys on the client address; route handlers get no socket, so it is tagged here.
+  const { tagRequestsWithPeer } = await import('./lib/http/tag-peer');
+  tagRequestsWithPeer();
   if (env.KERFLINE_MAIL_WORKER) {
     const { startShotMailWorker } = await import('./lib/mail/assignment-worker');
     startShotMailWorker();

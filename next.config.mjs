@@ -15,6 +15,16 @@ const csp = [
   "frame-ancestors 'none'",
 ].join('; ');
 
+// Source: RFC 6797 §6.1 (Strict-Transport-Security); one year is common practice. Only when the
+// public URL is https: an http-only local app must not pin browsers to https. Headers are fixed
+// at build time, so scripts/lib/build.mjs rebuilds when the scheme changes.
+const hsts = (process.env.NEXTAUTH_URL ?? '').startsWith('https://')
+  ? [{ key: 'Strict-Transport-Security', value: 'max-age=31536000; includeSubDomains' }]
+  : [];
+
+// app/api/channels/[channel]/clips/[clipId]/file: uploaded bytes, served under `sandbox; default-src 'none'`.
+const CLIP_FILE_PATH = 'api/channels/[^/]+/clips/[^/]+/file';
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
@@ -24,13 +34,19 @@ const nextConfig = {
   async headers() {
     return [
       {
+        // Every path but the clip file route, which answers with its own sandbox CSP: Next applies
+        // these headers over a route's own, so the page CSP (inline scripts allowed) must skip it.
+        source: `/:path((?!${CLIP_FILE_PATH}$).*)`,
+        headers: [{ key: 'Content-Security-Policy', value: csp }],
+      },
+      {
         source: '/:path*',
         headers: [
-          { key: 'Content-Security-Policy', value: csp },
           { key: 'X-Content-Type-Options', value: 'nosniff' },
           { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
           { key: 'X-Frame-Options', value: 'DENY' },
           { key: 'Permissions-Policy', value: 'camera=(), microphone=(), geolocation=()' },
+          ...hsts,
         ],
       },
     ];

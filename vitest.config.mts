@@ -11,7 +11,7 @@ export default defineConfig({
       {
         resolve: { alias },
         // Property tests share two cores with the planners' own searches, so 5 s is too tight.
-        test: { name: 'unit', include: ['lib/**/*.test.ts', 'db/**/*.test.ts'], environment: 'node', testTimeout: 30_000 },
+        test: { name: 'unit', include: ['lib/**/*.test.ts', 'db/**/*.test.ts', 'scripts/**/*.test.mjs'], environment: 'node', testTimeout: 30_000 },
       },
       {
         resolve: { alias },
@@ -26,12 +26,12 @@ export default defineConfig({
         },
       },
       {
-        // Real HTTP against the production build (`next start`), so only this project waits for the build;
+        // System tests: real HTTP against the production build (`next start`), so only this project waits for the build;
         // scripts/test.mjs runs it after `next build`, and unit + integration before.
         resolve: { alias },
         test: {
-          name: 'upload',
-          include: ['tests/upload/**/*.test.ts'],
+          name: 'system',
+          include: ['tests/system/**/*.test.ts'],
           environment: 'node',
           setupFiles: ['tests/integration/setup.ts'],
           testTimeout: 30_000,

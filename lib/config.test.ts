@@ -18,6 +18,10 @@ describe('parseConfig', () => {
       UPLOAD_DIR: '.data/uploads',
       MAX_UPLOAD_BYTES: 50 * 1024 ** 3,
       STALE_UPLOAD_DAYS: 7,
+      TRUST_PROXY_HOPS: 0,
+      CLIP_RECONCILE_MS: 60_000,
+      KERFLINE_BYTE_REMOVALS: true,
+      KERFLINE_TEST_CRASH_BEFORE_CLIP_ROW: false,
     });
     expect(c.NEXTAUTH_SECRET).toBeUndefined();
     expect(c.APP_URL).toBeUndefined();
@@ -49,7 +53,7 @@ describe('parseConfig', () => {
 
   it('refuses bad values with one line per variable that names it and what was given', () => {
     const bad = () =>
-      parseConfig({ MAX_UPLOAD_BYTES: 'lots', DB_POOL_MAX: '2.5', SHOT_MAIL_DELAY_SECONDS: '-1', SMTP_URL: 'http://mail', NODE_ENV: 'staging' });
+      parseConfig({ TRUST_PROXY_HOPS: '-1', MAX_UPLOAD_BYTES: 'lots', DB_POOL_MAX: '2.5', SHOT_MAIL_DELAY_SECONDS: '-1', SMTP_URL: 'http://mail', NODE_ENV: 'staging' });
     expect(bad).toThrow(ConfigError);
     let message = '';
     try {
@@ -61,6 +65,7 @@ describe('parseConfig', () => {
     expect(message).toContain('DB_POOL_MAX: must be a whole number > 0, got "2.5"');
     expect(message).toContain('SHOT_MAIL_DELAY_SECONDS: must be a number >= 0, got "-1"');
     expect(message).toContain('SMTP_URL: must be a URL starting smtp:// or smtps://, got "http://mail"');
+    expect(message).toContain('TRUST_PROXY_HOPS: must be a whole number >= 0, got "-1"');
     expect(message).toContain('NODE_ENV: must be development, production or test');
   });
 });

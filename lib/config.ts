@@ -81,8 +81,10 @@ const envSchema = z.object({
   POSTER_DIR: optionalText,
   MAX_UPLOAD_BYTES: number(50 * 1024 ** 3, { min: 'positive', integer: true }),
   STALE_UPLOAD_DAYS: number(7, { min: 'positive' }),
+  // How many reverse proxies in front of Kerfline append to X-Forwarded-For (lib/http/peer.ts).
+  TRUST_PROXY_HOPS: number(0, { min: 'zero', integer: true }),
   CLIP_RECONCILE_MS: number(60_000, { min: 'positive' }),
-  // Off only where another store shares the database (tests/upload/uploads.test.ts).
+  // Off only where another store shares the database (tests/system/uploads.test.ts).
   KERFLINE_BYTE_REMOVALS: switchedOn,
   // Test-only: the finish hook exits before writing the clip row, to prove the reconciler recovers it.
   KERFLINE_TEST_CRASH_BEFORE_CLIP_ROW: z

@@ -33,7 +33,7 @@ const statusByCode: Record<ErrorCode, number> = {
 export class AppError extends Error {
   readonly code: ErrorCode;
   readonly fields: FieldErrors | undefined;
-  /** For 429: when to try again, sent as Retry-After (the wrapper's default is 900 s, the sign-in window). */
+  /** For too_many_requests: the Retry-After the answer carries. */
   readonly retryAfterSeconds: number | undefined;
 
   constructor(code: ErrorCode, message: string, fields?: FieldErrors, options?: { cause?: unknown; retryAfterSeconds?: number }) {
@@ -56,6 +56,8 @@ export const forbidden = (message = 'Your role on this channel does not allow th
   new AppError('forbidden', message);
 export const notFound = (what = 'That') => new AppError('not_found', `${what} was not found.`);
 export const conflict = (message: string, fields?: FieldErrors) => new AppError('conflict', message, fields);
+export const tooManyRequests = (message: string, retryAfterSeconds: number) =>
+  new AppError('too_many_requests', message, undefined, { retryAfterSeconds: Math.max(1, Math.ceil(retryAfterSeconds)) });
 
 export type ErrorBody = { error: { code: ErrorCode; message: string; fields?: FieldErrors } };
 

@@ -9,11 +9,15 @@ import { addCleanup, handleSignals, isShuttingDown, teardown } from './lib/lifec
 import { ensureMaildev, mailPorts } from './lib/maildev.mjs';
 import { databaseUrl, ensureDataRoot, ensureDatabase, ensurePostgres, runDbSetup } from './lib/postgres.mjs';
 import { ROOT, SetupError, childEnv, httpAnswers, log, startService, stopService, waitFor } from './lib/proc.mjs';
+import { publicUrls } from './lib/public-url.mjs';
 import { ensureSessionSecret } from './lib/secret.mjs';
 
 const DEV = process.argv.includes('--dev');
 const APP_PORT = Number(process.env.PORT || 3000);
-const APP_URL = `http://127.0.0.1:${APP_PORT}`;
+// The operator's NEXTAUTH_URL / APP_URL win (https makes cookies Secure and adds HSTS); the app
+// itself always listens on 127.0.0.1, which is where this script checks that it answers.
+const URLS = publicUrls(process.env, APP_PORT);
+const APP_URL = URLS.localUrl;
 const DB_NAME = 'kerfline';
 const MAIL_FROM = 'Kerfline <no-reply@kerfline.local>';
 const DEMO_ACCOUNTS = path.join(ROOT, 'db', 'seeds', 'demo-accounts.json');
@@ -38,8 +42,8 @@ function appEnv({ dbUrl, mail, secret }) {
   return {
     DATABASE_URL: dbUrl,
     NEXTAUTH_SECRET: secret,
-    NEXTAUTH_URL: APP_URL,
-    APP_URL,
+    NEXTAUTH_URL: URLS.nextAuthUrl,
+    APP_URL: URLS.appUrl,
     SMTP_URL: mail.smtpUrl,
     MAILDEV_WEB_URL: mail.webUrl,
     MAIL_FROM,
@@ -57,7 +61,7 @@ function readDemoAccounts() {
 }
 
 function printReady(mail) {
-  const lines = ['', `Kerfline is running: ${APP_URL}`, `Mail catcher:       ${mail.webUrl}`];
+  const lines = ['', `Kerfline is running: ${URLS.nextAuthUrl}${URLS.nextAuthUrl === APP_URL ? '' : ` (listening on ${APP_URL})`}`, `Mail catcher:       ${mail.webUrl}`];
   const accounts = readDemoAccounts();
   if (accounts.length) {
     lines.push('', 'Sign in with (demo accounts):');

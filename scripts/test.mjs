@@ -22,7 +22,7 @@ const E2E_PORT = Number(process.env.E2E_PORT || 3100);
 const APP_URL = `http://127.0.0.1:${E2E_PORT}`;
 const REPORTS = path.join(ROOT, '.reports');
 const VITEST_REPORT = path.join(REPORTS, 'vitest.json');
-const VITEST_UPLOAD_REPORT = path.join(REPORTS, 'vitest-upload.json');
+const VITEST_SYSTEM_REPORT = path.join(REPORTS, 'vitest-system.json');
 const PLAYWRIGHT_REPORT = path.join(REPORTS, 'playwright.json');
 const MAIL_FROM = 'Kerfline <no-reply@kerfline.local>';
 const bin = (rel) => path.join(ROOT, 'node_modules', rel);
@@ -124,7 +124,7 @@ async function install() {
 
 function resetReports() {
   fs.mkdirSync(REPORTS, { recursive: true });
-  for (const file of [VITEST_REPORT, VITEST_UPLOAD_REPORT, PLAYWRIGHT_REPORT]) fs.rmSync(file, { force: true });
+  for (const file of [VITEST_REPORT, VITEST_SYSTEM_REPORT, PLAYWRIGHT_REPORT]) fs.rmSync(file, { force: true });
 }
 
 async function main() {
@@ -151,7 +151,7 @@ async function main() {
   // Unit and integration tests need no build; only the upload project and Playwright run the built app.
   await vitest(itEnv, ['unit', 'integration'], VITEST_REPORT);
   const built = await build({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
-  if (built) await vitest(itEnv, ['upload'], VITEST_UPLOAD_REPORT);
+  if (built) await vitest(itEnv, ['system'], VITEST_SYSTEM_REPORT);
   if (built && !SKIP_E2E) await e2e({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
 }
 

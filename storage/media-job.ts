@@ -6,14 +6,15 @@ import path from 'node:path';
 import { promisify } from 'node:util';
 import { claimClipJob, completeClipJob, retryClipJob, type ClipJob } from '@/lib/clips/queries';
 import { parseProbe, type MediaInfo } from '@/lib/clips/probe';
+import { POSTER_FAILED, probeFailureNote } from '@/lib/clips/probe-note';
 import type { ClipStore } from './clip-store';
 
 const run = promisify(execFile);
 type ExecError = Error & { code?: string | number; stderr?: string };
 
-const firstLine = (s: string | undefined) => (s ?? '').split('\n').find((l) => l.trim() !== '')?.trim() ?? '';
-// ffprobe names the file it read; people see the note, so the server's path becomes "the file".
-const withoutPath = (line: string, file: string) => line.split(file).join('the file');
+// People see plain notes (lib/clips/probe-note.ts); the tools' own words go to the server log.
+const logToolFailure = (what: string, clipId: string, err: ExecError) =>
+  console.error(`[clips] ${what} failed for clip ${clipId}:`, (err.stderr ?? '').trim() || err.message);
 
 async function probe(file: string): Promise<MediaInfo> {
   const { stdout } = await run('ffprobe', ['-v', 'error', '-print_format', 'json', '-show_format', '-show_streams', file], { timeout: 120_000, maxBuffer: 8 * 1024 * 1024 });
@@ -36,7 +37,8 @@ export async function processClipJob(store: ClipStore, job: ClipJob): Promise<vo
     const e = err as ExecError;
     if (e.code === 'ENOENT') return completeClipJob(job, { state: 'unavailable', note: 'ffprobe is not installed on the server, so duration and resolution are unknown.', poster: false });
     if (typeof e.code === 'number' || e instanceof SyntaxError) {
-      return completeClipJob(job, { state: 'failed', note: `ffprobe could not read this file: ${withoutPath(firstLine(e.stderr) || e.message, file)}`, poster: false });
+      logToolFailure('ffprobe', job.clipId, e);
+      return completeClipJob(job, { state: 'failed', note: probeFailureNote(e.stderr ?? ''), poster: false });
     }
     return retryClipJob(job, e.message);
   }
@@ -50,7 +52,8 @@ export async function processClipJob(store: ClipStore, job: ClipJob): Promise<vo
       await store.savePoster(job.clipId, out);
       made = true;
     } catch (err) {
-      note = `No poster frame: ${withoutPath(firstLine((err as ExecError).stderr) || (err as Error).message, file)}`;
+      logToolFailure('ffmpeg poster', job.clipId, err as ExecError);
+      note = POSTER_FAILED;
     } finally {
       await rm(out, { force: true });
     }

@@ -1,12 +1,13 @@
 import 'server-only';
 import type { Upload } from '@tus/server';
 import { NextRequest } from 'next/server';
-import { config } from '@/lib/config';
+import { refuseCrossSite } from '@/lib/api/origin';
 import { can } from '@/lib/auth/policy';
 import { getUserFromRequest } from '@/lib/auth/session';
 import { displayName } from '@/lib/clips/names';
 import { DELETE_OWN_ONLY, mayDeleteClip } from '@/lib/clips/policy';
 import { findUploadTarget, roleInChannel } from '@/lib/clips/queries';
+import { appUrl, config } from '@/lib/config';
 import { isAcceptedType, uploadMetadataSchema } from '@/lib/clips/schemas';
 import type { UserDto } from '@/lib/users/schemas';
 import type { ClipStore } from './clip-store';
@@ -25,6 +26,9 @@ const notYours = () => tusError(404, 'No such upload.');
 export function uploadHooks(store: ClipStore) {
   return {
     async onIncomingRequest(req: Request, uploadId: string): Promise<void> {
+      // The same cross-site guard as lib/api/handler.ts: tus POST, PATCH and DELETE change state.
+      const crossSite = refuseCrossSite(req, appUrl());
+      if (crossSite) throw tusError(403, crossSite.message);
       const user = await authenticate(req);
       if (req.method === 'POST' || !uploadId) return;
       const upload = await store.tus.getUpload(uploadId).catch(() => null);

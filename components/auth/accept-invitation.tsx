@@ -38,7 +38,7 @@ export function AcceptInvitation({ token, email, accountExists, signedInAs }: Pr
         const result = await signIn('credentials', { redirect: false, email, password: afterSignIn.password });
         if (!result || result.error) {
           setPending(false);
-          return setError('That password did not match, or there were too many tries. Wait 15 minutes and try again.');
+          return setError('That password did not match, or there were too many tries. Wait a minute and try again.');
         }
       }
       const { accepted } = await apiFetch<Accepted>(api('invitations', token, 'accept'), { method: 'POST', body: {} });

@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 
 const FAILED =
-  'That e-mail and password did not match, or there were too many tries. Check them, or wait 15 minutes and try again.';
+  'That e-mail and password did not match, or there were too many tries. Check them, or wait a minute and try again.';
 
 export function SignInForm({ callbackUrl, defaultEmail }: { callbackUrl: string; defaultEmail: string }) {
   const router = useRouter();

@@ -8,15 +8,14 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ApiError, apiFetch } from '@/lib/api/client';
 import { fieldErrorsFrom } from '@/lib/api/validation';
-import type { ChannelDto } from '@/lib/channels/schemas';
 import type { FieldErrors } from '@/lib/errors';
 import { signUpSchema } from '@/lib/users/schemas';
-import { channelPage } from '@/lib/api/paths';
 
 export function SignUpForm() {
   const router = useRouter();
   const [fields, setFields] = useState<FieldErrors>({});
   const [error, setError] = useState<string | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
   const [pending, setPending] = useState(false);
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
@@ -29,12 +28,19 @@ export function SignUpForm() {
     }
     setFields({});
     setError(null);
+    setNotice(null);
     setPending(true);
     try {
-      const { channel } = await apiFetch<{ channel: ChannelDto }>('/api/sign-up', { method: 'POST', body: parsed.data });
-      await signIn('credentials', { redirect: false, email: parsed.data.email, password: parsed.data.password });
-      router.push(channelPage(channel.slug));
-      router.refresh();
+      // The server answers the same whether or not the address had an account; signing in tells.
+      await apiFetch<{ message: string }>('/api/sign-up', { method: 'POST', body: parsed.data });
+      const result = await signIn('credentials', { redirect: false, email: parsed.data.email, password: parsed.data.password });
+      if (result && !result.error) {
+        router.push('/');
+        router.refresh();
+        return;
+      }
+      setPending(false);
+      setNotice('We sent a message to that address. If you already have a Kerfline account, sign in with it instead.');
     } catch (err) {
       setPending(false);
       if (err instanceof ApiError) {
@@ -47,6 +53,7 @@ export function SignUpForm() {
   return (
     <form onSubmit={onSubmit} className="mt-6 space-y-4" noValidate>
       {error ? <Alert tone="attention">{error}</Alert> : null}
+      {notice ? <Alert tone="info">{notice}</Alert> : null}
       <TextField label="Your name" name="name" autoComplete="name" required error={fields.name} />
       <TextField label="E-mail" name="email" type="email" autoComplete="email" required error={fields.email} />
       <TextField

@@ -6,6 +6,7 @@ import * as shots from './20261202100000_shots';
 import * as clips from './20261203000000_clips';
 import * as episodeDateOrder from './20261212000000_episode_date_order';
 import * as byteRemovals from './20261212000001_byte_removals';
+import * as sessionsAndLimits from './20261213000000_sessions_and_limits';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -19,6 +20,7 @@ const migrations: Record<string, Migration> = {
   '20261203000000_clips': clips,
   '20261212000000_episode_date_order': episodeDateOrder,
   '20261212000001_byte_removals': byteRemovals,
+  '20261213000000_sessions_and_limits': sessionsAndLimits,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -4,8 +4,10 @@ import type { z } from 'zod';
 import { can, type Capability } from '@/lib/auth/policy';
 import { getUserFromRequest } from '@/lib/auth/session';
 import { findMembership, type Membership } from '@/lib/channels/queries';
+import { appUrl } from '@/lib/config';
 import { AppError, forbidden, notFound, toAppError, toErrorBody, unauthenticated } from '@/lib/errors';
 import type { UserDto } from '@/lib/users/schemas';
+import { refuseCrossSite } from './origin';
 import { parseWith, readJsonBody, searchParamsObject } from './validation';
 
 type Auth = 'required' | 'none';
@@ -33,8 +35,9 @@ export type HandlerContext<P extends z.ZodType, Q extends z.ZodType, B extends z
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
 /**
- * The one wrapper for every JSON route: session (401) -> params (404), query and body (400) ->
- * channel membership (404) and role (403) -> handler -> JSON. Any other failure is logged and 500.
+ * The one wrapper for every JSON route: origin of a state change (403) -> session (401) -> params
+ * (404), query and body (400) -> channel membership (404) and role (403) -> handler -> JSON. Any
+ * other failure is logged and 500.
  */
 export function route<
   P extends z.ZodType = z.ZodType<Record<string, never>>,
@@ -45,6 +48,8 @@ export function route<
 >(spec: Spec<P, Q, B, A, C>, handler: (ctx: HandlerContext<P, Q, B, A, C>) => Promise<unknown>) {
   return async (req: NextRequest, context: RouteContext): Promise<Response> => {
     try {
+      const crossSite = refuseCrossSite(req, appUrl());
+      if (crossSite) throw crossSite;
       const user = await getUserFromRequest(req);
       if ((spec.auth ?? 'required') === 'required' && !user) throw unauthenticated();
 
@@ -82,7 +87,7 @@ export function errorResponse(err: unknown, req?: Request): Response {
   if (appError.code === 'internal') {
     console.error(`[api] ${req?.method ?? ''} ${req ? new URL(req.url).pathname : ''} failed`, appError.cause ?? err);
   }
-  const headers: HeadersInit = appError.code === 'too_many_requests' ? { 'retry-after': String(appError.retryAfterSeconds ?? 900) } : {};
+  const headers: HeadersInit = appError.code === 'too_many_requests' ? { 'retry-after': String(appError.retryAfterSeconds ?? 60) } : {};
   return Response.json(toErrorBody(appError), { status: appError.status, headers });
 }
 

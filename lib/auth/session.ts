@@ -1,23 +1,31 @@
 import 'server-only';
-import { getServerSession } from 'next-auth';
-import { getToken } from 'next-auth/jwt';
+import { getToken, type JWT } from 'next-auth/jwt';
+import { cookies, headers } from 'next/headers';
 import { forbidden, notFound, redirect } from 'next/navigation';
 import type { NextRequest } from 'next/server';
 import { findMembership, type Membership } from '@/lib/channels/queries';
 import { config } from '@/lib/config';
-import { findUserById } from '@/lib/users/queries';
 import type { UserDto } from '@/lib/users/schemas';
-import { authOptions } from './options';
 import { can, type Capability } from './policy';
+import { findSessionUser } from './session-queries';
 
-export async function getUserFromRequest(req: NextRequest): Promise<UserDto | null> {
-  const token = await getToken({ req, secret: config().NEXTAUTH_SECRET });
-  return token?.sub ? findUserById(token.sub) : null;
+/** A valid token whose session has not ended (sign-out, "sign out everywhere"); checked on every request. */
+async function userFromToken(token: JWT | null): Promise<UserDto | null> {
+  if (!token?.sub) return null;
+  // Tokens from before session versions existed carry none; they belong to version 0.
+  const version = typeof token.sv === 'number' ? token.sv : 0;
+  return findSessionUser({ userId: token.sub, version, sid: typeof token.sid === 'string' ? token.sid : null });
 }
 
+/** For route handlers and tus hooks. */
+export async function getUserFromRequest(req: NextRequest): Promise<UserDto | null> {
+  return userFromToken(await getToken({ req, secret: config().NEXTAUTH_SECRET }));
+}
+
+/** For pages and layouts: the same check, reading the request's cookies. */
 export async function getCurrentUser(): Promise<UserDto | null> {
-  const session = await getServerSession(authOptions);
-  return session?.user.id ? findUserById(session.user.id) : null;
+  const req = { cookies: await cookies(), headers: await headers() };
+  return userFromToken(await getToken({ req: req as unknown as NextRequest, secret: config().NEXTAUTH_SECRET }));
 }
 
 /** For pages: sign-in redirect when signed out. */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { channelSlugSchema } from '@/lib/channels/schemas';
-import { ACCEPTED_TYPE } from './names';
+import { isAcceptedMediaType } from './media-types';
 
 /** Upload-Metadata as tus-js-client sends it: every value a string. */
 export const uploadMetadataSchema = z.object({
@@ -10,8 +10,8 @@ export const uploadMetadataSchema = z.object({
   filetype: z.string({ error: 'Send the file type (filetype).' }).min(1, 'Send the file type (filetype).').max(127),
 });
 export type UploadMetadata = z.infer<typeof uploadMetadataSchema>;
-// SVG is a document that can carry script, not a still from a camera.
-export const isAcceptedType = (t: string) => ACCEPTED_TYPE.test(t) && !/^image\/svg/i.test(t);
+// An allow-list (lib/clips/media-types.ts): SVG and other +xml types are documents that can carry script.
+export const isAcceptedType = (t: string) => isAcceptedMediaType(t);
 
 export const segmentClipsParamsSchema = z.object({ channel: channelSlugSchema, segmentId: z.uuid() });
 export const clipParamsSchema = z.object({ channel: channelSlugSchema, clipId: z.uuid() });

@@ -6,6 +6,7 @@ import type { Role } from '@/lib/auth/policy';
 import { AppError, conflict, forbidden, notFound } from '@/lib/errors';
 import type { UserDto } from '@/lib/users/schemas';
 import type { CrewMemberDto, InvitationDto, InvitationLookupDto, InvitationStatus, InviteInput } from './schemas';
+import { takeInvitationMail } from './mail-limit-queries';
 import { generateInvitationToken, hashInvitationToken, invitationExpiry } from './tokens';
 
 type InvitationRow = {
@@ -105,6 +106,7 @@ export async function createInvitation(
       .whereNull('revoked_at')
       .first('id');
     if (open) throw conflict('That address already has an open invitation. Resend it instead.', { email: 'Already invited.' });
+    await takeInvitationMail(trx, channelId, input.email);
 
     const token = generateInvitationToken();
     const [row] = await trx('invitations')
@@ -122,17 +124,25 @@ export async function createInvitation(
   });
 }
 
-/** A resend issues a new link and a new expiry; the old link stops working. */
+/** A resend issues a new link and a new expiry; the old link stops working. Mail to it is rate-limited. */
 export async function renewInvitation(channelId: string, invitationId: string): Promise<{ invitation: InvitationDto; token: string }> {
-  const token = generateInvitationToken();
-  const [row] = await db('invitations')
-    .where({ id: invitationId, channel_id: channelId })
-    .whereNull('accepted_at')
-    .whereNull('revoked_at')
-    .update({ token_hash: hashInvitationToken(token), expires_at: invitationExpiry(), updated_at: db.fn.now() })
-    .returning<InvitationRow[]>('*');
-  if (!row) throw notFound('That open invitation');
-  return { invitation: toInvitationDto(row), token };
+  return db.transaction(async (trx) => {
+    const open: Pick<InvitationRow, 'email'> | undefined = await trx('invitations')
+      .where({ id: invitationId, channel_id: channelId })
+      .whereNull('accepted_at')
+      .whereNull('revoked_at')
+      .forUpdate()
+      .first('email');
+    if (!open) throw notFound('That open invitation');
+    await takeInvitationMail(trx, channelId, open.email);
+    const token = generateInvitationToken();
+    const [row] = await trx('invitations')
+      .where({ id: invitationId })
+      .update({ token_hash: hashInvitationToken(token), expires_at: invitationExpiry(), updated_at: trx.fn.now() })
+      .returning<InvitationRow[]>('*');
+    if (!row) throw notFound('That open invitation');
+    return { invitation: toInvitationDto(row), token };
+  });
 }
 
 export async function markInvitationSent(invitationId: string): Promise<InvitationDto> {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { parseDuration } from '@/lib/runtime';
 
@@ -30,11 +31,11 @@ export const durationSchema = z.union([z.number(), z.string()], { error: 'Enter 
   return seconds;
 });
 
-export const levelLabelSchema = z.string().trim().min(1, 'Give the level a name.').max(40, 'Keep level names under 40 characters.');
+export const levelLabelSchema = z.string().trim().min(1, 'Give the level a name.').max(40, 'Keep level names under 40 characters.').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE);
 
 const episodeFields = {
-  title: z.string({ error: 'Give the episode a title.' }).trim().min(1, 'Give the episode a title.').max(160, 'Keep the title under 160 characters.'),
-  premise: z.string().trim().max(280, 'Keep the premise to one line (280 characters).'),
+  title: z.string({ error: 'Give the episode a title.' }).trim().min(1, 'Give the episode a title.').max(160, 'Keep the title under 160 characters.').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE),
+  premise: z.string().trim().max(280, 'Keep the premise to one line (280 characters).').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE),
   stage: z.enum(episodeStages, { error: 'Choose a stage.' }),
   targetSeconds: durationSchema.nullable(),
   shootDate: dateSchema.nullable(),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { lengthInput } from '@/lib/stock/schemas';
 
@@ -6,7 +7,7 @@ export const grains = ['length', 'any'] as const;
 export type Grain = (typeof grains)[number];
 
 const fields = {
-  name: z.string({ error: 'Name the part.' }).trim().min(1, 'Name the part.').max(80, 'Keep part names under 80 characters.'),
+  name: z.string({ error: 'Name the part.' }).trim().min(1, 'Name the part.').max(80, 'Keep part names under 80 characters.').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE),
   quantity: z
     .number({ error: 'Enter how many, as a whole number.' })
     .int('Enter how many, as a whole number.')

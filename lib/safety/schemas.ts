@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { tools, type Tool } from './tools';
 
 export const segmentToolsSchema = z
   .strictObject({
     tools: z.array(z.enum(tools, { error: 'Choose tools from the list.' }), { error: 'Choose tools from the list.' }).max(tools.length),
-    otherTool: z.string({ error: 'Name the other tool.' }).trim().max(80, 'Keep the tool name under 80 characters.').default(''),
+    otherTool: z.string({ error: 'Name the other tool.' }).trim().max(80, 'Keep the tool name under 80 characters.').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE).default(''),
   })
   .superRefine((v, ctx) => {
     if (v.tools.includes('other') && !v.otherTool) ctx.addIssue({ code: 'custom', path: ['otherTool'], message: 'Name the other tool.' });

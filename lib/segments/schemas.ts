@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { durationSchema } from '@/lib/episodes/schemas';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
@@ -18,7 +19,7 @@ export const kindLabels: Record<SegmentKind, string> = {
 export const levels = [1, 2, 3] as const;
 export type Level = (typeof levels)[number];
 
-const title = z.string({ error: 'Give the segment a title.' }).trim().min(1, 'Give the segment a title.').max(160, 'Keep the title under 160 characters.');
+const title = z.string({ error: 'Give the segment a title.' }).trim().min(1, 'Give the segment a title.').max(160, 'Keep the title under 160 characters.').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE);
 const kind = z.enum(segmentKinds, { error: 'Choose a segment kind.' });
 const level = z.union([z.literal(1), z.literal(2), z.literal(3)], { error: 'Choose level 1, 2 or 3.' });
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { dateSchema } from '@/lib/episodes/schemas';
 import { cameras, framings, MAX_DESCRIPTION, shotStates, type Camera, type Framing, type ShotState } from './catalog';
@@ -9,7 +10,8 @@ const fields = {
     .string({ error: 'Say what the shot shows.' })
     .trim()
     .min(1, 'Say what the shot shows.')
-    .max(MAX_DESCRIPTION, `Keep the description under ${MAX_DESCRIPTION} characters.`),
+    .max(MAX_DESCRIPTION, `Keep the description under ${MAX_DESCRIPTION} characters.`)
+    .refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE),
   framing: z.enum(framings, { error: 'Choose a framing.' }),
   camera: z.enum(cameras, { error: 'Choose a camera.' }),
   assigneeId: z.uuid({ error: 'Choose someone from the crew.' }).nullable(),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { LumberParseError, parseNominalProfile, parseQuarters } from '@/lib/lumber';
 import { LengthParseError, parseLength } from '@/lib/units';
@@ -38,7 +39,7 @@ const priceInput = z
   .transform((v) => Math.round(Number(typeof v === 'string' ? v.replace('$', '') : v) * 100))
   .refine((c) => Number.isFinite(c) && c > 0 && c <= 10_000_000, 'Enter a price above 0 and up to 100,000.');
 
-const species = z.string({ error: 'Name the species or material.' }).trim().min(1, 'Name the species or material.').max(80, 'Keep it under 80 characters.');
+const species = z.string({ error: 'Name the species or material.' }).trim().min(1, 'Name the species or material.').max(80, 'Keep it under 80 characters.').refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE);
 
 const profile = z.string({ error: 'Write a lumber size like 2x4.' }).transform((v, ctx) => {
   try {

@@ -3,10 +3,10 @@ import { db } from '@/db/client';
 import { hashPassword } from '@/lib/auth/password';
 import { createChannelWithHost } from '@/lib/channels/queries';
 import type { ChannelDto } from '@/lib/channels/schemas';
-import { conflict, notFound } from '@/lib/errors';
+import { notFound } from '@/lib/errors';
 import type { ProfileDto, SignUpInput, UpdateProfileInput, UserDto } from './schemas';
 
-type UserRow = { id: string; email: string; name: string; password_hash: string };
+type UserRow = { id: string; email: string; name: string; password_hash: string; session_version: number };
 
 const toUserDto = (row: Pick<UserRow, 'id' | 'email' | 'name'>): UserDto => ({ id: row.id, email: row.email, name: row.name });
 
@@ -21,27 +21,35 @@ export async function findUserByEmail(email: string): Promise<UserDto | null> {
 }
 
 /** Only for checking a password; the hash never leaves lib/auth. */
-export async function findCredentialsByEmail(email: string): Promise<{ user: UserDto; passwordHash: string } | null> {
-  const row: UserRow | undefined = await db('users').where({ email }).first(['id', 'email', 'name', 'password_hash']);
-  return row ? { user: toUserDto(row), passwordHash: row.password_hash } : null;
+export async function findCredentialsByEmail(
+  email: string,
+): Promise<{ user: UserDto; passwordHash: string; sessionVersion: number } | null> {
+  const row: UserRow | undefined = await db('users').where({ email }).first(['id', 'email', 'name', 'password_hash', 'session_version']);
+  return row ? { user: toUserDto(row), passwordHash: row.password_hash, sessionVersion: row.session_version } : null;
 }
 
-const alreadyRegistered = () => conflict('An account with that e-mail already exists. Sign in instead.', { email: 'Already registered.' });
-
-/** The e-mail is checked before the password is hashed (issue 12, item 2), and again in the transaction. */
-export async function signUp(input: SignUpInput): Promise<{ user: UserDto; channel: ChannelDto }> {
-  if (await db('users').where({ email: input.email }).first('id')) throw alreadyRegistered();
+/**
+ * Creates the user, their channel and Host membership; null when the address already has an
+ * account. The password is hashed on both paths, so the answer takes as long either way.
+ */
+export async function signUp(input: SignUpInput): Promise<{ user: UserDto; channel: ChannelDto } | null> {
+  const existing = await db('users').where({ email: input.email }).first('id');
   const passwordHash = await hashPassword(input.password);
-  return db.transaction(async (trx) => {
-    const existing = await trx('users').where({ email: input.email }).first('id');
-    if (existing) throw alreadyRegistered();
-    const [row] = await trx('users')
-      .insert({ email: input.email, name: input.name, password_hash: passwordHash })
-      .returning<UserRow[]>(['id', 'email', 'name']);
-    if (!row) throw new Error('user insert returned no row');
-    const channel = await createChannelWithHost(trx, input.channelName, row.id);
-    return { user: toUserDto(row), channel };
-  });
+  if (existing) return null;
+  try {
+    return await db.transaction(async (trx) => {
+      const [row] = await trx('users')
+        .insert({ email: input.email, name: input.name, password_hash: passwordHash })
+        .returning<UserRow[]>(['id', 'email', 'name']);
+      if (!row) throw new Error('user insert returned no row');
+      const channel = await createChannelWithHost(trx, input.channelName, row.id);
+      return { user: toUserDto(row), channel };
+    });
+  } catch (err) {
+    // Two sign-ups for one new address at once: the second finds it taken, as above.
+    if ((err as { code?: unknown }).code === '23505' && /email/.test(String((err as { constraint?: unknown }).constraint))) return null;
+    throw err;
+  }
 }
 
 type ProfileRow = { id: string; email: string; name: string; email_opt_out: boolean };

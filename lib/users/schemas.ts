@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 
 export const emailSchema = z
   .string({ error: 'Enter an e-mail address.' })
@@ -17,13 +18,15 @@ export const personNameSchema = z
   .string({ error: 'Enter a name.' })
   .trim()
   .min(1, 'Enter a name.')
-  .max(120, 'Keep the name under 120 characters.');
+  .max(120, 'Keep the name under 120 characters.')
+  .refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE);
 
 export const channelNameSchema = z
   .string({ error: 'Enter a channel name.' })
   .trim()
   .min(2, 'Use at least 2 characters.')
-  .max(120, 'Keep the name under 120 characters.');
+  .max(120, 'Keep the name under 120 characters.')
+  .refine(isVisibleName, INVISIBLE_CHARACTERS_MESSAGE);
 
 export const signUpSchema = z.strictObject({
   name: personNameSchema,

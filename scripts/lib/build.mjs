@@ -59,15 +59,18 @@ function readStamp(root) {
   }
 }
 
-/** True when .next holds a build made from the current sources. */
-export function buildIsCurrent(root = ROOT) {
+/** Settings read at build time: next.config.mjs adds HSTS only for an https NEXTAUTH_URL. */
+export const buildEnvEntries = (env = {}) => [`env:NEXTAUTH_URL https\t${String(env.NEXTAUTH_URL ?? '').startsWith('https://')}`];
+
+/** True when .next holds a build made from the current sources (and build-time settings). */
+export function buildIsCurrent(root = ROOT, env = {}) {
   if (!fs.existsSync(path.join(root, '.next', 'BUILD_ID'))) return false;
-  return readStamp(root) === buildFingerprint(root);
+  return readStamp(root) === buildFingerprint(root, [...fingerprintEntries(root), ...buildEnvEntries(env)]);
 }
 
 // The first `next build` rewrites tsconfig.json; that change alone should not force another build.
-function stampAfterBuild(root, before) {
-  const after = fingerprintEntries(root);
+function stampAfterBuild(root, before, env) {
+  const after = [...fingerprintEntries(root), ...buildEnvEntries(env)];
   const changed = new Set([...before.filter((e) => !after.includes(e)), ...after.filter((e) => !before.includes(e))]);
   const onlyTsconfig = [...changed].every((entry) => entry.startsWith('tsconfig.json\t'));
   return buildFingerprint(root, onlyTsconfig ? after : before);
@@ -78,12 +81,12 @@ function stampAfterBuild(root, before) {
  * forced to production). Resolves { ok, built, code }.
  */
 export async function ensureBuild({ root = ROOT, env = {}, force = false } = {}) {
-  if (!force && buildIsCurrent(root)) {
+  if (!force && buildIsCurrent(root, env)) {
     log('build is up to date (.next)');
     return { ok: true, built: false, code: 0 };
   }
   log('building the app (next build)');
-  const before = fingerprintEntries(root);
+  const before = [...fingerprintEntries(root), ...buildEnvEntries(env)];
   const result = await run(process.execPath, [path.join(root, 'node_modules/next/dist/bin/next'), 'build'], {
     cwd: root,
     env: childEnv({ ...env, NODE_ENV: 'production' }),
@@ -92,6 +95,6 @@ export async function ensureBuild({ root = ROOT, env = {}, force = false } = {})
     fs.rmSync(path.join(root, STAMP_FILE), { force: true });
     return { ok: false, built: false, code: result.code };
   }
-  fs.writeFileSync(path.join(root, STAMP_FILE), `${stampAfterBuild(root, before)}\n`);
+  fs.writeFileSync(path.join(root, STAMP_FILE), `${stampAfterBuild(root, before, env)}\n`);
   return { ok: true, built: true, code: 0 };
 }

@@ -24,6 +24,9 @@ export const authStateFile = (role: DemoRole) => path.join(__dirname, '..', '..'
 /** A phone held in the shop: narrow, touch. */
 export const PHONE: BrowserContextOptions = { viewport: { width: 375, height: 800 }, hasTouch: true, isMobile: true };
 
+/** A browser sends Origin on every state change; API calls made by a test must send it too. */
+export const sameOrigin = { origin: `http://127.0.0.1:${process.env.E2E_PORT ?? 3100}` };
+
 /** Fails on serious or critical axe-core violations of the page as it is now. */
 export async function expectAccessible(page: Page) {
   const results = await new AxeBuilder({ page }).analyze();
@@ -34,10 +37,10 @@ export async function expectAccessible(page: Page) {
 /** A fresh episode made through the API as the signed-in host, so this test owns its shots. */
 export async function newEpisode(page: Page, title: string) {
   const api = `/api/channels/${DEMO_SLUG}`;
-  const ep = await page.request.post(`${api}/episodes`, { data: { title, stage: 'shoot', shootDate: '2027-02-06' } });
+  const ep = await page.request.post(`${api}/episodes`, { headers: sameOrigin, data: { title, stage: 'shoot', shootDate: '2027-02-06' } });
   expect(ep.status()).toBe(201);
   const { episode } = (await ep.json()) as { episode: { id: string } };
-  const st = await page.request.post(`${api}/episodes/${episode.id}/starter`);
+  const st = await page.request.post(`${api}/episodes/${episode.id}/starter`, { headers: sameOrigin });
   const { segments } = (await st.json()) as { segments: SegmentDto[] };
   const build = segments.find((s) => s.kind === 'build' && s.level === 1)!;
   return { episodeId: episode.id, build, segmentUrl: `/c/${DEMO_SLUG}/episodes/${episode.id}/segments/${build.id}` };

@@ -1,5 +1,5 @@
 import type { Page } from '@playwright/test';
-import { DEMO_SLUG, expect, expectAccessible, test } from './fixtures';
+import { DEMO_SLUG, expect, expectAccessible, sameOrigin, test } from './fixtures';
 import { RunningOrderPage } from './pages/running-order-page';
 import { SegmentPage } from './pages/segment-page';
 
@@ -91,7 +91,7 @@ test('a shop hand sees the running order read-only and the API refuses a reorder
 
   const href = await page.locator('ol > li a').first().getAttribute('href');
   const segmentId = href?.split('/').pop() ?? '';
-  const res = await page.request.put(`/api/channels/${DEMO_SLUG}/segments/${segmentId}/position`, { data: { afterId: null } });
+  const res = await page.request.put(`/api/channels/${DEMO_SLUG}/segments/${segmentId}/position`, { headers: sameOrigin, data: { afterId: null } });
   expect(res.status()).toBe(403);
 
   await page.locator('ol > li a').first().click();

@@ -1,4 +1,4 @@
-import { DEMO_SLUG, demo, expect, expectAccessible, test } from './fixtures';
+import { DEMO_SLUG, demo, expect, expectAccessible, sameOrigin, test } from './fixtures';
 import { SignInPage } from './pages/sign-in-page';
 
 test('the sign-in page is accessible and signed-out pages redirect to it', async ({ page }) => {
@@ -39,7 +39,7 @@ test('a shop hand opening crew settings is refused, on the page and by the API',
   expect(res?.status()).toBe(403);
   await expect(page.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
   await expectAccessible(page);
-  const api = await page.request.post(`/api/channels/${DEMO_SLUG}/invitations`, { data: { email: 'x@y.test', role: 'host' } });
+  const api = await page.request.post(`/api/channels/${DEMO_SLUG}/invitations`, { headers: sameOrigin, data: { email: 'x@y.test', role: 'host' } });
   expect(api.status()).toBe(403);
 });
 

@@ -1,4 +1,4 @@
-import { DEMO_SLUG, expect, expectAccessible, newEpisode, test } from './fixtures';
+import { DEMO_SLUG, expect, expectAccessible, sameOrigin, newEpisode, test } from './fixtures';
 import { RunningOrderPage } from './pages/running-order-page';
 
 test('the shoot-day sheet lists the day’s shots with cautions, and prints without the app around it', async ({ signedIn }) => {
@@ -6,9 +6,9 @@ test('the shoot-day sheet lists the day’s shots with cautions, and prints with
   const stamp = Date.now().toString(36);
   const { episodeId, build } = await newEpisode(page, `Sheet ${stamp}`);
   const api = `/api/channels/${DEMO_SLUG}`;
-  expect((await page.request.post(`${api}/segments/${build.id}/shots/bulk`, { data: { text: `Wide: rip the legs ${stamp}`, dueDate: '2027-02-06' } })).status()).toBe(201);
-  expect((await page.request.post(`${api}/segments/${build.id}/shots/bulk`, { data: { text: `CU: sand the edges ${stamp}`, dueDate: '2027-02-07' } })).status()).toBe(201);
-  expect((await page.request.put(`${api}/segments/${build.id}/tools`, { data: { tools: ['table_saw', 'finishes'] } })).status()).toBe(200);
+  expect((await page.request.post(`${api}/segments/${build.id}/shots/bulk`, { headers: sameOrigin, data: { text: `Wide: rip the legs ${stamp}`, dueDate: '2027-02-06' } })).status()).toBe(201);
+  expect((await page.request.post(`${api}/segments/${build.id}/shots/bulk`, { headers: sameOrigin, data: { text: `CU: sand the edges ${stamp}`, dueDate: '2027-02-07' } })).status()).toBe(201);
+  expect((await page.request.put(`${api}/segments/${build.id}/tools`, { headers: sameOrigin, data: { tools: ['table_saw', 'finishes'] } })).status()).toBe(200);
 
   await new RunningOrderPage(page).goto(episodeId);
   await expect(page.getByRole('link', { name: 'Stock rack' })).toBeVisible();

@@ -1,4 +1,4 @@
-import { DEMO_SLUG, PHONE, demo, expect, expectAccessible, newEpisode, test, waitForMail } from './fixtures';
+import { DEMO_SLUG, PHONE, demo, expect, expectAccessible, sameOrigin, newEpisode, test, waitForMail } from './fixtures';
 import { RunningOrderPage } from './pages/running-order-page';
 import { SegmentPage } from './pages/segment-page';
 import { ShopBoardPage } from './pages/shop-board-page';
@@ -56,7 +56,7 @@ test('a host moves a card from Planned to Captured with the keyboard', async ({ 
   const page = await signedIn('host', { viewport: { width: 1280, height: 1000 } });
   const stamp = Date.now().toString(36);
   const { episodeId, build } = await newEpisode(page, `Keyboard board ${stamp}`);
-  const add = await page.request.post(`/api/channels/${DEMO_SLUG}/segments/${build.id}/shots/bulk`, { data: { text: `Wide: plane the seat ${stamp}` } });
+  const add = await page.request.post(`/api/channels/${DEMO_SLUG}/segments/${build.id}/shots/bulk`, { headers: sameOrigin, data: { text: `Wide: plane the seat ${stamp}` } });
   expect(add.status()).toBe(201);
 
   const board = new ShopBoardPage(page);

@@ -8,6 +8,7 @@ import * as channelsRoute from '@/app/api/channels/route';
 import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
 import * as signUpRoute from '@/app/api/sign-up/route';
 import * as profileRoute from '@/app/api/profile/route';
+import * as sessionsRoute from '@/app/api/profile/sessions/route';
 import * as episodeRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/route';
 import * as segmentsRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/segments/route';
 import * as episodesRoute from '@/app/api/channels/[channel]/episodes/route';
@@ -27,12 +28,16 @@ import * as safetyReviewRoute from '@/app/api/channels/[channel]/segments/[segme
 import * as shotRoute from '@/app/api/channels/[channel]/shots/[shotId]/route';
 import * as shotPositionRoute from '@/app/api/channels/[channel]/shots/[shotId]/position/route';
 import * as shotStateRoute from '@/app/api/channels/[channel]/shots/[shotId]/state/route';
+import * as starterRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/starter/route';
+import * as duplicateRoute from '@/app/api/channels/[channel]/shots/[shotId]/duplicate/route';
+import * as restoreRoute from '@/app/api/channels/[channel]/shots/[shotId]/restore/route';
+import * as shotMailRoute from '@/app/api/channels/[channel]/shot-mail/route';
 import { createInvitation } from '@/lib/crew/queries';
 import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
 import { createStock } from '@/lib/stock/queries';
 import { makeOutlinedEpisode } from './episode-fixtures';
-import { call, makeCrew, uniqueEmail } from './helpers';
+import { call, makeCrew, makeUser, uniqueEmail } from './helpers';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
@@ -147,6 +152,41 @@ describe('a deeply nested body', () => {
     }
     // Signed in every route that reads a body, signed out sign-up and accept.
     expect(refused).toBeGreaterThanOrEqual(targets().length - 1 + 2);
+  });
+});
+
+describe('no body makes a 500 on a bodyless route (issue 12 items 14 and 16)', () => {
+  it('for starter, duplicate, restore and send to crew: whatever body and type, never a 500', async () => {
+    const ch = crew.channel.slug;
+    const runs: { name: string; fn: Parameters<typeof call>[0]; params: Record<string, string> }[] = [
+      { name: 'starter', fn: starterRoute.POST, params: { channel: ch, episodeId } },
+      { name: 'duplicate shot', fn: duplicateRoute.POST, params: { channel: ch, shotId } },
+      { name: 'restore shot', fn: restoreRoute.POST, params: { channel: ch, shotId } },
+      { name: 'send to crew', fn: shotMailRoute.POST, params: { channel: ch } },
+    ];
+    for (const t of runs) {
+      await fc.assert(
+        fc.asyncProperty(rawBody, contentType, async (body, type) => {
+          const res = await call(t.fn, 'POST', { as: crew.host, params: t.params, rawBody: body, headers: type ? { 'content-type': type } : {} });
+          expect(res.status, `${t.name}: ${body}`).toBeLessThan(500);
+        }),
+        { numRuns: 10 },
+      );
+      // And from another site, refused before anything runs.
+      expect((await call(t.fn, 'POST', { as: crew.host, params: t.params, headers: { origin: 'https://evil.example' } })).status, t.name).toBe(403);
+    }
+  });
+
+  it('for “sign out everywhere” (next-auth’s own routes are fuzzed over HTTP in page-status.test.ts)', async () => {
+    // A throwaway user: "sign out everywhere" ends the sessions of whoever sends it.
+    const user = await makeUser('fuzz-sessions');
+    await fc.assert(
+      fc.asyncProperty(rawBody, contentType, async (body, type) => {
+        const res = await call(sessionsRoute.DELETE, 'DELETE', { as: user, rawBody: body, headers: type ? { 'content-type': type } : {} });
+        expect(res.status, body).toBeLessThan(500);
+      }),
+      { numRuns: 30 },
+    );
   });
 });
 

@@ -1,10 +1,16 @@
 import fs from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import os from 'node:os';
+import path from 'node:path';
+import { Readable } from 'node:stream';
+import * as clipFileRoute from '@/app/api/channels/[channel]/clips/[clipId]/file/route';
+import * as clipPosterRoute from '@/app/api/channels/[channel]/clips/[clipId]/poster/route';
 import * as clipRoute from '@/app/api/channels/[channel]/clips/[clipId]/route';
 import * as segmentClipsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/clips/route';
 import * as boardRoute from '@/app/api/channels/[channel]/shots/route';
 import { db } from '@/db/client';
 import { recordClipOnce } from '@/lib/clips/queries';
+import { PROBE_UNREADABLE } from '@/lib/clips/probe-note';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { removeStaleUploads } from '@/storage/cleanup';
@@ -31,10 +37,29 @@ async function makeClip(c: Crew, by = c.shopHand.id) {
   return { clipId, build, shopShot };
 }
 
+/** A clip whose bytes and poster frame are in the store, for the file and poster routes. */
+async function makeStoredClip(c: Crew) {
+  const { build } = await makeShotEpisode(c);
+  const store = clipStore();
+  const uploadId = hex();
+  const bytes = Buffer.alloc(64, 7);
+  await store.tus.create({ id: uploadId, size: 64, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
+  await store.tus.write(Readable.from([bytes]), uploadId, 0);
+  const { clipId } = await recordClipOnce({ uploadId, segmentId: build.id, shotId: null, uploadedBy: c.shopHand.id, originalName: 'A001.mp4', mimeType: 'video/mp4', sizeBytes: 64, sha256: 'd'.repeat(64) });
+  const jpeg = path.join(os.tmpdir(), `kerfline-test-poster-${clipId}.jpg`);
+  fs.writeFileSync(jpeg, Buffer.from([0xff, 0xd8, 0xff, 0xd9]));
+  await store.savePoster(clipId, jpeg);
+  fs.rmSync(jpeg, { force: true });
+  await db('clips').where({ id: clipId }).update({ has_poster: true });
+  return { clipId };
+}
+
 const ch = (c: Crew) => ({ channel: c.channel.slug });
 const cases: RouteCase[] = [
   { name: 'GET segment clips', fn: segmentClipsRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), segmentId: (await makeClip(c)).build.id }), okStatus: 200 },
   { name: 'GET clip', fn: clipRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), clipId: (await makeClip(c)).clipId }), okStatus: 200 },
+  { name: 'GET clip file', fn: clipFileRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), clipId: (await makeStoredClip(c)).clipId }), okStatus: 200 },
+  { name: 'GET clip poster', fn: clipPosterRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), clipId: (await makeStoredClip(c)).clipId }), okStatus: 200 },
   { name: 'DELETE clip (the shop hand’s own)', fn: clipRoute.DELETE, method: 'DELETE', allowed: ['host', 'shop_hand'], params: async (c) => ({ ...ch(c), clipId: (await makeClip(c)).clipId }), okStatus: 204 },
 ];
 describeRouteMatrix(cases);
@@ -105,7 +130,9 @@ describe('media jobs', () => {
     await processClipJob(store, { id: String(job.id), clipId, uploadId, mimeType: 'video/mp4', attempts: 1 });
     const clip = await db('clips').where({ id: clipId }).first('probe_state', 'probe_note', 'has_poster');
     expect(clip).toMatchObject({ probe_state: 'failed', has_poster: false });
-    expect(clip.probe_note).toMatch(/ffprobe could not read this file/);
+    // Plain words for people, not ffprobe's own output (issue 12 item 16).
+    expect(clip.probe_note).toBe(PROBE_UNREADABLE);
+    expect(clip.probe_note).not.toMatch(/ffprobe|@ 0x|\[|Invalid data/);
     expect(clip.probe_note).not.toContain(store.localPath(uploadId)!);
     expect(await db('clip_jobs').where({ clip_id: clipId })).toHaveLength(0);
   });

@@ -3,6 +3,7 @@ import { encode } from 'next-auth/jwt';
 import { NextRequest } from 'next/server';
 import { db } from '@/db/client';
 import { hashPassword } from '@/lib/auth/password';
+import { PEER_HEADER } from '@/lib/http/peer';
 import type { Role } from '@/lib/auth/policy';
 import { createChannel } from '@/lib/channels/queries';
 import type { ChannelDto } from '@/lib/channels/schemas';
@@ -37,9 +38,12 @@ export async function makeCrew() {
   return { channel, host, shopHand, editor };
 }
 
-/** A real next-auth session cookie, signed with the same secret the app uses. */
-export async function sessionCookie(user: UserDto): Promise<string> {
-  const token = await encode({ token: { sub: user.id, email: user.email, name: user.name }, secret: process.env.NEXTAUTH_SECRET ?? '' });
+/**
+ * A real next-auth session cookie, signed with the same secret the app uses. `session` adds what
+ * sign-in puts there (lib/auth/options.ts): a session id and the user's session version.
+ */
+export async function sessionCookie(user: UserDto, session: { sid?: string; sv?: number } = {}): Promise<string> {
+  const token = await encode({ token: { sub: user.id, email: user.email, name: user.name, ...session }, secret: process.env.NEXTAUTH_SECRET ?? '' });
   return `next-auth.session-token=${token}`;
 }
 
@@ -54,8 +58,17 @@ export type CallOptions = {
   path?: string;
 };
 
+/** The Origin a Kerfline page sends; every state-changing request must carry one of ours. */
+export const ORIGIN = new URL(BASE).origin;
+
 export async function call(fn: RouteFn, method: string, opts: CallOptions = {}) {
   const headers = new Headers(opts.headers);
+  // As a browser does: Origin on every request from a Kerfline page. A test passes its own to differ.
+  if (!headers.has('origin')) headers.set('origin', ORIGIN);
+  else if (headers.get('origin') === '') headers.delete('origin'); // `origin: ''` sends none, as a script might
+  // Each call is its own client (as the server tags it in instrumentation.ts) unless the test names one,
+  // so the per-address throttles of one test do not spill into the next.
+  if (!headers.has(PEER_HEADER)) headers.set(PEER_HEADER, `2001:db8:${randomUUID().slice(0, 4)}::${randomUUID().slice(0, 4)}`);
   if (opts.as) headers.set('cookie', await sessionCookie(opts.as));
   let body: string | undefined = opts.rawBody;
   if (opts.body !== undefined) {
@@ -65,6 +78,8 @@ export async function call(fn: RouteFn, method: string, opts: CallOptions = {}) 
   const req = new NextRequest(new URL(opts.path ?? '/api/test', BASE), { method, headers, body });
   const res = await fn(req, { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();
-  const json: unknown = text ? JSON.parse(text) : null;
+  // Bytes (clip files, posters) are not JSON; only JSON answers are parsed.
+  const isJson = /json/i.test(res.headers.get('content-type') ?? '');
+  const json: unknown = text && isJson ? JSON.parse(text) : null;
   return { status: res.status, json: json as Record<string, unknown> & { error?: { code: string; message: string; fields?: Record<string, string> } } };
 }

@@ -42,6 +42,18 @@ export function describeRouteMatrix(cases: RouteCase[]) {
       }
     });
 
+    if (tc.method !== 'GET') {
+      it('403 for a state change sent from another site, or with a cookie and no Origin', async () => {
+        const c = await makeCrew();
+        const params = await tc.params(c);
+        for (const headers of [{ origin: 'https://evil.example' }, { origin: 'null' }]) {
+          const res = await call(tc.fn, tc.method, { as: c.host, params, body: tc.body?.(c), headers });
+          expect(res.status, JSON.stringify(headers)).toBe(403);
+          expect(res.json.error?.message).toMatch(/did not come from a Kerfline page/);
+        }
+      });
+    }
+
     if (tc.badBody !== undefined) {
       it('400 with field errors for bad input', async () => {
         const c = await makeCrew();

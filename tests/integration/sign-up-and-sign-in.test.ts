@@ -3,28 +3,37 @@ import { POST as signUpRoute } from '@/app/api/sign-up/route';
 import { db } from '@/db/client';
 import { authorizeCredentials } from '@/lib/auth/sign-in';
 import { THROTTLE_LIMIT } from '@/lib/auth/throttle-queries';
+import { SIGN_UP_ANSWER } from '@/lib/users/sign-up';
+import { waitForMail } from '../support/mail-catcher';
 import { call, makeUser, PASSWORD, uniqueEmail } from './helpers';
 
 describe('sign-up', () => {
-  it('creates the user, a channel and a Host membership in one go', async () => {
+  it('creates the user, a channel and a Host membership in one go, and mails a welcome', async () => {
     const email = uniqueEmail('signup');
     const res = await call(signUpRoute, 'POST', { body: { name: 'Ada Plank', email, password: PASSWORD, channelName: 'Plank & Peg' } });
-    expect(res.status).toBe(201);
-    const { user, channel } = res.json as { user: { id: string; email: string }; channel: { id: string; slug: string } };
-    expect(user.email).toBe(email);
-    expect(JSON.stringify(res.json)).not.toMatch(/password|hash/i);
-    expect(channel.slug).toMatch(/^plank-peg-[0-9a-f]{6}$/);
-    const membership = await db('memberships').where({ user_id: user.id, channel_id: channel.id }).first();
+    expect(res.status).toBe(202);
+    expect(res.json).toEqual({ message: SIGN_UP_ANSWER });
+    const user = await db('users').where({ email }).first('id');
+    const membership = await db('memberships as m').join('channels as c', 'c.id', 'm.channel_id').where({ 'm.user_id': user.id }).first('m.role', 'c.slug');
     expect(membership?.role).toBe('host');
+    expect(membership?.slug).toMatch(/^plank-peg-[0-9a-f]{6}$/);
+    const [mail] = await waitForMail(email);
+    expect(mail?.subject).toMatch(/is ready/);
+    expect(mail?.text).toContain(`/c/${membership?.slug}`);
   });
 
-  it('refuses a second account for the same e-mail in any letter case, with a field error', async () => {
+  it('answers an address that has an account exactly as a new one, and mails the owner instead (issue 12 item 12)', async () => {
     const email = uniqueEmail('dupe');
     await call(signUpRoute, 'POST', { body: { name: 'One', email, password: PASSWORD, channelName: 'First' } });
-    const res = await call(signUpRoute, 'POST', { body: { name: 'Two', email: email.toUpperCase(), password: PASSWORD, channelName: 'Second' } });
-    expect(res.status).toBe(409);
-    expect(res.json.error?.fields?.email).toBeTruthy();
-    expect(await db('channels').where({ name: 'Second' }).first()).toBeUndefined();
+    const channelName = `Second ${Date.now()}`;
+    const res = await call(signUpRoute, 'POST', { body: { name: 'Two', email: email.toUpperCase(), password: 'another-password', channelName } });
+    expect(res.status).toBe(202);
+    expect(res.json).toEqual({ message: SIGN_UP_ANSWER });
+    expect(JSON.stringify(res.json)).not.toMatch(/exist|already|registered/i);
+    expect(await db('channels').where({ name: channelName }).first()).toBeUndefined();
+    expect(await db('users').where({ email })).toHaveLength(1);
+    const mails = await waitForMail(email, { atLeast: 2 });
+    expect(mails.some((m) => /tried to create a Kerfline account/.test(m.subject))).toBe(true);
   });
 
   it('answers 400 with field errors for bad input and writes nothing', async () => {
@@ -38,7 +47,7 @@ describe('sign-in throttling', () => {
   it('accepts the right password and never returns the hash', async () => {
     const user = await makeUser('signin');
     const result = await authorizeCredentials({ email: user.email.toUpperCase(), password: PASSWORD }, '203.0.113.1');
-    expect(result).toEqual({ id: user.id, email: user.email, name: user.name });
+    expect(result).toEqual({ id: user.id, email: user.email, name: user.name, sessionVersion: 0 });
   });
 
   it(`blocks an e-mail after ${THROTTLE_LIMIT} failures, even with the right password and from another IP`, async () => {

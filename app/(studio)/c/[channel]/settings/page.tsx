@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { ProfileForm } from '@/components/profile/profile-form';
+import { SignOutEverywhere } from '@/components/profile/sign-out-everywhere';
 import { ChannelSettingsForm } from '@/components/settings/channel-settings-form';
 import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/policy';
@@ -29,6 +30,7 @@ export default async function SettingsPage({ params }: { params: Promise<{ chann
           Your profile
         </h2>
         <ProfileForm profile={profile} />
+        <SignOutEverywhere />
       </section>
       <section aria-labelledby="channel-heading" className="max-w-xl rounded-card border border-paper-edge bg-white/60 p-5 shadow-card">
         <h2 id="channel-heading" className="text-lg font-bold">

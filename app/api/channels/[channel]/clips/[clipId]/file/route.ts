@@ -1,6 +1,7 @@
 import { Readable } from 'node:stream';
 import contentDisposition from 'content-disposition';
 import { route } from '@/lib/api/handler';
+import { isAcceptedMediaType } from '@/lib/clips/media-types';
 import { findClip } from '@/lib/clips/queries';
 import { answerRange } from '@/lib/clips/range';
 import { clipFileQuerySchema, clipParamsSchema } from '@/lib/clips/schemas';
@@ -13,11 +14,13 @@ export const GET = route({ params: clipParamsSchema, query: clipFileQuerySchema,
   const size = clip.sizeBytes;
   const headers = new Headers({
     'Accept-Ranges': 'bytes',
-    'Content-Type': clip.mimeType,
+    // A type stored before the allow-list existed is served as opaque bytes, never as a document.
+    'Content-Type': isAcceptedMediaType(clip.mimeType) ? clip.mimeType : 'application/octet-stream',
     'Content-Disposition': contentDisposition(clip.originalName, { type: query.download ? 'attachment' : 'inline' }),
     ETag: `"${clip.sha256}"`,
     'Cache-Control': 'private, no-cache',
     'X-Content-Type-Options': 'nosniff',
+    // Kept as is by next.config.mjs, whose page CSP skips this path.
     'Content-Security-Policy': "sandbox; default-src 'none'",
   });
   const range = answerRange(req.headers.get('range'), size);

@@ -63,6 +63,7 @@ afterAll(async () => {
 async function create(opts: { cookie?: string; length?: number; metadata?: Record<string, string> }) {
   const headers: Record<string, string> = { 'Tus-Resumable': '1.0.0', 'Upload-Length': String(opts.length ?? 10) };
   if (opts.cookie) headers.cookie = opts.cookie;
+  headers.origin = new URL(app.url).origin;
   if (opts.metadata) headers['Upload-Metadata'] = metaHeader(opts.metadata);
   const res = await fetch(endpoint(), { method: 'POST', headers });
   return { status: res.status, body: await res.text(), location: res.headers.get('location') };
@@ -171,11 +172,32 @@ describe('tus uploads: every byte arrives', () => {
     await run.done;
     const again = await fetch(run.url!, {
       method: 'PATCH',
-      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': '1000', 'Content-Type': 'application/offset+octet-stream', cookie },
+      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': '1000', 'Content-Type': 'application/offset+octet-stream', cookie, origin: new URL(app.url).origin },
       body: new Uint8Array(0),
     });
     expect(again.status).toBeLessThan(500);
     expect(await clipsOf(idOf(run.url!))).toHaveLength(1);
+  });
+
+  it('refuses a tus request sent from another site, or with a cookie and no Origin (403)', async () => {
+    const headers = { 'Tus-Resumable': '1.0.0', 'Upload-Length': '10', 'Upload-Metadata': metaHeader(meta()), cookie };
+    const evil = await fetch(endpoint(), { method: 'POST', headers: { ...headers, origin: 'https://evil.example' } });
+    expect(evil.status).toBe(403);
+    expect(await evil.text()).toMatch(/did not come from a Kerfline page/);
+    expect((await fetch(endpoint(), { method: 'POST', headers })).status).toBe(403);
+  });
+
+  it('reads back a finished upload whose name is not Latin without a 500 (RFC 6266 / 8187 header)', async () => {
+    const small = path.join(dir, 'named.bin');
+    await makeRandomFile(small, 500);
+    const run = startTusUpload(endpoint(), small, { cookie, metadata: meta({ filename: 'Шип и паз 木工.mp4' }) });
+    await run.done;
+    const res = await fetch(run.url!, { headers: { 'Tus-Resumable': '1.0.0', cookie } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-disposition')).toBe(
+      `attachment; filename="??? ? ??? ??.mp4"; filename*=UTF-8''%D0%A8%D0%B8%D0%BF%20%D0%B8%20%D0%BF%D0%B0%D0%B7%20%E6%9C%A8%E5%B7%A5.mp4`,
+    );
+    expect((await res.arrayBuffer()).byteLength).toBe(500);
   });
 
   it('stores a path-like file name as a harmless display name, the bytes under the server’s id', async () => {
@@ -250,6 +272,8 @@ describe('clip files', () => {
     const part = await fetch(fileUrl(), { headers: { cookie: editor, range: 'bytes=100-1099' } });
     expect(part.status).toBe(206);
     expect(part.headers.get('content-range')).toBe(`bytes 100-1099/${bytes.length}`);
+    // The route's own sandbox CSP, not the pages' CSP that allows inline scripts (issue 12 item 13).
+    expect(part.headers.get('content-security-policy')).toBe("sandbox; default-src 'none'");
     expect(Buffer.from(await part.arrayBuffer()).equals(bytes.subarray(100, 1100))).toBe(true);
     const tail = await fetch(fileUrl(), { headers: { cookie: editor, range: 'bytes=-10' } });
     expect(Buffer.from(await tail.arrayBuffer()).equals(bytes.subarray(bytes.length - 10))).toBe(true);

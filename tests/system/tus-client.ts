@@ -31,7 +31,8 @@ export function startTusUpload(
       uploadUrl: opts.uploadUrl,
       chunkSize: 8 * 1024 * 1024,
       uploadSize: fs.statSync(file).size,
-      headers: { cookie: opts.cookie },
+      // A browser sends Origin on every tus POST, PATCH and DELETE; the server refuses them without it.
+      headers: { cookie: opts.cookie, origin: new URL(endpoint).origin },
       metadata: opts.metadata,
       retryDelays: opts.retryDelays ?? [250, 500, 1000, 2000, 2000, 4000, 4000, 4000, 8000],
       onUploadUrlAvailable: () => {

@@ -6,12 +6,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureBuild } from './lib/build.mjs';
-import { START_DEB_PACKAGES, TEST_DEB_PACKAGES, ensureDebPackages, ensureNodeModules } from './lib/install.mjs';
+import { INTEGRATION_DEB_PACKAGES, START_DEB_PACKAGES, TEST_DEB_PACKAGES, ensureDebPackages, ensureNodeModules } from './lib/install.mjs';
 import { addCleanup, handleSignals, teardown } from './lib/lifecycle.mjs';
 import { TEST_MAIL_PORTS, ensureMaildev } from './lib/maildev.mjs';
 import { databaseUrl, ensureDataRoot, ensurePostgres, recreateDatabase, runDbSetup } from './lib/postgres.mjs';
 import { ROOT, childEnv, log, run, warn } from './lib/proc.mjs';
 import { randomSecret } from './lib/secret.mjs';
+import { ensureSwift } from './lib/swift.mjs';
 import { addCounts, emptyCounts, playwrightCounts, runnerCounts, summaryLine, vitestCounts } from './lib/summary.mjs';
 
 const args = process.argv.slice(2);
@@ -40,26 +41,36 @@ function heading(title) {
 // Tools pick their own NODE_ENV (Vitest: test); an inherited one would confuse them.
 const toolEnv = (extra = {}) => childEnv({ NODE_ENV: undefined, ...extra });
 
-/** Installs, then brings up PostgreSQL with fresh test databases and the test mail catcher. */
+/**
+ * Installs, then brings up PostgreSQL with fresh test databases, the test mail catcher and Swift (the
+ * S3-compatible server). kerfline_it_s3 belongs to the tests that run app processes on S3 with their
+ * background workers on, so those workers never pick up the disk-backed tests' clips.
+ */
 async function setUpServices() {
   const pg = await ensurePostgres();
   addCleanup('PostgreSQL', pg.stop);
-  const urls = { it: databaseUrl(pg.port, 'kerfline_it'), e2e: databaseUrl(pg.port, 'kerfline_e2e') };
-  for (const name of ['kerfline_it', 'kerfline_e2e']) {
+  const urls = { it: databaseUrl(pg.port, 'kerfline_it'), s3: databaseUrl(pg.port, 'kerfline_it_s3'), e2e: databaseUrl(pg.port, 'kerfline_e2e') };
+  for (const name of ['kerfline_it', 'kerfline_it_s3', 'kerfline_e2e']) {
     log(`recreating database ${name}`);
     await recreateDatabase(pg, name);
   }
-  await runDbSetup(urls.it);
-  await runDbSetup(urls.e2e);
+  for (const url of Object.values(urls)) await runDbSetup(url);
   const mail = await ensureMaildev({ ...TEST_MAIL_PORTS, logFile: path.join(ROOT, '.data', 'maildev-test.log') });
   addCleanup('maildev', mail.stop);
   log(`test mail catcher: ${mail.webUrl}`);
-  return { urls, mail };
+  const swift = await ensureSwift({ fresh: true });
+  addCleanup('Swift', swift.stop);
+  log(`test S3 server (Swift s3api): ${swift.endpoint}, bucket ${swift.bucket}`);
+  return { urls, mail, swift };
 }
 
 function testEnv(dbUrl, services, secret) {
   return {
     DATABASE_URL: dbUrl,
+    KERFLINE_S3_DATABASE_URL: services.urls.s3,
+    ...services.swift.env,
+    // Source: @aws-sdk/core emitWarningIfUnsupportedVersion (the Node 22 notice, once per process, in every app the tests start).
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
     SMTP_URL: services.mail.smtpUrl,
     MAILDEV_WEB_URL: services.mail.webUrl,
     NEXTAUTH_SECRET: secret,
@@ -114,7 +125,7 @@ async function e2e(env) {
 }
 
 async function install() {
-  await ensureDebPackages(SKIP_E2E ? START_DEB_PACKAGES : TEST_DEB_PACKAGES);
+  await ensureDebPackages(UNIT_ONLY ? START_DEB_PACKAGES : SKIP_E2E ? INTEGRATION_DEB_PACKAGES : TEST_DEB_PACKAGES);
   await ensureNodeModules();
   ensureDataRoot();
 }

@@ -77,7 +77,7 @@ describe('stale uploads', () => {
     const store = clipStore();
     const fresh = await store.tus.create({ id: hex(), size: 100, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
     const old = await store.tus.create({ id: hex(), size: 100, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
-    const oldPath = store.localPath(old.id)!;
+    const oldPath = await store.mediaSource(old.id);
     const past = new Date(Date.now() - 8 * 24 * 3600 * 1000);
     fs.utimesSync(oldPath, past, past);
     fs.utimesSync(`${oldPath}.json`, past, past);
@@ -85,7 +85,7 @@ describe('stale uploads', () => {
     expect(removed).toContain(old.id);
     expect(removed).not.toContain(fresh.id);
     expect(fs.existsSync(oldPath)).toBe(false);
-    expect(fs.existsSync(store.localPath(fresh.id)!)).toBe(true);
+    expect(fs.existsSync(await store.mediaSource(fresh.id))).toBe(true);
     await store.remove(fresh.id);
   });
 });
@@ -106,7 +106,7 @@ describe('media jobs', () => {
     const clip = await db('clips').where({ id: clipId }).first('probe_state', 'probe_note', 'has_poster');
     expect(clip).toMatchObject({ probe_state: 'failed', has_poster: false });
     expect(clip.probe_note).toMatch(/ffprobe could not read this file/);
-    expect(clip.probe_note).not.toContain(store.localPath(uploadId)!);
+    expect(clip.probe_note).not.toContain(await store.mediaSource(uploadId));
     expect(await db('clip_jobs').where({ clip_id: clipId })).toHaveLength(0);
   });
 });

@@ -11,6 +11,7 @@ import {
   PutObjectCommand,
   type S3Client,
 } from '@aws-sdk/client-s3';
+import { Upload as MultipartUpload } from '@aws-sdk/lib-storage';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import { S3Store } from '@tus/s3-store';
 import { checkClipId, checkUploadId, isUploadId, type ClipStore } from './clip-store';
@@ -48,10 +49,16 @@ export class S3ClipStore implements ClipStore {
   private readonly client: S3Client;
   private readonly bucket: string;
 
-  constructor(settings: S3Settings) {
+  constructor(private readonly settings: S3Settings) {
     this.tus = new TusS3Store(settings);
     this.client = makeS3Client(settings);
     this.bucket = settings.bucket;
+  }
+
+  /** Stores a finished upload's bytes whole (moving clips from disk): a multipart upload within the server's part limit. */
+  async putFinished(uploadId: string, body: Readable, size: number): Promise<void> {
+    const partSize = Math.max(this.settings.partSize, Math.ceil(size / this.settings.maxParts));
+    await new MultipartUpload({ client: this.client, params: { Bucket: this.bucket, Key: checkUploadId(uploadId), Body: body }, partSize, queueSize: 4 }).done();
   }
 
   private posterKey(clipId: string): string {

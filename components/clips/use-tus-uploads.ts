@@ -3,6 +3,7 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useCallback, useMemo, useSyncExternalStore } from 'react';
 import type { DetailedError as TusDetailedError, PreviousUpload, Upload } from 'tus-js-client';
+import { UPLOAD_CHUNK_BYTES } from '@/lib/clips/upload-chunk';
 import { segmentClipsKey } from './use-clips';
 
 export type UploadState = 'waiting' | 'starting' | 'uploading' | 'paused' | 'reconnecting' | 'done' | 'failed';
@@ -169,7 +170,7 @@ async function begin(e: Entry) {
     const { segmentId, shotId, slug } = e.target;
     const upload = new tus.Upload(e.file, {
       endpoint: new URL('/api/uploads', location.origin).href,
-      chunkSize: 8 * 1024 * 1024,
+      chunkSize: UPLOAD_CHUNK_BYTES,
       retryDelays: RETRY_DELAYS,
       // The disk store cannot concatenate partial uploads.
       parallelUploads: 1,

@@ -8,13 +8,16 @@
 //      the app reads back from S3 at finish), and that app's peak RSS growth;
 //   2. the same file as a plain multipart upload with the AWS SDK (@aws-sdk/lib-storage, 8 MiB parts)
 //      to the same server, four parts at a time (the SDK default) and one at a time;
-//   3. two simultaneous tus uploads into one process, then one into each of two processes: aggregate MiB/s.
+//   3. reading the SDK's copy back from S3 with its SHA-256 (the part of the tus time spent at finish);
+//   4. two simultaneous tus uploads into one process, then one into each of two processes: aggregate MiB/s.
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { CreateBucketCommand, DeleteBucketCommand, DeleteObjectsCommand, ListObjectsV2Command, type S3Client } from '@aws-sdk/client-s3';
+import { CreateBucketCommand, DeleteBucketCommand, DeleteObjectsCommand, GetObjectCommand, ListObjectsV2Command, type S3Client } from '@aws-sdk/client-s3';
+import type { Readable } from 'node:stream';
 import { Upload as SdkUpload } from '@aws-sdk/lib-storage';
 import type { S3Settings } from '@/storage/config';
+import { sha256Of } from '@/storage/ingest';
 import { makeS3Client } from '@/storage/s3-client';
 import { benchChannel, makeSource, mibps, peakRssGrowth, startApp, tusUpload } from './lib';
 
@@ -100,6 +103,10 @@ async function main() {
     const tusMs = performance.now() - t0;
     const sdk4Ms = await sdkMultipart(client, settings.bucket, src, 4);
     const sdk1Ms = await sdkMultipart(client, settings.bucket, src, 1);
+    const t2 = performance.now();
+    const readBack = await client.send(new GetObjectCommand({ Bucket: settings.bucket, Key: 'sdk-1.bin' }));
+    await sha256Of(readBack.Body as Readable);
+    const readMs = performance.now() - t2;
 
     const pair = async (ports: [number, number]) => {
       const t = performance.now();
@@ -119,6 +126,7 @@ async function main() {
     console.log(`  AWS SDK multipart, 8 MiB parts, 4 at a time (SDK default):  ${sdk4.toFixed(0)} MiB/s (${(sdk4Ms / 1000).toFixed(2)} s)`);
     console.log(`  AWS SDK multipart, 8 MiB parts, 1 at a time:                ${sdk1.toFixed(0)} MiB/s (${(sdk1Ms / 1000).toFixed(2)} s)`);
     console.log(`  tus/SDK(4) ${(tus / sdk4).toFixed(2)}   tus/SDK(1) ${(tus / sdk1).toFixed(2)}   (goal >= 0.80)`);
+    console.log(`  read back from S3 with SHA-256 (done by tus at finish):      ${mibps(SIZE, readMs).toFixed(0)} MiB/s (${(readMs / 1000).toFixed(2)} s)`);
     console.log(`  app RSS: ${(base / 1048576).toFixed(0)} MiB before, peak growth ${(growth / 1048576).toFixed(1)} MiB during the upload (goal <= 64 MiB)`);
     console.log(`  two uploads at once, one process:   ${mibps(2 * SIZE, oneProcMs).toFixed(0)} MiB/s aggregate (${(oneProcMs / 1000).toFixed(2)} s)`);
     console.log(`  two uploads at once, two processes: ${mibps(2 * SIZE, twoProcMs).toFixed(0)} MiB/s aggregate (${(twoProcMs / 1000).toFixed(2)} s)`);

@@ -32,6 +32,12 @@ class TusS3Store extends S3Store {
   forget(id: string): Promise<void> {
     return this.clearCache(id);
   }
+
+  // @tus/s3-store 2.0.7 leaves the trailing short part (`<id>.part`) behind when tus DELETE cancels an upload.
+  override async remove(id: string): Promise<void> {
+    await super.remove(id);
+    await this.client.deleteObject({ Bucket: this.bucket, Key: this.partKey(id, true) });
+  }
 }
 
 const notFound = (err: unknown): boolean => {

@@ -1,13 +1,15 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import { HeadObjectCommand } from '@aws-sdk/client-s3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db/client';
+import { makeS3Client } from '@/storage/s3-client';
 import { makeCrew, sessionCookie } from '../helpers';
 import type { Crew } from '../route-matrix';
 import { makeShotEpisode } from '../shot-fixtures';
 import { makeRandomFile, startTusUpload } from '../tus-client';
-import { bucketStore, clipsOf, idOf, makeVideo, ports, s3App, storedSha } from './s3-apps';
+import { bucketStore, clipsOf, idOf, makeVideo, ports, s3App, settings, storedSha } from './s3-apps';
 
 // The upload guarantees of tests/integration/uploads.test.ts, with the built app keeping clips in S3 (Swift's s3api).
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfline-uploads-s3-'));
@@ -111,9 +113,21 @@ describe('tus uploads into S3', () => {
     await aborted;
     const id = idOf(run.url!);
     expect((await bucketStore().listUnfinished()).map((u) => u.uploadId)).toContain(id);
+    // A short tail PATCH leaves S3 a trailing part shorter than a multipart part: `<id>.part`.
+    const head = await fetch(run.url!, { method: 'HEAD', headers: { 'Tus-Resumable': '1.0.0', cookie } });
+    const tail = await fetch(run.url!, {
+      method: 'PATCH',
+      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': head.headers.get('upload-offset')!, 'Content-Type': 'application/offset+octet-stream', cookie },
+      body: new Uint8Array(1000),
+    });
+    expect(tail.status).toBe(204);
     const res = await fetch(run.url!, { method: 'DELETE', headers: { 'Tus-Resumable': '1.0.0', cookie } });
     expect(res.status).toBe(204);
     expect((await bucketStore().listUnfinished()).map((u) => u.uploadId)).not.toContain(id);
+    const s3 = makeS3Client(settings());
+    for (const key of [id, `${id}.info`, `${id}.part`]) {
+      await expect(s3.send(new HeadObjectCommand({ Bucket: settings().bucket, Key: key })), key).rejects.toMatchObject({ $metadata: { httpStatusCode: 404 } });
+    }
     expect((await fetch(run.url!, { method: 'HEAD', headers: { 'Tus-Resumable': '1.0.0', cookie } })).status).toBe(404);
   });
 });

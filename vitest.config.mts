@@ -32,11 +32,26 @@ export default defineConfig({
         test: {
           name: 'system',
           include: ['tests/system/**/*.test.ts'],
+          exclude: ['tests/system/s3/**'],
           environment: 'node',
           setupFiles: ['tests/integration/setup.ts'],
           testTimeout: 30_000,
           hookTimeout: 30_000,
           env: { NODE_ENV: 'test' },
+        },
+      },
+      {
+        resolve: { alias },
+        // App processes on S3 with their background workers on: their own database (scripts/test.mjs), so
+        // those workers never claim the disk-backed tests' clip jobs or mail.
+        test: {
+          name: 'storage-s3',
+          include: ['tests/system/s3/**/*.test.ts'],
+          environment: 'node',
+          setupFiles: ['tests/integration/setup.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          env: { NODE_ENV: 'test', ...(process.env.KERFLINE_S3_DATABASE_URL ? { DATABASE_URL: process.env.KERFLINE_S3_DATABASE_URL } : {}) },
         },
       },
     ],

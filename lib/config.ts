@@ -91,6 +91,35 @@ const envSchema = z.object({
     .string()
     .optional()
     .transform((raw) => raw === '1'),
+  // Connections for upload locks, one per tus request in flight (db/lock-pool.ts).
+  UPLOAD_LOCK_POOL_MAX: number(20, { min: 'positive', integer: true }),
+  // Where clip bytes and posters live (storage/config.ts turns these into the store's settings).
+  STORAGE: z
+    .string()
+    .optional()
+    .transform((raw, ctx) => {
+      if (raw === undefined || raw === '' || raw === 'disk') return 'disk' as const;
+      if (raw === 's3') return 's3' as const;
+      ctx.addIssue({ code: 'custom', message: `must be disk or s3, got "${raw}"` });
+      return z.NEVER;
+    }),
+  S3_ENDPOINT: optionalUrl(['http:', 'https:']),
+  S3_BUCKET: optionalText,
+  S3_REGION: text('us-east-1'),
+  S3_ACCESS_KEY_ID: optionalText,
+  S3_SECRET_ACCESS_KEY: optionalText,
+  // Unset: path-style URLs exactly when S3_ENDPOINT names a non-AWS server.
+  S3_FORCE_PATH_STYLE: z
+    .string()
+    .optional()
+    .transform((raw) => (raw === undefined || raw === '' ? undefined : raw !== 'false')),
+  S3_PART_SIZE_MIB: number(8, { min: 'positive' }),
+  // Source: STACK-NOTES (Swift's s3api takes at most 1000 parts per upload; AWS takes 10,000).
+  S3_MAX_PARTS: number(1000, { min: 'positive', integer: true }),
+}).superRefine((env, ctx) => {
+  if (env.STORAGE === 's3' && !env.S3_BUCKET) {
+    ctx.addIssue({ code: 'custom', path: ['S3_BUCKET'], message: 'STORAGE=s3 needs a bucket name (and usually S3_ENDPOINT, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY)' });
+  }
 });
 
 export type Config = z.infer<typeof envSchema>;

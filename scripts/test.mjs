@@ -1,18 +1,19 @@
 #!/usr/bin/env node
-// `npm test`: typecheck, lint, Vitest unit + integration, the build, the Vitest upload project (it runs
-// the built app) and Playwright, each run even when an earlier one failed; ends with one line
+// `npm test`: typecheck, lint, Vitest unit + integration, the build, the Vitest system projects (they run
+// the built app, on disk and on S3) and Playwright, each run even when an earlier one failed; ends with one line
 // `N passed, N failed[, N skipped]` and a matching exit code.
 //   --unit     typecheck, lint and the Vitest `unit` project only (no database, no browser)
 //   --no-e2e   everything but Playwright (also KERFLINE_SKIP_E2E=1)
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureBuild } from './lib/build.mjs';
-import { START_DEB_PACKAGES, TEST_DEB_PACKAGES, ensureDebPackages, ensureNodeModules } from './lib/install.mjs';
+import { INTEGRATION_DEB_PACKAGES, START_DEB_PACKAGES, TEST_DEB_PACKAGES, ensureDebPackages, ensureNodeModules } from './lib/install.mjs';
 import { addCleanup, handleSignals, teardown } from './lib/lifecycle.mjs';
 import { TEST_MAIL_PORTS, ensureMaildev } from './lib/maildev.mjs';
 import { databaseUrl, ensureDataRoot, ensurePostgres, recreateDatabase, runDbSetup } from './lib/postgres.mjs';
 import { ROOT, childEnv, log, run, warn } from './lib/proc.mjs';
 import { randomSecret } from './lib/secret.mjs';
+import { ensureSwift } from './lib/swift.mjs';
 import { addCounts, emptyCounts, playwrightCounts, runnerCounts, summaryLine, vitestCounts } from './lib/summary.mjs';
 
 const args = process.argv.slice(2);
@@ -42,26 +43,36 @@ function heading(title) {
 // Tools pick their own NODE_ENV (Vitest: test); an inherited one would confuse them.
 const toolEnv = (extra = {}) => childEnv({ NODE_ENV: undefined, ...extra });
 
-/** Installs, then brings up PostgreSQL with fresh test databases and the test mail catcher. */
+/**
+ * Installs, then brings up PostgreSQL with fresh test databases, the test mail catcher and Swift (the
+ * S3-compatible server). kerfline_it_s3 belongs to the tests that run app processes on S3 with their
+ * background workers on, so those workers never pick up the disk-backed tests' clips.
+ */
 async function setUpServices() {
   const pg = await ensurePostgres();
   addCleanup('PostgreSQL', pg.stop);
-  const urls = { it: databaseUrl(pg.port, 'kerfline_it'), e2e: databaseUrl(pg.port, 'kerfline_e2e') };
-  for (const name of ['kerfline_it', 'kerfline_e2e']) {
+  const urls = { it: databaseUrl(pg.port, 'kerfline_it'), s3: databaseUrl(pg.port, 'kerfline_it_s3'), e2e: databaseUrl(pg.port, 'kerfline_e2e') };
+  for (const name of ['kerfline_it', 'kerfline_it_s3', 'kerfline_e2e']) {
     log(`recreating database ${name}`);
     await recreateDatabase(pg, name);
   }
-  await runDbSetup(urls.it);
-  await runDbSetup(urls.e2e);
+  for (const url of Object.values(urls)) await runDbSetup(url);
   const mail = await ensureMaildev({ ...TEST_MAIL_PORTS, logFile: path.join(ROOT, '.data', 'maildev-test.log') });
   addCleanup('maildev', mail.stop);
   log(`test mail catcher: ${mail.webUrl}`);
-  return { urls, mail };
+  const swift = await ensureSwift({ fresh: true });
+  addCleanup('Swift', swift.stop);
+  log(`test S3 server (Swift s3api): ${swift.endpoint}, bucket ${swift.bucket}`);
+  return { urls, mail, swift };
 }
 
 function testEnv(dbUrl, services, secret) {
   return {
     DATABASE_URL: dbUrl,
+    KERFLINE_S3_DATABASE_URL: services.urls.s3,
+    ...services.swift.env,
+    // Source: @aws-sdk/core emitWarningIfUnsupportedVersion (the Node 22 notice, once per process, in every app the tests start).
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
     SMTP_URL: services.mail.smtpUrl,
     MAILDEV_WEB_URL: services.mail.webUrl,
     NEXTAUTH_SECRET: secret,
@@ -87,9 +98,9 @@ async function lint() {
 }
 
 /** Runs the named Vitest projects into one JSON report and adds its counts to the total. */
-async function vitest(env, projects, report) {
+async function vitest(env, projects, report, extraArgs = []) {
   heading(`vitest (${projects.join(' + ')})`);
-  const vitestArgs = ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.relative(ROOT, report)}`];
+  const vitestArgs = ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.relative(ROOT, report)}`, ...extraArgs];
   for (const project of projects) vitestArgs.push('--project', project);
   const result = await run(process.execPath, [bin('vitest/vitest.mjs'), ...vitestArgs], { env: toolEnv(env) });
   const counts = runnerCounts(report, vitestCounts, result.code);
@@ -117,7 +128,7 @@ async function e2e(env) {
 }
 
 async function install() {
-  await ensureDebPackages(SKIP_E2E ? START_DEB_PACKAGES : TEST_DEB_PACKAGES);
+  await ensureDebPackages(UNIT_ONLY ? START_DEB_PACKAGES : SKIP_E2E ? INTEGRATION_DEB_PACKAGES : TEST_DEB_PACKAGES);
   await ensureNodeModules();
   ensureDataRoot();
 }
@@ -148,10 +159,11 @@ async function main() {
     return;
   }
   const itEnv = testEnv(services.urls.it, services, secret);
-  // Unit and integration tests need no build; only the upload project and Playwright run the built app.
+  // Unit and integration tests need no build; only the system projects (disk and S3) and Playwright run the built app.
   await vitest(itEnv, ['unit', 'integration'], VITEST_REPORT);
   const built = await build({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
-  if (built) await vitest(itEnv, ['system'], VITEST_SYSTEM_REPORT);
+  // One file at a time: each starts its own `next start` processes, and two cores cannot run them all at once.
+  if (built) await vitest(itEnv, ['system', 'storage-s3'], VITEST_SYSTEM_REPORT, ['--no-file-parallelism']);
   if (built && !SKIP_E2E) await e2e({ ...testEnv(services.urls.e2e, services, secret), NEXT_TELEMETRY_DISABLED: '1' });
 }
 

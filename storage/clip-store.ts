@@ -2,24 +2,46 @@ import type { Readable } from 'node:stream';
 import type { DataStore } from '@tus/server';
 
 /**
- * What the app needs from wherever clip bytes live. The disk store implements it today; an
- * S3-compatible store (@tus/s3-store for `tus`, GetObject with Range for `read`) is the next one.
+ * What the app needs from wherever clip bytes live: local disk (disk-store.ts) or an S3-compatible
+ * bucket (s3-store.ts). Every store keeps the contract in tests/integration/clip-store-contract.test.ts.
  */
 export interface ClipStore {
   /** The tus data store behind /api/uploads. */
   readonly tus: DataStore;
-  /** Bytes of a stored upload; `range` is inclusive at both ends, as in HTTP. */
+  /** Bytes of a stored upload, streamed; `range` is inclusive at both ends, as in HTTP. */
   read(uploadId: string, range?: { start: number; end: number }): Promise<Readable>;
+  /** Size and last change of a finished upload's bytes; null when there are none (never stored, removed, unfinished in S3). */
+  stat(uploadId: string): Promise<{ size: number; modifiedAt: Date } | null>;
+  /** Removes an upload's bytes, finished or not; removing what is already gone is not an error. */
   remove(uploadId: string): Promise<void>;
   /** Unfinished uploads and when their bytes last changed. */
   listUnfinished(): Promise<{ uploadId: string; touchedAt: Date }[]>;
   /** Uploads whose every byte is stored (offset = size), and when their bytes last changed. */
   listFinished(): Promise<{ uploadId: string; touchedAt: Date }[]>;
-  /** A path ffprobe and ffmpeg can open, or null when the bytes are not on this machine. */
-  localPath(uploadId: string): string | null;
+  /** What ffprobe and ffmpeg open: a local path, or a URL that reads the bytes for `ttlSeconds`. */
+  mediaSource(uploadId: string, ttlSeconds?: number): Promise<string>;
+  /** Forgets what this process cached about an upload; called once the cross-process upload lock is held. */
+  forget(uploadId: string): Promise<void>;
   savePoster(clipId: string, jpegPath: string): Promise<void>;
   readPoster(clipId: string): Promise<Readable | null>;
   removePoster(clipId: string): Promise<void>;
   /** Clip ids that have a stored poster, for the orphan sweep. */
   listPosters(): Promise<string[]>;
 }
+
+// Upload ids are made by the server (hex); anything else never names a file or an object.
+const SAFE_ID = /^[a-f0-9]{32}$/;
+const SAFE_CLIP = /^[0-9a-f-]{36}$/;
+
+export function checkUploadId(uploadId: string): string {
+  if (!SAFE_ID.test(uploadId)) throw new Error(`not an upload id: ${uploadId}`);
+  return uploadId;
+}
+
+export function checkClipId(clipId: string): string {
+  if (!SAFE_CLIP.test(clipId)) throw new Error(`not a clip id: ${clipId}`);
+  return clipId;
+}
+
+export const isUploadId = (name: string): boolean => SAFE_ID.test(name);
+export const isClipId = (name: string): boolean => SAFE_CLIP.test(name);

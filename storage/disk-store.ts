@@ -3,11 +3,7 @@ import { copyFile, mkdir, readdir, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
 import { FileStore } from '@tus/file-store';
-import type { ClipStore } from './clip-store';
-
-// Upload ids are made by the server (hex); anything else never names a file.
-const SAFE_ID = /^[a-f0-9]{32}$/;
-const SAFE_CLIP = /^[0-9a-f-]{36}$/;
+import { checkClipId, checkUploadId, isClipId, isUploadId, type ClipStore } from './clip-store';
 
 export class DiskClipStore implements ClipStore {
   readonly tus: FileStore;
@@ -20,13 +16,11 @@ export class DiskClipStore implements ClipStore {
   }
 
   private file(uploadId: string): string {
-    if (!SAFE_ID.test(uploadId)) throw new Error(`not an upload id: ${uploadId}`);
-    return path.join(this.directory, uploadId);
+    return path.join(this.directory, checkUploadId(uploadId));
   }
 
   private poster(clipId: string): string {
-    if (!SAFE_CLIP.test(clipId)) throw new Error(`not a clip id: ${clipId}`);
-    return path.join(this.posterDir, `${clipId}.jpg`);
+    return path.join(this.posterDir, `${checkClipId(clipId)}.jpg`);
   }
 
   async read(uploadId: string, range?: { start: number; end: number }): Promise<Readable> {
@@ -55,7 +49,7 @@ export class DiskClipStore implements ClipStore {
     const names = await readdir(this.directory);
     const out: { uploadId: string; touchedAt: Date }[] = [];
     for (const name of names) {
-      if (!SAFE_ID.test(name)) continue;
+      if (!isUploadId(name)) continue;
       const upload = await this.tus.getUpload(name).catch(() => null);
       if (!upload || (upload.size !== undefined && upload.offset === upload.size) !== finished) continue;
       const [data, info] = await Promise.all([stat(this.file(name)).catch(() => null), stat(`${this.file(name)}.json`).catch(() => null)]);
@@ -65,9 +59,17 @@ export class DiskClipStore implements ClipStore {
     return out;
   }
 
-  localPath(uploadId: string): string {
+  async stat(uploadId: string): Promise<{ size: number; modifiedAt: Date } | null> {
+    const found = await stat(this.file(uploadId)).catch(() => null);
+    return found ? { size: found.size, modifiedAt: found.mtime } : null;
+  }
+
+  async mediaSource(uploadId: string): Promise<string> {
     return this.file(uploadId);
   }
+
+  // Nothing is cached: every request reads the upload's .json file.
+  async forget(): Promise<void> {}
 
   async savePoster(clipId: string, jpegPath: string): Promise<void> {
     await mkdir(this.posterDir, { recursive: true });
@@ -86,6 +88,6 @@ export class DiskClipStore implements ClipStore {
 
   async listPosters(): Promise<string[]> {
     const names = await readdir(this.posterDir).catch(() => [] as string[]);
-    return names.filter((n) => n.endsWith('.jpg') && SAFE_CLIP.test(n.slice(0, -4))).map((n) => n.slice(0, -4));
+    return names.filter((n) => n.endsWith('.jpg') && isClipId(n.slice(0, -4))).map((n) => n.slice(0, -4));
   }
 }

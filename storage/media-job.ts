@@ -28,8 +28,8 @@ async function poster(file: string, info: MediaInfo, out: string): Promise<void>
 }
 
 export async function processClipJob(store: ClipStore, job: ClipJob): Promise<void> {
-  const file = store.localPath(job.uploadId);
-  if (!file) return completeClipJob(job, { state: 'unavailable', note: 'Media details are read only for clips stored on this server.', poster: false });
+  // A local path, or a short-lived presigned URL: ffprobe and ffmpeg read ranges over HTTP, never a full local copy.
+  const file = await store.mediaSource(job.uploadId);
   let info: MediaInfo;
   try {
     info = await probe(file);

@@ -1,21 +1,25 @@
 import 'server-only';
 import { randomBytes } from 'node:crypto';
 import { Server, type Upload } from '@tus/server';
+import { lockPool } from '@/db/lock-pool';
 import contentDisposition from 'content-disposition';
 import { isAcceptedMediaType } from '@/lib/clips/media-types';
 import { displayName } from '@/lib/clips/names';
 import type { ClipStore } from './clip-store';
-import { maxUploadBytes, posterDirectory, uploadDirectory } from './config';
+import { maxUploadBytes, posterDirectory, s3Settings, storageKind, uploadDirectory } from './config';
 import { DiskClipStore } from './disk-store';
+import { PgLocker, type LockPool } from './upload-lock-queries';
+import { S3ClipStore } from './s3-store';
 import { uploadHooks } from './upload-hooks';
 
 export const UPLOAD_PATH = '/api/uploads';
 
-/** A tus server over any ClipStore; the hooks carry the policy. */
-export function createTusServer(store: ClipStore): Server {
+/** A tus server over any ClipStore; the hooks carry the policy, the locker keeps one writer per upload across processes. */
+export function createTusServer(store: ClipStore, lockPool: LockPool): Server {
   const server = new Server({
     path: UPLOAD_PATH,
     datastore: store.tus,
+    locker: new PgLocker(lockPool, { onAcquired: (id) => store.forget(id) }),
     relativeLocation: true,
     maxSize: maxUploadBytes(),
     // Ids are the server's own; the user's file name never becomes a path.
@@ -42,15 +46,20 @@ export function downloadHeaders(upload: Upload): { contentType: string; contentD
   };
 }
 
-// One store and one server per process (kept on globalThis so dev reloads reuse them).
+/** The store the configuration names: STORAGE=s3 (with S3_* settings) or the disk under UPLOAD_DIR. */
+export function createClipStore(): ClipStore {
+  return storageKind() === 's3' ? new S3ClipStore(s3Settings()) : new DiskClipStore(uploadDirectory(), posterDirectory());
+}
+
+// One store and server per process (kept on globalThis so dev reloads reuse them).
 const state = globalThis as unknown as { kerflineClipStore?: ClipStore; kerflineTus?: Server };
 
 export function clipStore(): ClipStore {
-  state.kerflineClipStore ??= new DiskClipStore(uploadDirectory(), posterDirectory());
+  state.kerflineClipStore ??= createClipStore();
   return state.kerflineClipStore;
 }
 
 export function tusServer(): Server {
-  state.kerflineTus ??= createTusServer(clipStore());
+  state.kerflineTus ??= createTusServer(clipStore(), lockPool());
   return state.kerflineTus;
 }

@@ -1,4 +1,5 @@
 import type { DetailedError as TusDetailedError, PreviousUpload } from 'tus-js-client';
+import { UPLOAD_CHUNK_BYTES } from '@/lib/clips/upload-chunk';
 import type { UploadTarget, UploadTransport } from '@/lib/clips/upload-queue';
 
 // tus-js-client as the upload queue's transport. Source: tus 1.0.0 protocol; tus-js-client 4 API.
@@ -44,7 +45,7 @@ export const tusTransport: UploadTransport<File> = {
     const { segmentId, shotId } = target;
     const upload = new tus.Upload(file, {
       endpoint: new URL('/api/uploads', location.origin).href,
-      chunkSize: 8 * 1024 * 1024,
+      chunkSize: UPLOAD_CHUNK_BYTES,
       retryDelays: RETRY_DELAYS,
       // The disk store cannot concatenate partial uploads.
       parallelUploads: 1,

@@ -281,3 +281,14 @@ export async function existingClipIds(clipIds: string[]): Promise<Set<string>> {
   const rows: { id: string }[] = await db('clips').whereIn('id', clipIds).select('id');
   return new Set(rows.map((r) => r.id));
 }
+
+export type StoredClip = { id: string; uploadId: string; sha256: string; sizeBytes: number; hasPoster: boolean };
+
+/** Clips in id order, a page at a time, of one channel or all: what a storage move walks through. */
+export async function listStoredClips(opts: { channelId?: string; afterId?: string; limit: number }): Promise<StoredClip[]> {
+  const q = db('clips as c').orderBy('c.id').limit(opts.limit).select('c.id', 'c.upload_id', 'c.sha256', 'c.size_bytes', 'c.has_poster');
+  if (opts.channelId) q.join('segments as s', 's.id', 'c.segment_id').join('episodes as e', 'e.id', 's.episode_id').where('e.channel_id', opts.channelId);
+  if (opts.afterId) q.where('c.id', '>', opts.afterId);
+  const rows: { id: string; upload_id: string; sha256: string; size_bytes: string; has_poster: boolean }[] = await q;
+  return rows.map((r) => ({ id: r.id, uploadId: r.upload_id, sha256: r.sha256, sizeBytes: Number(r.size_bytes), hasPoster: r.has_poster }));
+}

@@ -7,8 +7,14 @@ import { ROOT, SetupError, childEnv, isRoot, log, output, run, sleep, warn } fro
 // ffmpeg: ffprobe reads a clip's duration, resolution and codec, ffmpeg makes its poster frame.
 export const START_DEB_PACKAGES = ['postgresql', 'ffmpeg'];
 
-/** `npm test` needs everything start needs, plus a browser for Playwright (/usr/bin/chromium). */
-export const TEST_DEB_PACKAGES = [...START_DEB_PACKAGES, 'chromium'];
+// OpenStack Swift with s3api: the S3-compatible server the S3 clip store is tested against (npm test only).
+export const SWIFT_DEB_PACKAGES = ['swift', 'swift-proxy', 'swift-object', 'swift-container', 'swift-account', 'memcached'];
+
+/** `npm test` without the browser: everything start needs, plus Swift for the S3 clip store tests. */
+export const INTEGRATION_DEB_PACKAGES = [...START_DEB_PACKAGES, ...SWIFT_DEB_PACKAGES];
+
+/** `npm test` needs all of that, plus a browser for Playwright (/usr/bin/chromium). */
+export const TEST_DEB_PACKAGES = [...INTEGRATION_DEB_PACKAGES, 'chromium'];
 
 const APT_RETRIES = 4;
 const APT_RETRY_PAUSE_MS = 15_000;

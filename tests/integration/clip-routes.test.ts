@@ -102,7 +102,7 @@ describe('stale uploads', () => {
     const store = clipStore();
     const fresh = await store.tus.create({ id: hex(), size: 100, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
     const old = await store.tus.create({ id: hex(), size: 100, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Parameters<typeof store.tus.create>[0]);
-    const oldPath = store.localPath(old.id)!;
+    const oldPath = await store.mediaSource(old.id);
     const past = new Date(Date.now() - 8 * 24 * 3600 * 1000);
     fs.utimesSync(oldPath, past, past);
     fs.utimesSync(`${oldPath}.json`, past, past);
@@ -110,7 +110,7 @@ describe('stale uploads', () => {
     expect(removed).toContain(old.id);
     expect(removed).not.toContain(fresh.id);
     expect(fs.existsSync(oldPath)).toBe(false);
-    expect(fs.existsSync(store.localPath(fresh.id)!)).toBe(true);
+    expect(fs.existsSync(await store.mediaSource(fresh.id))).toBe(true);
     await store.remove(fresh.id);
   });
 });
@@ -133,7 +133,7 @@ describe('media jobs', () => {
     // Plain words for people, not ffprobe's own output (issue 12 item 16).
     expect(clip.probe_note).toBe(PROBE_UNREADABLE);
     expect(clip.probe_note).not.toMatch(/ffprobe|@ 0x|\[|Invalid data/);
-    expect(clip.probe_note).not.toContain(store.localPath(uploadId)!);
+    expect(clip.probe_note).not.toContain(await store.mediaSource(uploadId));
     expect(await db('clip_jobs').where({ clip_id: clipId })).toHaveLength(0);
   });
 });

@@ -7,7 +7,7 @@ import { PASSWORD, makeCrew, makeUser, sessionCookie } from '../integration/help
 
 // Real HTTP against the built app: status codes of streamed pages, and what the server takes as
 // the client's address, are only visible there. Its own port, next to the upload tests' one.
-const PORT = Number(process.env.UPLOAD_TEST_PORT ?? 3197) + 1;
+const PORT = Number(process.env.PAGE_TEST_PORT ?? Number(process.env.UPLOAD_TEST_PORT ?? 3197) - 1);
 const app = new AppServer(PORT, {
   DATABASE_URL: process.env.DATABASE_URL ?? '',
   NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? '',

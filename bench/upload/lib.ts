@@ -1,0 +1,105 @@
+// Shared by the upload benchmarks (run.ts: disk; s3.ts: S3 and two processes).
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes, randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import { encode } from 'next-auth/jwt';
+import { Upload } from 'tus-js-client';
+import { UPLOAD_CHUNK_BYTES } from '@/lib/clips/upload-chunk';
+
+export const mibps = (bytes: number, ms: number) => bytes / 1024 / 1024 / (ms / 1000);
+
+/** RSS of a process and all its descendants, from /proc (Linux). */
+export function treeRss(pid: number): number {
+  let total = 0;
+  const visit = (p: number) => {
+    try {
+      const status = fs.readFileSync(`/proc/${p}/status`, 'utf8');
+      total += Number(/VmRSS:\s+(\d+)/.exec(status)?.[1] ?? 0) * 1024;
+      for (const task of fs.readdirSync(`/proc/${p}/task`)) {
+        const kids = fs.readFileSync(`/proc/${p}/task/${task}/children`, 'utf8').trim();
+        for (const k of kids ? kids.split(/\s+/) : []) visit(Number(k));
+      }
+    } catch {
+      /* the process ended between reads */
+    }
+  };
+  visit(pid);
+  return total;
+}
+
+/** Peak RSS growth of a process tree while `work` runs, sampled every 50 ms. */
+export async function peakRssGrowth<T>(pid: number, work: () => Promise<T>): Promise<{ result: T; base: number; growth: number }> {
+  const base = treeRss(pid);
+  let peak = base;
+  const sampler = setInterval(() => {
+    peak = Math.max(peak, treeRss(pid));
+  }, 50);
+  try {
+    const result = await work();
+    return { result, base, growth: peak - base };
+  } finally {
+    clearInterval(sampler);
+  }
+}
+
+export async function makeSource(file: string, size: number) {
+  const out = fs.createWriteStream(file);
+  const piece = randomBytes(8 * 1024 * 1024);
+  for (let left = size; left > 0; left -= piece.length) {
+    if (!out.write(left >= piece.length ? piece : piece.subarray(0, left))) await new Promise<void>((r) => out.once('drain', () => r()));
+  }
+  await new Promise<void>((r) => out.end(() => r()));
+}
+
+/** `next start` on `port` with `env` on top of ours; background workers off so only the upload runs. */
+export async function startApp(port: number, env: Record<string, string>): Promise<ChildProcess> {
+  const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-p', String(port), '-H', '127.0.0.1'], {
+    env: { ...process.env, NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1', KERFLINE_MAIL_WORKER: 'off', KERFLINE_CLIP_WORKER: 'off', NEXTAUTH_URL: `http://127.0.0.1:${port}`, ...env },
+    stdio: 'ignore',
+  });
+  for (let i = 0; i < 240; i++) {
+    if (await fetch(`http://127.0.0.1:${port}/sign-in`).then((r) => r.ok).catch(() => false)) return child;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  child.kill('SIGKILL');
+  throw new Error('the app did not start; run `npm start` once so the build exists');
+}
+
+/** tus-js-client as the browser runs it: UPLOAD_CHUNK_BYTES per PATCH (BENCH_CHUNK_MIB overrides), one PATCH at a time. */
+export function tusUpload(port: number, file: string, cookie: string, metadata: Record<string, string>): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const upload = new Upload(fs.createReadStream(file), {
+      endpoint: `http://127.0.0.1:${port}/api/uploads`,
+      chunkSize: process.env.BENCH_CHUNK_MIB ? Number(process.env.BENCH_CHUNK_MIB) * 1024 * 1024 : UPLOAD_CHUNK_BYTES,
+      uploadSize: fs.statSync(file).size,
+      headers: { cookie },
+      metadata,
+      retryDelays: [],
+      onError: reject,
+      onSuccess: () => resolve(),
+    });
+    upload.start();
+  });
+}
+
+/** A throwaway user, channel, episode and segment, a session cookie for them, and how to remove it all. */
+export async function benchChannel() {
+  const { db } = await import('@/db/client');
+  const { createChannel } = await import('@/lib/channels/queries');
+  const { createEpisode } = await import('@/lib/episodes/queries');
+  const [user] = await db('users')
+    .insert({ email: `bench-${randomUUID()}@bench.kerfline.test`, name: 'Bench shop hand', password_hash: 'x' })
+    .returning<{ id: string }[]>(['id']);
+  if (!user) throw new Error('no user');
+  const channel = await createChannel('Upload bench', user.id);
+  const episode = await createEpisode(channel.id, { title: 'Upload bench', premise: '', stage: 'shoot', targetSeconds: null, shootDate: null, publishDate: null });
+  const [segment] = await db('segments').insert({ episode_id: episode.id, position: 'a0', kind: 'build', level: 1, title: 'Bench' }).returning<{ id: string }[]>(['id']);
+  const cookie = `next-auth.session-token=${await encode({ token: { sub: user.id }, secret: process.env.NEXTAUTH_SECRET ?? '' })}`;
+  const metadata = { segmentId: segment!.id, filename: 'bench.bin', filetype: 'video/mp4' };
+  const remove = async () => {
+    await db('channels').where({ id: channel.id }).delete();
+    await db('users').where({ id: user.id }).delete();
+    await db.destroy();
+  };
+  return { cookie, metadata, remove };
+}

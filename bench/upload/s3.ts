@@ -1,0 +1,146 @@
+// Upload benchmark on S3 and with two app processes (issue: several machines). Needs the built app and
+// the `npm start` database, like run.ts; run it under `nice` on a shared machine:
+//   nice -n 10 node --require ./bench/lib/allow-server-modules.cjs --import tsx bench/upload/s3.ts [--mib 1024]
+// The S3 server: S3_ENDPOINT, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY (and S3_REGION) when set; otherwise a
+// Swift with s3api started here (scripts/lib/swift.mjs) under .data/bench-swift on KERFLINE_SWIFT_PORT.
+// It makes its own bucket, and measures on one file of --mib MiB:
+//   1. tus-js-client (64 MiB chunks, as the browser sends) into one app process with STORAGE=s3 (the time includes the SHA-256
+//      the app reads back from S3 at finish), and that app's peak RSS growth;
+//   2. the same file as a plain multipart upload with the AWS SDK (@aws-sdk/lib-storage, 8 MiB parts)
+//      to the same server, four parts at a time (the SDK default) and one at a time;
+//   3. reading the SDK's copy back from S3 with its SHA-256 (the part of the tus time spent at finish);
+//   4. two simultaneous tus uploads into one process, then one into each of two processes: aggregate MiB/s.
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { CreateBucketCommand, DeleteBucketCommand, DeleteObjectsCommand, GetObjectCommand, ListObjectsV2Command, type S3Client } from '@aws-sdk/client-s3';
+import type { Readable } from 'node:stream';
+import { Upload as SdkUpload } from '@aws-sdk/lib-storage';
+import type { S3Settings } from '@/storage/config';
+import { sha256Of } from '@/storage/ingest';
+import { makeS3Client } from '@/storage/s3-client';
+import { benchChannel, makeSource, mibps, peakRssGrowth, startApp, tusUpload } from './lib';
+
+const PG_PORT = process.env.KERFLINE_PG_PORT ?? '54329';
+process.env.DATABASE_URL ??= `postgres://postgres@127.0.0.1:${PG_PORT}/kerfline`;
+process.env.NEXTAUTH_SECRET ??= fs.readFileSync('.data/session-secret', 'utf8').trim();
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true';
+const argMib = process.argv.indexOf('--mib');
+const MIB = argMib > 0 ? Number(process.argv[argMib + 1]) : 1024;
+const SIZE = MIB * 1024 * 1024;
+const PORT_A = Number(process.env.BENCH_APP_PORT ?? 3198);
+const PORT_B = Number(process.env.BENCH_APP_PORT_B ?? PORT_A + 1);
+const WORK = path.resolve('.data/bench-upload-s3');
+const PART = 8 * 1024 * 1024;
+
+type Swift = { env: Record<string, string>; stop: () => Promise<void> };
+
+async function s3Server(): Promise<{ settings: S3Settings; stop: () => Promise<void> }> {
+  const bucket = `kerfline-bench-${randomBytes(4).toString('hex')}`;
+  const base = { bucket, forcePathStyle: true, partSize: PART, maxParts: 1000 };
+  if (process.env.S3_ENDPOINT) {
+    const { S3_ENDPOINT, S3_REGION, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY } = process.env;
+    return { settings: { ...base, endpoint: S3_ENDPOINT, region: S3_REGION ?? 'us-east-1', accessKeyId: S3_ACCESS_KEY_ID, secretAccessKey: S3_SECRET_ACCESS_KEY }, stop: async () => {} };
+  }
+  const swiftModule = '../../scripts/lib/swift.mjs';
+  const { ensureSwift } = (await import(swiftModule)) as { ensureSwift: (o: { dir: string; fresh: boolean }) => Promise<Swift> };
+  const dir = path.resolve('.data/bench-swift');
+  const swift = await ensureSwift({ dir, fresh: true });
+  const e = swift.env;
+  return {
+    settings: { ...base, endpoint: e.S3_ENDPOINT, region: e.S3_REGION ?? 'us-east-1', accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
+    stop: async () => {
+      await swift.stop();
+      fs.rmSync(path.join(dir, 'devices'), { recursive: true, force: true });
+    },
+  };
+}
+
+async function emptyBucket(client: S3Client, bucket: string) {
+  for (;;) {
+    const page = await client.send(new ListObjectsV2Command({ Bucket: bucket }));
+    const keys = (page.Contents ?? []).map((o) => ({ Key: o.Key! }));
+    if (keys.length === 0) break;
+    await client.send(new DeleteObjectsCommand({ Bucket: bucket, Delete: { Objects: keys, Quiet: true } }));
+  }
+  await client.send(new DeleteBucketCommand({ Bucket: bucket })).catch(() => {});
+}
+
+async function sdkMultipart(client: S3Client, bucket: string, src: string, queueSize: number): Promise<number> {
+  const t = performance.now();
+  await new SdkUpload({ client, params: { Bucket: bucket, Key: `sdk-${queueSize}.bin`, Body: fs.createReadStream(src) }, partSize: PART, queueSize }).done();
+  return performance.now() - t;
+}
+
+const appEnv = (s: S3Settings): Record<string, string> => ({
+  STORAGE: 's3',
+  S3_ENDPOINT: s.endpoint ?? '',
+  S3_BUCKET: s.bucket,
+  S3_REGION: s.region,
+  S3_ACCESS_KEY_ID: s.accessKeyId ?? '',
+  S3_SECRET_ACCESS_KEY: s.secretAccessKey ?? '',
+});
+
+async function main() {
+  fs.rmSync(WORK, { recursive: true, force: true });
+  fs.mkdirSync(WORK, { recursive: true });
+  const src = path.join(WORK, 'source.bin');
+  console.log(`Writing a ${MIB} MiB source file in ${WORK} …`);
+  await makeSource(src, SIZE);
+  const server = await s3Server();
+  const { settings } = server;
+  const client = makeS3Client(settings);
+  await client.send(new CreateBucketCommand({ Bucket: settings.bucket }));
+  const { cookie, metadata, remove } = await benchChannel();
+  const apps = [await startApp(PORT_A, appEnv(settings))];
+  try {
+    const warm = path.join(WORK, 'warm.bin');
+    fs.writeFileSync(warm, randomBytes(1024 * 1024));
+    await tusUpload(PORT_A, warm, cookie, metadata);
+
+    const t0 = performance.now();
+    const { base, growth } = await peakRssGrowth(apps[0]!.pid!, () => tusUpload(PORT_A, src, cookie, metadata));
+    const tusMs = performance.now() - t0;
+    const sdk4Ms = await sdkMultipart(client, settings.bucket, src, 4);
+    const sdk1Ms = await sdkMultipart(client, settings.bucket, src, 1);
+    const t2 = performance.now();
+    const readBack = await client.send(new GetObjectCommand({ Bucket: settings.bucket, Key: 'sdk-1.bin' }));
+    await sha256Of(readBack.Body as Readable);
+    const readMs = performance.now() - t2;
+
+    const pair = async (ports: [number, number]) => {
+      const t = performance.now();
+      await Promise.all(ports.map((p) => tusUpload(p, src, cookie, metadata)));
+      return performance.now() - t;
+    };
+    const oneProcMs = await pair([PORT_A, PORT_A]);
+    apps.push(await startApp(PORT_B, appEnv(settings)));
+    await tusUpload(PORT_B, warm, cookie, metadata);
+    const twoProcMs = await pair([PORT_A, PORT_B]);
+
+    const tus = mibps(SIZE, tusMs);
+    const sdk4 = mibps(SIZE, sdk4Ms);
+    const sdk1 = mibps(SIZE, sdk1Ms);
+    console.log(`${MIB} MiB into S3 (${settings.endpoint}), loopback, ${new Date().toISOString()}:`);
+    console.log(`  tus into one app (browser chunks, SHA-256 read back at finish): ${tus.toFixed(0)} MiB/s (${(tusMs / 1000).toFixed(2)} s)`);
+    console.log(`  AWS SDK multipart, 8 MiB parts, 4 at a time (SDK default):  ${sdk4.toFixed(0)} MiB/s (${(sdk4Ms / 1000).toFixed(2)} s)`);
+    console.log(`  AWS SDK multipart, 8 MiB parts, 1 at a time:                ${sdk1.toFixed(0)} MiB/s (${(sdk1Ms / 1000).toFixed(2)} s)`);
+    console.log(`  tus/SDK(4) ${(tus / sdk4).toFixed(2)}   tus/SDK(1) ${(tus / sdk1).toFixed(2)}   (goal >= 0.80)`);
+    console.log(`  read back from S3 with SHA-256 (done by tus at finish):      ${mibps(SIZE, readMs).toFixed(0)} MiB/s (${(readMs / 1000).toFixed(2)} s)`);
+    console.log(`  app RSS: ${(base / 1048576).toFixed(0)} MiB before, peak growth ${(growth / 1048576).toFixed(1)} MiB during the upload (goal <= 64 MiB)`);
+    console.log(`  two uploads at once, one process:   ${mibps(2 * SIZE, oneProcMs).toFixed(0)} MiB/s aggregate (${(oneProcMs / 1000).toFixed(2)} s)`);
+    console.log(`  two uploads at once, two processes: ${mibps(2 * SIZE, twoProcMs).toFixed(0)} MiB/s aggregate (${(twoProcMs / 1000).toFixed(2)} s)`);
+  } finally {
+    for (const app of apps) app.kill('SIGTERM');
+    await remove();
+    await emptyBucket(client, settings.bucket).catch((err: unknown) => console.error('bucket clean-up', err));
+    client.destroy();
+    await server.stop();
+    fs.rmSync(WORK, { recursive: true, force: true });
+  }
+}
+
+main().catch((err: unknown) => {
+  console.error(err);
+  process.exit(1);
+});

@@ -59,6 +59,7 @@ export function slowPatch(url: string, cookie: string, offset: number, body: Buf
         'Content-Type': 'application/offset+octet-stream',
         'Content-Length': String(body.length),
         cookie,
+        origin: new URL(url).origin,
       },
     });
     let answered = false;

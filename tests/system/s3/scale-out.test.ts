@@ -45,7 +45,7 @@ describe('two app processes behind one address', () => {
     const signIn = await fetch(`${a.url}/api/auth/callback/credentials`, {
       method: 'POST',
       redirect: 'manual',
-      headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: csrfCookie },
+      headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: csrfCookie, origin: a.url },
       body: new URLSearchParams({ csrfToken, email: crew.editor.email, password: PASSWORD, json: 'true' }),
     });
     const session = signIn.headers.getSetCookie().find((c) => c.startsWith('next-auth.session-token='));
@@ -96,7 +96,7 @@ describe('two app processes behind one address', () => {
     const bodies = [randomBytes(size), randomBytes(size)] as const;
     const made = await fetch(`${a.url}/api/uploads`, {
       method: 'POST',
-      headers: { ...tus, cookie, 'Upload-Length': String(size), 'Upload-Metadata': `segmentId ${Buffer.from(segmentId).toString('base64')},filename ${Buffer.from('race.bin').toString('base64')},filetype ${Buffer.from('video/mp4').toString('base64')}` },
+      headers: { ...tus, cookie, origin: a.url, 'Upload-Length': String(size), 'Upload-Metadata': `segmentId ${Buffer.from(segmentId).toString('base64')},filename ${Buffer.from('race.bin').toString('base64')},filetype ${Buffer.from('video/mp4').toString('base64')}` },
     });
     expect(made.status).toBe(201);
     const id = idOf(made.headers.get('location')!);

@@ -93,7 +93,7 @@ describe('tus uploads into S3', () => {
     await run.done;
     const again = await fetch(run.url!, {
       method: 'PATCH',
-      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': '1000', 'Content-Type': 'application/offset+octet-stream', cookie },
+      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': '1000', 'Content-Type': 'application/offset+octet-stream', cookie, origin: app.url },
       body: new Uint8Array(0),
     });
     expect(again.status).toBeLessThan(500);
@@ -117,11 +117,11 @@ describe('tus uploads into S3', () => {
     const head = await fetch(run.url!, { method: 'HEAD', headers: { 'Tus-Resumable': '1.0.0', cookie } });
     const tail = await fetch(run.url!, {
       method: 'PATCH',
-      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': head.headers.get('upload-offset')!, 'Content-Type': 'application/offset+octet-stream', cookie },
+      headers: { 'Tus-Resumable': '1.0.0', 'Upload-Offset': head.headers.get('upload-offset')!, 'Content-Type': 'application/offset+octet-stream', cookie, origin: app.url },
       body: new Uint8Array(1000),
     });
     expect(tail.status).toBe(204);
-    const res = await fetch(run.url!, { method: 'DELETE', headers: { 'Tus-Resumable': '1.0.0', cookie } });
+    const res = await fetch(run.url!, { method: 'DELETE', headers: { 'Tus-Resumable': '1.0.0', cookie, origin: app.url } });
     expect(res.status).toBe(204);
     expect((await bucketStore().listUnfinished()).map((u) => u.uploadId)).not.toContain(id);
     const s3 = makeS3Client(settings());
@@ -174,7 +174,7 @@ describe('clip files from S3', () => {
 
   it('removes the clip’s bytes and poster from the bucket when the clip is deleted', async () => {
     const uploadId = (await db('clips').where({ id: clipId }).first('upload_id')).upload_id as string;
-    const res = await fetch(`${app.url}/api/channels/${crew.channel.slug}/clips/${clipId}`, { method: 'DELETE', headers: { cookie: await sessionCookie(crew.host) } });
+    const res = await fetch(`${app.url}/api/channels/${crew.channel.slug}/clips/${clipId}`, { method: 'DELETE', headers: { cookie: await sessionCookie(crew.host), origin: app.url } });
     expect(res.status).toBe(204);
     await expect.poll(async () => bucketStore().stat(uploadId), { timeout: 10_000 }).toBeNull();
     expect(await bucketStore().readPoster(clipId)).toBeNull();

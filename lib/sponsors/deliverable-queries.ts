@@ -269,3 +269,20 @@ export async function deleteDeliverable(channelId: string, deliverableId: string
     await trx('deliverables').where({ id: deliverableId }).delete();
   });
 }
+
+/** Episodes that are not archived, with their segments in running order, for the deliverable form. */
+export async function listEpisodeChoices(channelId: string): Promise<{ id: string; title: string; segments: { id: string; title: string; kind: string }[] }[]> {
+  const rows: { episode_id: string; episode_title: string; id: string | null; title: string | null; kind: string | null }[] = await db('episodes as e')
+    .leftJoin('segments as s', 's.episode_id', 'e.id')
+    .where('e.channel_id', channelId)
+    .whereNull('e.archived_at')
+    .orderBy([{ column: 'e.publish_date', order: 'asc', nulls: 'last' }, { column: 'e.created_at', order: 'desc' }, { column: 's.position' }])
+    .select('e.id as episode_id', 'e.title as episode_title', 's.id', 's.title', 's.kind');
+  const out = new Map<string, { id: string; title: string; segments: { id: string; title: string; kind: string }[] }>();
+  for (const r of rows) {
+    const e = out.get(r.episode_id) ?? { id: r.episode_id, title: r.episode_title, segments: [] };
+    if (r.id && r.title && r.kind) e.segments.push({ id: r.id, title: r.title, kind: r.kind });
+    out.set(r.episode_id, e);
+  }
+  return [...out.values()];
+}

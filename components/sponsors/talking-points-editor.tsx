@@ -18,7 +18,7 @@ export function TalkingPointsEditor({ channelSlug, deliverableId, initialDoc }: 
     immediatelyRender: false,
     extensions: scriptExtensions,
     content: initialDoc ?? { type: 'doc', content: [{ type: 'paragraph' }] },
-    editorProps: { attributes: { class: `${scriptProseClasses} min-h-24 rounded-md border border-ink/30 bg-white px-4 py-3 focus:outline-3 focus:outline-blueprint`, 'aria-label': 'Talking points' } },
+    editorProps: { attributes: { class: `${scriptProseClasses} min-h-24 rounded-md border border-ink/30 bg-white px-4 py-3 focus:outline-3 focus:outline-blueprint`, 'aria-label': 'Talking points', role: 'textbox', 'aria-multiline': 'true' } },
   });
   function save() {
     if (!editor) return;

@@ -39,7 +39,7 @@ export async function seedDemoSponsor(trx: Knex.Transaction, channelId: string):
       read_min_seconds: 30,
       read_max_seconds: 90,
       placement_kind: 'within_percent',
-      placement_value: 50,
+      placement_value: 60,
       owner_id: host?.user_id ?? null,
     })
     .returning<{ id: string }[]>('id');

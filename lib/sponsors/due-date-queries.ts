@@ -113,3 +113,21 @@ export async function loadDueDates(deliverableIds: readonly string[]): Promise<M
   }
   return out;
 }
+
+export type UpcomingDueDto = { dealId: string; deliverableId: string; sponsorName: string; episodeTitle: string; kind: DueDateKind; dueOn: string };
+
+/** Open due dates of the channel up to `until` (inclusive), overdue ones first: the dashboard's list. */
+export async function listOpenDueDates(channelId: string, until: string): Promise<UpcomingDueDto[]> {
+  const rows: { deal_id: string; deliverable_id: string; sponsor_name: string; episode_title: string; kind: DueDateKind; due_on: string }[] = await db('due_dates as g')
+    .join('deliverables as x', 'x.id', 'g.deliverable_id')
+    .join('sponsor_deals as d', 'd.id', 'x.deal_id')
+    .join('sponsors as sp', 'sp.id', 'd.sponsor_id')
+    .join('episodes as e', 'e.id', 'x.episode_id')
+    .where('d.channel_id', channelId)
+    .whereNull('g.done_at')
+    .whereNotNull('g.due_on')
+    .where('g.due_on', '<=', until)
+    .orderBy([{ column: 'g.due_on' }, { column: 'sp.name' }])
+    .select('d.id as deal_id', 'x.id as deliverable_id', 'sp.name as sponsor_name', 'e.title as episode_title', 'g.kind', 'g.due_on');
+  return rows.map((r) => ({ dealId: r.deal_id, deliverableId: r.deliverable_id, sponsorName: r.sponsor_name, episodeTitle: r.episode_title, kind: r.kind, dueOn: r.due_on }));
+}

@@ -1,0 +1,95 @@
+import type { Page } from '@playwright/test';
+import type { EpisodeSummaryDto } from '@/lib/episodes/schemas';
+import type { BoardDto } from '@/lib/segments/schemas';
+import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+
+const api = `/api/channels/${DEMO_SLUG}`;
+
+async function demoBoard(page: Page) {
+  const list = (await (await page.request.get(`${api}/episodes`)).json()) as { episodes: EpisodeSummaryDto[] };
+  const episode = list.episodes.find((e) => e.title === 'One Stool, Three Ways')!;
+  const board = (await (await page.request.get(`${api}/episodes/${episode.id}/board`)).json()) as BoardDto;
+  const read = board.segments.find((s) => s.kind === 'sponsor_read')!;
+  const advanced = board.segments.find((s) => s.kind === 'build' && s.level === 3)!;
+  const before = board.segments[board.segments.indexOf(read) - 1]!;
+  return { episode, read, advanced, before };
+}
+
+const check = (page: Page, name: string) => page.locator(`[data-check="${name}"]`).first();
+
+test('a host books a read on the demo episode and sees placement follow the running order', async ({ page }) => {
+  await page.setViewportSize({ width: 1280, height: 1100 });
+  await signIn(page, demo.host);
+  const sponsorName = `Larchmoor Clamps ${Date.now()}`;
+  await page.goto(`/c/${DEMO_SLUG}/sponsors`);
+  await expectAccessible(page);
+  await page.getByLabel('Sponsor', { exact: true }).selectOption({ label: 'New sponsor…' });
+  await page.getByLabel('Sponsor name').fill(sponsorName);
+  await page.getByLabel('Contact name').fill('Pell Andrade');
+  await page.getByLabel('Contact e-mail').fill('pell@larchmoor.test');
+  await page.getByLabel('Deal title').fill('Bar clamp read');
+  await page.getByLabel('Fee').fill('1250.00');
+  await page.getByLabel('Currency').fill('EUR');
+  await page.getByRole('button', { name: 'Create deal' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Bar clamp read' })).toBeVisible();
+  await expect(page.getByText('€1,250.00')).toBeVisible();
+
+  const form = page.getByRole('form', { name: 'Add deliverable' });
+  await form.getByLabel('Episode').selectOption({ label: 'One Stool, Three Ways' });
+  await form.getByLabel('Disclosure wording').fill('This video is sponsored by Brightgrain Abrasives');
+  await form.getByLabel('Must-say phrases (one per line)').fill('starter pack');
+  await form.getByLabel('Shortest read (m:ss)').fill('0:20');
+  await form.getByLabel('Longest read (m:ss)').fill('1:30');
+  await form.getByLabel('Placement rule').selectOption('within_percent');
+  await form.getByLabel('Within the first (%)').fill('60');
+  await form.getByLabel('Go-live').fill('2027-02-04');
+  await form.getByRole('button', { name: 'Add deliverable' }).click();
+  await expect(check(page, 'placement')).toHaveAttribute('data-status', 'pass');
+  await expect(check(page, 'mustSay')).toHaveAttribute('data-status', 'pass');
+  await expect(check(page, 'disclosure')).toHaveAttribute('data-status', 'pass');
+  // Payment due follows go-live plus the default 30 days' terms.
+  await expect(page.getByLabel('Payment due')).toHaveValue('2027-03-06');
+
+  const editor = page.getByRole('textbox', { name: 'Talking points' });
+  await editor.click();
+  await page.keyboard.insertText('Quick-release bar clamps, one hand.');
+  await page.getByRole('button', { name: 'Save talking points' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Talking points saved.' })).toBeVisible();
+  await expectAccessible(page);
+  const dealUrl = page.url();
+
+  const { read, advanced, before } = await demoBoard(page);
+  try {
+    expect((await page.request.put(`${api}/segments/${read.id}/position`, { data: { afterId: advanced.id } })).status()).toBe(200);
+    await page.goto(dealUrl);
+    await expect(check(page, 'placement')).toHaveAttribute('data-status', 'fail');
+  } finally {
+    expect((await page.request.put(`${api}/segments/${read.id}/position`, { data: { afterId: before.id } })).status()).toBe(200);
+  }
+  await page.goto(dealUrl);
+  await expect(check(page, 'placement')).toHaveAttribute('data-status', 'pass');
+
+  await page.goto(`/c/${DEMO_SLUG}/sponsors`);
+  await expect(page.getByRole('link', { name: sponsorName })).toBeVisible();
+  await page.setViewportSize({ width: 375, height: 800 });
+  await expectAccessible(page);
+});
+
+test('the editor reads talking points and disclosure without fees; the shop hand is refused', async ({ browser }) => {
+  const editorPage = await browser.newPage();
+  await signIn(editorPage, demo.editor);
+  await editorPage.goto(`/c/${DEMO_SLUG}/sponsors`);
+  await expect(editorPage.getByRole('heading', { level: 1, name: 'Sponsor reads' })).toBeVisible();
+  await expect(editorPage.getByText('Mesh discs let dust through to the extractor', { exact: false }).first()).toBeVisible();
+  await expect(editorPage.getByText('This video is sponsored by Brightgrain Abrasives').first()).toBeVisible();
+  await expect(editorPage.locator('main')).not.toContainText(/\$|€|Fee|Invoice/);
+  await expectAccessible(editorPage);
+  expect((await editorPage.request.get(`${api}/deals`)).status()).toBe(403);
+  await editorPage.close();
+
+  const shopPage = await browser.newPage();
+  await signIn(shopPage, demo.shopHand);
+  expect((await shopPage.request.get(`${api}/deals`)).status()).toBe(403);
+  expect((await shopPage.request.post(`${api}/sponsors`, { data: { name: 'Nope' } })).status()).toBe(403);
+  await shopPage.close();
+});

@@ -23,15 +23,16 @@ test('a host books a read on the demo episode and sees placement follow the runn
   const sponsorName = `Larchmoor Clamps ${Date.now()}`;
   await page.goto(`/c/${DEMO_SLUG}/sponsors`);
   await expectAccessible(page);
-  await page.getByLabel('Sponsor', { exact: true }).selectOption({ label: 'New sponsor…' });
-  await page.getByLabel('Sponsor name').fill(sponsorName);
-  await page.getByLabel('Contact name').fill('Pell Andrade');
-  await page.getByLabel('Contact e-mail').fill('pell@larchmoor.test');
-  await page.getByLabel('Deal title').fill('Bar clamp read');
-  await page.getByLabel('Fee').fill('1250.00');
-  await page.getByLabel('Currency').fill('EUR');
-  await page.getByRole('button', { name: 'Create deal' }).click();
-  await expect(page.getByRole('heading', { level: 1, name: 'Bar clamp read' })).toBeVisible();
+  const newDeal = page.getByRole('form', { name: 'New deal' });
+  await newDeal.getByLabel('Sponsor', { exact: true }).selectOption({ label: 'New sponsor…' });
+  await newDeal.getByLabel('Sponsor name').fill(sponsorName);
+  await newDeal.getByLabel('Contact name').fill('Pell Andrade');
+  await newDeal.getByLabel('Contact e-mail').fill('pell@larchmoor.test');
+  await newDeal.getByLabel('Deal title').fill('Bar clamp read');
+  await newDeal.getByLabel('Fee').fill('1250.00');
+  await newDeal.getByLabel('Currency').fill('EUR');
+  await newDeal.getByRole('button', { name: 'Create deal' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Bar clamp read' })).toBeVisible({ timeout: 30_000 });
   await expect(page.getByText('€1,250.00')).toBeVisible();
 
   const form = page.getByRole('form', { name: 'Add deliverable' });
@@ -48,7 +49,7 @@ test('a host books a read on the demo episode and sees placement follow the runn
   await expect(check(page, 'mustSay')).toHaveAttribute('data-status', 'pass');
   await expect(check(page, 'disclosure')).toHaveAttribute('data-status', 'pass');
   // Payment due follows go-live plus the default 30 days' terms.
-  await expect(page.getByLabel('Payment due')).toHaveValue('2027-03-06');
+  await expect(page.getByRole('textbox', { name: /^Payment due/ })).toHaveValue('2027-03-06');
 
   const editor = page.getByRole('textbox', { name: 'Talking points' });
   await editor.click();
@@ -76,7 +77,8 @@ test('a host books a read on the demo episode and sees placement follow the runn
 });
 
 test('the editor reads talking points and disclosure without fees; the shop hand is refused', async ({ browser }) => {
-  const editorPage = await browser.newPage();
+  const editorContext = await browser.newContext();
+  const editorPage = await editorContext.newPage();
   await signIn(editorPage, demo.editor);
   await editorPage.goto(`/c/${DEMO_SLUG}/sponsors`);
   await expect(editorPage.getByRole('heading', { level: 1, name: 'Sponsor reads' })).toBeVisible();
@@ -85,11 +87,12 @@ test('the editor reads talking points and disclosure without fees; the shop hand
   await expect(editorPage.locator('main')).not.toContainText(/\$|€|Fee|Invoice/);
   await expectAccessible(editorPage);
   expect((await editorPage.request.get(`${api}/deals`)).status()).toBe(403);
-  await editorPage.close();
+  await editorContext.close();
 
-  const shopPage = await browser.newPage();
+  const shopContext = await browser.newContext();
+  const shopPage = await shopContext.newPage();
   await signIn(shopPage, demo.shopHand);
   expect((await shopPage.request.get(`${api}/deals`)).status()).toBe(403);
   expect((await shopPage.request.post(`${api}/sponsors`, { data: { name: 'Nope' } })).status()).toBe(403);
-  await shopPage.close();
+  await shopContext.close();
 });

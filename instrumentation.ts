@@ -5,6 +5,10 @@ export async function register(): Promise<void> {
     const { startShotMailWorker } = await import('./lib/shots/mail-worker');
     startShotMailWorker();
   }
+  if (process.env.KERFLINE_REMINDER_WORKER !== 'off') {
+    const { startReminderWorker } = await import('./lib/reminders/worker');
+    startReminderWorker();
+  }
   if (process.env.KERFLINE_CLIP_WORKER !== 'off') {
     const { startClipWorker } = await import('./storage/worker');
     startClipWorker();

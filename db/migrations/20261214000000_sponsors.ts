@@ -95,9 +95,31 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp('at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
     t.index(['due_date_id']);
   });
+
+  // Days before an open due date that a reminder goes out; "once overdue" is always on.
+  await knex.schema.alterTable('channels', (t) => {
+    t.jsonb('reminder_days').notNullable().defaultTo(JSON.stringify([3, 1]));
+  });
+
+  // One row per reminder sent: the unique key is what makes it once per due date, person, threshold and
+  // date, however many app processes poll. A moved date is a new key; a done date is never selected.
+  await knex.schema.createTable('reminder_sends', (t) => {
+    t.bigIncrements('id');
+    t.uuid('due_date_id').notNullable().references('due_dates.id').onDelete('CASCADE');
+    t.uuid('user_id').notNullable().references('users.id').onDelete('CASCADE');
+    // Days before the due date, or -1 for "overdue".
+    t.smallint('threshold').notNullable();
+    t.date('due_on').notNullable();
+    t.timestamp('sent_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
+    t.unique(['due_date_id', 'user_id', 'threshold', 'due_on']);
+  });
 }
 
 export async function down(knex: Knex): Promise<void> {
+  await knex.schema.dropTableIfExists('reminder_sends');
+  await knex.schema.alterTable('channels', (t) => {
+    t.dropColumn('reminder_days');
+  });
   await knex.schema.dropTableIfExists('due_date_events');
   await knex.schema.dropTableIfExists('due_dates');
   await knex.schema.dropTableIfExists('deliverables');

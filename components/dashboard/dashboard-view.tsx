@@ -69,6 +69,23 @@ export function DashboardView({ data, slug, canEditEpisodes }: { data: Dashboard
           </Link>
         </Panel>
       ) : null}
+      {data.changedSinceApproval && data.changedSinceApproval.length > 0 ? (
+        <Panel id="approval-heading" title="Changed since approval">
+          <ul className="divide-y divide-paper-edge">
+            {data.changedSinceApproval.map((d) => (
+              <li key={d.id} className="py-2">
+                <Link
+                  href={canEditEpisodes ? `${base}/sponsors/${d.dealId}` : `${base}/episodes/${d.episodeId}/segments/${d.segmentId ?? ''}`}
+                  className="font-bold text-attention-ink underline-offset-2 hover:underline"
+                >
+                  {d.sponsorName} · {d.episodeTitle}
+                </Link>
+                <p className="text-sm text-ink-soft">The read&apos;s script was saved after the sponsor approved it{d.segmentTitle ? ` (${d.segmentTitle})` : ''}.</p>
+              </li>
+            ))}
+          </ul>
+        </Panel>
+      ) : null}
       {data.readyForEdit ? (
         <Panel id="edit-heading" title="Ready for the edit">
           {data.readyForEdit.length === 0 ? <Quiet>No episode is at the Edit stage yet. When the Host moves one there, it shows here.</Quiet> : <EpisodeList episodes={data.readyForEdit} base={base} />}

@@ -4,15 +4,16 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { formatDuration } from '@/lib/runtime';
 import { deliverableKindLabels, type DeliverableDto } from '@/lib/sponsors/schemas';
+import { ApprovalPanel } from './approval-panel';
 import { DeliverableForm, type CrewChoice, type EpisodeChoice } from './deliverable-form';
 import { DueDatesPanel } from './due-dates-panel';
 import { SponsorChecksList } from './sponsor-checks-list';
 import { TalkingPointsEditor } from './talking-points-editor';
 import { useSponsorMutations } from './use-sponsor-mutations';
 
-type Props = { channelSlug: string; deliverable: DeliverableDto; episodes: EpisodeChoice[]; crew: CrewChoice[]; today: string };
+type Props = { channelSlug: string; deliverable: DeliverableDto; episodes: EpisodeChoice[]; crew: CrewChoice[]; today: string; contactEmail: string };
 
-export function DeliverableCard({ channelSlug, deliverable: d, episodes, crew, today }: Props) {
+export function DeliverableCard({ channelSlug, deliverable: d, episodes, crew, today, contactEmail }: Props) {
   const m = useSponsorMutations(channelSlug);
   const [editing, setEditing] = useState(false);
   const segmentHref = d.segmentId ? `/c/${channelSlug}/episodes/${d.episodeId}/segments/${d.segmentId}` : null;
@@ -82,7 +83,10 @@ export function DeliverableCard({ channelSlug, deliverable: d, episodes, crew, t
           {d.checks ? <SponsorChecksList checks={d.checks} /> : null}
           <TalkingPointsEditor channelSlug={channelSlug} deliverableId={d.id} initialDoc={d.talkingPoints} />
         </div>
-        <DueDatesPanel channelSlug={channelSlug} deliverableId={d.id} dueDates={d.dueDates} today={today} />
+        <div className="space-y-4">
+          <ApprovalPanel channelSlug={channelSlug} deliverableId={d.id} approval={d.approval} links={d.approvalLinks} defaultEmail={contactEmail} hasSegment={d.segmentId !== null} />
+          <DueDatesPanel channelSlug={channelSlug} deliverableId={d.id} dueDates={d.dueDates} today={today} />
+        </div>
       </div>
     </article>
   );

@@ -28,6 +28,11 @@ export function SegmentSponsorChecks({ deliverables, channelSlug, canManage }: {
               </>
             ) : null}
           </p>
+          {d.approval.changedSinceApproval ? (
+            <p className="rounded-md bg-attention-soft px-3 py-2 text-sm font-bold text-attention-ink" data-approval="changed">
+              Changed since approval: the sponsor approved script v{d.approval.approvedScriptVersion}.
+            </p>
+          ) : null}
           {d.checks ? <SponsorChecksList checks={d.checks} title="Checks against this script" /> : null}
         </div>
       ))}

@@ -41,6 +41,15 @@ export function useSponsorMutations(slug: string) {
       mutationFn: (deliverableId: string) => apiFetch<void>(`${base}/deliverables/${deliverableId}`, { method: 'DELETE' }),
       onSuccess: refresh,
     }),
+    sendApprovalLink: useMutation({
+      mutationFn: (v: { deliverableId: string; contactEmail: string }) =>
+        apiFetch<{ delivered: boolean }>(`${base}/deliverables/${v.deliverableId}/approval-links`, { method: 'POST', body: { contactEmail: v.contactEmail } }),
+      onSuccess: refresh,
+    }),
+    revokeApprovalLink: useMutation({
+      mutationFn: (linkId: string) => apiFetch<void>(`${base}/approval-links/${linkId}`, { method: 'DELETE' }),
+      onSuccess: refresh,
+    }),
     updateDueDate: useMutation({
       mutationFn: (v: { deliverableId: string; kind: DueDateKind; body: { dueOn?: string | null; done?: boolean } }) =>
         apiFetch<{ deal: DealDto }>(`${base}/deliverables/${v.deliverableId}/due-dates/${v.kind}`, { method: 'PATCH', body: v.body }),

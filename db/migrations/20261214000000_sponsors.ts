@@ -96,6 +96,28 @@ export async function up(knex: Knex): Promise<void> {
     t.index(['due_date_id']);
   });
 
+  // A link the Host sends a sponsor contact: only the SHA-256 of its token is stored.
+  await knex.schema.createTable('approval_links', (t) => {
+    t.uuid('id').primary().defaultTo(knex.raw('gen_random_uuid()'));
+    t.uuid('deliverable_id').notNullable().references('deliverables.id').onDelete('CASCADE');
+    t.string('contact_email', 254).notNullable();
+    t.string('token_hash', 64).notNullable().unique();
+    t.timestamp('expires_at', { useTz: true }).notNullable();
+    t.timestamp('revoked_at', { useTz: true });
+    t.uuid('created_by').references('users.id').onDelete('SET NULL');
+    t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
+    t.enu('decision', ['approved', 'changes_requested'], { useNative: true, enumName: 'approval_decision' });
+    t.string('comment', 2000);
+    // The script version the sponsor saw when deciding: "changed since approval" compares against it.
+    t.integer('script_version');
+    t.timestamp('decided_at', { useTz: true });
+    t.index(['deliverable_id']);
+  });
+  await knex.schema.alterTable('deliverables', (t) => {
+    t.integer('approved_script_version');
+    t.timestamp('approved_at', { useTz: true });
+  });
+
   // Days before an open due date that a reminder goes out; "once overdue" is always on.
   await knex.schema.alterTable('channels', (t) => {
     t.jsonb('reminder_days').notNullable().defaultTo(JSON.stringify([3, 1]));
@@ -117,6 +139,7 @@ export async function up(knex: Knex): Promise<void> {
 
 export async function down(knex: Knex): Promise<void> {
   await knex.schema.dropTableIfExists('reminder_sends');
+  await knex.schema.dropTableIfExists('approval_links');
   await knex.schema.alterTable('channels', (t) => {
     t.dropColumn('reminder_days');
   });
@@ -125,7 +148,7 @@ export async function down(knex: Knex): Promise<void> {
   await knex.schema.dropTableIfExists('deliverables');
   await knex.schema.dropTableIfExists('sponsor_deals');
   await knex.schema.dropTableIfExists('sponsors');
-  for (const type of ['due_date_action', 'due_date_kind', 'placement_kind', 'deliverable_kind', 'invoice_state']) {
+  for (const type of ['approval_decision', 'due_date_action', 'due_date_kind', 'placement_kind', 'deliverable_kind', 'invoice_state']) {
     await knex.raw(`drop type if exists ${type}`);
   }
 }

@@ -8,7 +8,9 @@ import { dueStatus, type DueStatus } from '@/lib/shots/due';
 import { listMyShots } from '@/lib/shots/queries';
 import type { BoardShotDto } from '@/lib/shots/schemas';
 import { addDays } from '@/lib/sponsors/dates';
+import { listChangedSinceApproval } from '@/lib/sponsors/deliverable-queries';
 import { listOpenDueDates, type UpcomingDueDto } from '@/lib/sponsors/due-date-queries';
+import type { EditorDeliverableDto } from '@/lib/sponsors/schemas';
 
 /** The days ahead the dashboard looks for due dates. */
 export const DASHBOARD_DAYS_AHEAD = 14;
@@ -22,6 +24,8 @@ export type DashboardDto = {
   myShots: (BoardShotDto & { due: Exclude<DueStatus, null> })[] | null;
   /** Episodes between Outline and Edit, with forecast and shot progress. */
   inProgress: DashboardEpisode[];
+  /** Sponsor reads whose script changed after the sponsor approved it; for who reads sponsor reads. */
+  changedSinceApproval: (EditorDeliverableDto & { dealId: string })[] | null;
   /** For the Editor: the episodes at the Edit stage. */
   readyForEdit: DashboardEpisode[] | null;
 };
@@ -31,11 +35,12 @@ const inProgressStages = new Set(['outline', 'shoot', 'edit']);
 /** "What needs me": one read per section, filtered by the member's role. */
 export async function getDashboard(member: Membership, today: string): Promise<DashboardDto> {
   const channelId = member.channel.id;
-  const [episodes, progress, dueDates, shots] = await Promise.all([
+  const [episodes, progress, dueDates, shots, changed] = await Promise.all([
     listEpisodes(channelId, member.channel.speakingRateWpm, { archived: false }),
     shotProgressByEpisode(channelId),
     can(member.role, 'sponsors.manage') ? listOpenDueDates(channelId, addDays(today, DASHBOARD_DAYS_AHEAD)) : Promise.resolve(null),
     can(member.role, 'shots.changeState') ? listMyShots(channelId, member.userId) : Promise.resolve(null),
+    can(member.role, 'sponsors.readDisclosure') ? listChangedSinceApproval(channelId) : Promise.resolve(null),
   ]);
   const withShots = episodes.map((e) => ({ ...e, shotsTotal: progress.get(e.id)?.total ?? 0, shotsCaptured: progress.get(e.id)?.captured ?? 0 }));
   const myShots = shots
@@ -48,6 +53,7 @@ export async function getDashboard(member: Membership, today: string): Promise<D
     today,
     dueDates,
     myShots,
+    changedSinceApproval: changed,
     inProgress: withShots.filter((e) => inProgressStages.has(e.stage)),
     readyForEdit: member.role === 'editor' ? withShots.filter((e) => e.stage === 'edit') : null,
   };

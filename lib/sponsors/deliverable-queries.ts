@@ -4,6 +4,7 @@ import { db } from '@/db/client';
 import { invalidInput, notFound } from '@/lib/errors';
 import { forecastEpisode } from '@/lib/runtime';
 import type { ScriptDoc } from '@/lib/scripts/schemas';
+import { listApprovalLinks } from '@/lib/approvals/queries';
 import { checkDeliverable, type CheckResult } from '@/lib/sponsor-checks';
 import { insertDueDates, loadDueDates, refreshPaymentDue } from './due-date-queries';
 import { dealColumns, lockDeal, toSponsorDto, type DealRow } from './queries';
@@ -35,6 +36,9 @@ type DeliverableRow = {
   placement_value: number | null;
   owner_id: string | null;
   sponsor_name: string;
+  approved_script_version: number | null;
+  approved_at: Date | null;
+  segment_script_version: number | null;
 };
 
 const deliverableColumns = [
@@ -55,7 +59,14 @@ const deliverableColumns = [
   'x.placement_value',
   'x.owner_id',
   'sp.name as sponsor_name',
+  'x.approved_script_version',
+  'x.approved_at',
+  's.script_version as segment_script_version',
 ];
+
+/** Approved at one script version, and the read's script has been saved since. */
+const changedSinceApproval = (r: DeliverableRow) =>
+  r.approved_script_version !== null && r.segment_script_version !== null && r.segment_script_version !== r.approved_script_version;
 
 function deliverablesQuery(channelId: string) {
   return db('deliverables as x')
@@ -111,7 +122,8 @@ function checksFor(r: DeliverableRow, forecasts: Map<string, EpisodeForecastInfo
 }
 
 async function toDeliverableDtos(rows: DeliverableRow[], wordsPerMinute: number): Promise<DeliverableDto[]> {
-  const [dueDates, forecasts] = await Promise.all([loadDueDates(rows.map((r) => r.id)), forecastsFor(rows.map((r) => r.episode_id), wordsPerMinute)]);
+  const ids = rows.map((r) => r.id);
+  const [dueDates, forecasts, links] = await Promise.all([loadDueDates(ids), forecastsFor(rows.map((r) => r.episode_id), wordsPerMinute), listApprovalLinks(ids)]);
   return rows.map((r) => ({
     id: r.id,
     dealId: r.deal_id,
@@ -130,6 +142,8 @@ async function toDeliverableDtos(rows: DeliverableRow[], wordsPerMinute: number)
     ownerId: r.owner_id,
     dueDates: dueDates.get(r.id) ?? [],
     checks: checksFor(r, forecasts, wordsPerMinute),
+    approval: { approvedScriptVersion: r.approved_script_version, approvedAt: r.approved_at?.toISOString() ?? null, changedSinceApproval: changedSinceApproval(r) },
+    approvalLinks: links.get(r.id) ?? [],
   }));
 }
 
@@ -171,6 +185,7 @@ const toEditorDto = (r: DeliverableRow): EditorDeliverableDto => ({
   kind: r.kind,
   talkingPoints: r.talking_points,
   disclosure: r.disclosure,
+  changedSinceApproval: changedSinceApproval(r),
 });
 
 /**
@@ -285,4 +300,14 @@ export async function listEpisodeChoices(channelId: string): Promise<{ id: strin
     out.set(r.episode_id, e);
   }
   return [...out.values()];
+}
+
+/** Deliverables whose read changed after the sponsor approved it (dashboard). */
+export async function listChangedSinceApproval(channelId: string): Promise<(EditorDeliverableDto & { dealId: string })[]> {
+  const rows: DeliverableRow[] = await deliverablesQuery(channelId)
+    .whereNotNull('x.approved_script_version')
+    .whereRaw('s.script_version is distinct from x.approved_script_version')
+    .whereNotNull('x.segment_id')
+    .select(deliverableColumns);
+  return rows.map((r) => ({ ...toEditorDto(r), dealId: r.deal_id }));
 }

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { channelSlugSchema } from '@/lib/channels/schemas';
 import { dateSchema, durationSchema } from '@/lib/episodes/schemas';
+import type { ApprovalLinkDto } from '@/lib/approvals/schemas';
 import { scriptDocSchema, type ScriptDoc } from '@/lib/scripts/schemas';
 import type { CheckResult } from '@/lib/sponsor-checks';
 import { emailSchema } from '@/lib/users/schemas';
@@ -235,7 +236,12 @@ export type DeliverableDto = {
   ownerId: string | null;
   dueDates: DueDateDto[];
   checks: CheckResult[] | null;
+  approval: ApprovalStateDto;
+  approvalLinks: ApprovalLinkDto[];
 };
+
+/** The sponsor's approval: the script version approved, and whether the script moved on since. */
+export type ApprovalStateDto = { approvedScriptVersion: number | null; approvedAt: string | null; changedSinceApproval: boolean };
 
 export type DealDto = {
   id: string;
@@ -277,4 +283,5 @@ export type EditorDeliverableDto = {
   kind: DeliverableKind;
   talkingPoints: ScriptDoc | null;
   disclosure: string;
+  changedSinceApproval: boolean;
 };

@@ -34,6 +34,8 @@ import * as dealRoute from '@/app/api/channels/[channel]/deals/[dealId]/route';
 import * as deliverablesRoute from '@/app/api/channels/[channel]/deals/[dealId]/deliverables/route';
 import * as deliverableRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/route';
 import * as dueDateRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/due-dates/[kind]/route';
+import * as approvalLinksRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/approval-links/route';
+import * as approvalRoute from '@/app/api/approvals/[token]/route';
 import { createInvitation } from '@/lib/crew/queries';
 import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
@@ -44,7 +46,7 @@ import { makeDeal } from './sponsor-fixtures';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
@@ -111,6 +113,8 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'update deal', fn: dealRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, dealId: sponsor.deal.id } },
   { name: 'add deliverable', fn: deliverablesRoute.POST, method: 'POST', params: { channel: crew.channel.slug, dealId: sponsor.deal.id } },
   { name: 'update deliverable', fn: deliverableRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id } },
+  { name: 'send approval link', fn: approvalLinksRoute.POST, method: 'POST', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id } },
+  { name: 'decide approval', fn: approvalRoute.POST, method: 'POST', params: { token: 'C'.repeat(43) } },
   { name: 'update due date', fn: dueDateRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id, kind: 'go_live' } },
 ];
 

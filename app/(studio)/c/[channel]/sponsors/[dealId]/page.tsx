@@ -42,7 +42,7 @@ export default async function DealPage({ params }: { params: Promise<{ channel: 
           Deliverables
         </h2>
         {deal.deliverables.map((d) => (
-          <DeliverableCard key={d.id} channelSlug={slug} deliverable={d} episodes={episodes} crew={crewChoices} today={today} />
+          <DeliverableCard key={d.id} channelSlug={slug} deliverable={d} episodes={episodes} crew={crewChoices} today={today} contactEmail={deal.sponsor.contacts[0]?.email ?? ''} />
         ))}
         <AddDeliverable channelSlug={slug} dealId={deal.id} episodes={episodes} crew={crewChoices} startOpen={deal.deliverables.length === 0} />
       </section>

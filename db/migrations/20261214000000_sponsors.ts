@@ -118,6 +118,16 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp('approved_at', { useTz: true });
   });
 
+  // A person's calendar feed: the URL's secret is stored hashed; a new one replaces (revokes) the old.
+  await knex.schema.createTable('calendar_feeds', (t) => {
+    t.uuid('id').primary().defaultTo(knex.raw('gen_random_uuid()'));
+    t.uuid('user_id').notNullable().references('users.id').onDelete('CASCADE');
+    t.string('token_hash', 64).notNullable().unique();
+    t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
+    t.timestamp('revoked_at', { useTz: true });
+    t.index(['user_id']);
+  });
+
   // Days before an open due date that a reminder goes out; "once overdue" is always on.
   await knex.schema.alterTable('channels', (t) => {
     t.jsonb('reminder_days').notNullable().defaultTo(JSON.stringify([3, 1]));
@@ -139,6 +149,7 @@ export async function up(knex: Knex): Promise<void> {
 
 export async function down(knex: Knex): Promise<void> {
   await knex.schema.dropTableIfExists('reminder_sends');
+  await knex.schema.dropTableIfExists('calendar_feeds');
   await knex.schema.dropTableIfExists('approval_links');
   await knex.schema.alterTable('channels', (t) => {
     t.dropColumn('reminder_days');

@@ -36,6 +36,7 @@ import * as deliverableRoute from '@/app/api/channels/[channel]/deliverables/[de
 import * as dueDateRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/due-dates/[kind]/route';
 import * as approvalLinksRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/approval-links/route';
 import * as approvalRoute from '@/app/api/approvals/[token]/route';
+import * as calendarFeedRoute from '@/app/api/profile/calendar-feed/route';
 import { createInvitation } from '@/lib/crew/queries';
 import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
@@ -114,6 +115,7 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'add deliverable', fn: deliverablesRoute.POST, method: 'POST', params: { channel: crew.channel.slug, dealId: sponsor.deal.id } },
   { name: 'update deliverable', fn: deliverableRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id } },
   { name: 'send approval link', fn: approvalLinksRoute.POST, method: 'POST', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id } },
+  { name: 'make calendar feed', fn: calendarFeedRoute.POST, method: 'POST', params: {} },
   { name: 'decide approval', fn: approvalRoute.POST, method: 'POST', params: { token: 'C'.repeat(43) } },
   { name: 'update due date', fn: dueDateRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id, kind: 'go_live' } },
 ];

@@ -1,7 +1,7 @@
 import type { Page } from '@playwright/test';
 import type { EpisodeSummaryDto } from '@/lib/episodes/schemas';
 import type { BoardDto } from '@/lib/segments/schemas';
-import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test } from './fixtures';
+import { DEMO_SLUG, demo, expect, expectAccessible, signIn, test, waitForMail } from './fixtures';
 
 const api = `/api/channels/${DEMO_SLUG}`;
 
@@ -17,17 +17,21 @@ async function demoBoard(page: Page) {
 
 const check = (page: Page, name: string) => page.locator(`[data-check="${name}"]`).first();
 
-test('a host books a read on the demo episode and sees placement follow the running order', async ({ page }) => {
+test('a host books a read on the demo episode, sees placement follow the running order, and gets the sponsor approval', async ({ page, browser }) => {
+  // A long journey through five pages and two browsers: more than the default 60 s on a busy 2-core box.
+  test.setTimeout(240_000);
   await page.setViewportSize({ width: 1280, height: 1100 });
   await signIn(page, demo.host);
-  const sponsorName = `Larchmoor Clamps ${Date.now()}`;
+  const stamp = Date.now();
+  const sponsorName = `Larchmoor Clamps ${stamp}`;
+  const contact = `pell.${stamp}@larchmoor.test`;
   await page.goto(`/c/${DEMO_SLUG}/sponsors`);
   await expectAccessible(page);
   const newDeal = page.getByRole('form', { name: 'New deal' });
   await newDeal.getByLabel('Sponsor', { exact: true }).selectOption({ label: 'New sponsor…' });
   await newDeal.getByLabel('Sponsor name').fill(sponsorName);
   await newDeal.getByLabel('Contact name').fill('Pell Andrade');
-  await newDeal.getByLabel('Contact e-mail').fill('pell@larchmoor.test');
+  await newDeal.getByLabel('Contact e-mail').fill(contact);
   await newDeal.getByLabel('Deal title').fill('Bar clamp read');
   await newDeal.getByLabel('Fee').fill('1250.00');
   await newDeal.getByLabel('Currency').fill('EUR');
@@ -69,6 +73,34 @@ test('a host books a read on the demo episode and sees placement follow the runn
   }
   await page.goto(dealUrl);
   await expect(check(page, 'placement')).toHaveAttribute('data-status', 'pass');
+
+  // The sponsor approves from the caught mail, without signing in, in a browser of their own.
+  await page.getByRole('button', { name: 'Send approval link' }).click();
+  await expect(page.getByRole('status').filter({ hasText: `Link sent to ${contact}.` })).toBeVisible();
+  const mail = await waitForMail(contact);
+  const link = /https?:\/\/\S+\/approve\/[A-Za-z0-9_-]+/.exec(mail.text)![0];
+  const sponsorContext = await browser.newContext();
+  const sponsorPage = await sponsorContext.newPage();
+  await sponsorPage.goto(new URL(link).pathname);
+  await expect(sponsorPage.getByRole('heading', { name: /The sponsor read in “One Stool, Three Ways”/ })).toBeVisible();
+  await expect(sponsorPage.getByText('Quick-release bar clamps, one hand.')).toBeVisible();
+  await expect(sponsorPage.locator('body')).not.toContainText('€');
+  await expectAccessible(sponsorPage);
+  await sponsorPage.getByRole('button', { name: 'Approve' }).click();
+  await expect(sponsorPage.getByRole('status').filter({ hasText: 'You approved this read.' })).toBeVisible();
+  await sponsorContext.close();
+
+  await page.goto(dealUrl);
+  await expect(page.locator('[data-approval="approved"]')).toBeVisible();
+  const { script } = (await (await page.request.get(`${api}/segments/${read.id}/script`)).json()) as { script: { doc: unknown; version: number } };
+  const doc = script.doc as { type: 'doc'; content: unknown[] };
+  const edited = { ...doc, content: [...doc.content, { type: 'paragraph', content: [{ type: 'text', text: 'Link below.' }] }] };
+  expect((await page.request.put(`${api}/segments/${read.id}/script`, { data: { doc: edited, baseVersion: script.version } })).status()).toBe(200);
+  await page.goto(dealUrl);
+  await expect(page.locator('[data-approval="changed"]')).toBeVisible();
+  await page.goto(`/c/${DEMO_SLUG}`);
+  await expect(page.getByRole('heading', { name: 'Changed since approval' })).toBeVisible();
+  await expectAccessible(page);
 
   await page.goto(`/c/${DEMO_SLUG}/sponsors`);
   await expect(page.getByRole('link', { name: sponsorName })).toBeVisible();

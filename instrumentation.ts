@@ -12,6 +12,10 @@ export async function register(): Promise<void> {
     const { startShotMailWorker } = await import('./lib/mail/assignment-worker');
     startShotMailWorker();
   }
+  if (env.KERFLINE_REMINDER_WORKER) {
+    const { startReminderWorker } = await import('./lib/reminders/worker');
+    startReminderWorker();
+  }
   {
     const { warmPlanPool } = await import('./lib/cut-plans/plan-pool');
     warmPlanPool().catch((err: unknown) => console.error('cut plan workers', err));

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { DEMO_CHANNEL, seedDemo } from './seeds/demo';
 import { seedDemoEpisode } from './seeds/demo-episode';
 import { seedDemoShots } from './seeds/demo-shots';
+import { seedDemoSponsor } from './seeds/demo-sponsor';
 import { seedDemoStock } from './seeds/demo-stock';
 
 type SeedStep = { key: string; run: (trx: Knex.Transaction) => Promise<void> };
@@ -29,6 +30,13 @@ const steps: SeedStep[] = [
     run: async (trx) => {
       const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
       if (channel) await seedDemoShots(trx, channel.id as string);
+    },
+  },
+  {
+    key: 'demo_sponsor_seeded',
+    run: async (trx) => {
+      const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
+      if (channel) await seedDemoSponsor(trx, channel.id as string);
     },
   },
 ];

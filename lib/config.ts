@@ -76,6 +76,13 @@ const envSchema = z.object({
   SHOT_MAIL_POLL_MS: number(10_000, { min: 'positive' }),
   KERFLINE_MAIL_WORKER: switchedOn,
   KERFLINE_CLIP_WORKER: switchedOn,
+  KERFLINE_REMINDER_WORKER: switchedOn,
+  REMINDER_POLL_MS: number(60_000, { min: 'positive' }),
+  // Test-only: the app's clock adds an offset kept in app_meta (lib/clock/queries.ts); never set in production.
+  KERFLINE_TEST_CLOCK: z
+    .string()
+    .optional()
+    .transform((raw) => raw === '1'),
   CLIP_JOB_POLL_MS: number(2000, { min: 'positive' }),
   UPLOAD_DIR: text('.data/uploads'),
   POSTER_DIR: optionalText,

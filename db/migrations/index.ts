@@ -7,6 +7,7 @@ import * as clips from './20261203000000_clips';
 import * as episodeDateOrder from './20261212000000_episode_date_order';
 import * as byteRemovals from './20261212000001_byte_removals';
 import * as sessionsAndLimits from './20261213000000_sessions_and_limits';
+import * as sponsors from './20261214000000_sponsors';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -21,6 +22,7 @@ const migrations: Record<string, Migration> = {
   '20261212000000_episode_date_order': episodeDateOrder,
   '20261212000001_byte_removals': byteRemovals,
   '20261213000000_sessions_and_limits': sessionsAndLimits,
+  '20261214000000_sponsors': sponsors,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -32,16 +32,27 @@ import * as starterRoute from '@/app/api/channels/[channel]/episodes/[episodeId]
 import * as duplicateRoute from '@/app/api/channels/[channel]/shots/[shotId]/duplicate/route';
 import * as restoreRoute from '@/app/api/channels/[channel]/shots/[shotId]/restore/route';
 import * as shotMailRoute from '@/app/api/channels/[channel]/shot-mail/route';
+import * as sponsorsRoute from '@/app/api/channels/[channel]/sponsors/route';
+import * as sponsorRoute from '@/app/api/channels/[channel]/sponsors/[sponsorId]/route';
+import * as dealsRoute from '@/app/api/channels/[channel]/deals/route';
+import * as dealRoute from '@/app/api/channels/[channel]/deals/[dealId]/route';
+import * as deliverablesRoute from '@/app/api/channels/[channel]/deals/[dealId]/deliverables/route';
+import * as deliverableRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/route';
+import * as dueDateRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/due-dates/[kind]/route';
+import * as approvalLinksRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/approval-links/route';
+import * as approvalRoute from '@/app/api/approvals/[token]/route';
+import * as calendarFeedRoute from '@/app/api/profile/calendar-feed/route';
 import { createInvitation } from '@/lib/crew/queries';
 import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
 import { createStock } from '@/lib/stock/queries';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew, makeUser, uniqueEmail } from './helpers';
+import { makeDeal } from './sponsor-fixtures';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
@@ -60,6 +71,7 @@ let buildId: string;
 let stockId: string;
 let partId: string;
 let shotId: string;
+let sponsor: Awaited<ReturnType<typeof makeDeal>>;
 beforeAll(async () => {
   crew = await makeCrew();
   const outlined = await makeOutlinedEpisode(crew);
@@ -70,6 +82,7 @@ beforeAll(async () => {
   partId = (await createPart(crew.channel.id, buildId, { name: 'Leg', quantity: 4, lengthIn: 20, widthIn: null, thicknessIn: null, stockItemId: stockId, grain: 'any', note: '' })).id;
   shotId = (await createShot(crew.channel.id, buildId, { description: 'Rip the legs', framing: 'wide', camera: 'a_cam', assigneeId: crew.shopHand.id, dueDate: null, notes: '' })).id;
   invitationId = (await createInvitation(crew.channel.id, crew.host.id, { email: uniqueEmail('fuzz'), role: 'editor' })).invitation.id;
+  sponsor = await makeDeal(crew);
 });
 
 const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: string; params: Record<string, string> }[] => [
@@ -100,6 +113,16 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'shot state', fn: shotStateRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, shotId } },
   { name: 'segment tools', fn: toolsRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId: buildId } },
   { name: 'safety review', fn: safetyReviewRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, segmentId: buildId } },
+  { name: 'add sponsor', fn: sponsorsRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },
+  { name: 'update sponsor', fn: sponsorRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, sponsorId: sponsor.sponsor.id } },
+  { name: 'add deal', fn: dealsRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },
+  { name: 'update deal', fn: dealRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, dealId: sponsor.deal.id } },
+  { name: 'add deliverable', fn: deliverablesRoute.POST, method: 'POST', params: { channel: crew.channel.slug, dealId: sponsor.deal.id } },
+  { name: 'update deliverable', fn: deliverableRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id } },
+  { name: 'send approval link', fn: approvalLinksRoute.POST, method: 'POST', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id } },
+  { name: 'make calendar feed', fn: calendarFeedRoute.POST, method: 'POST', params: {} },
+  { name: 'decide approval', fn: approvalRoute.POST, method: 'POST', params: { token: 'C'.repeat(43) } },
+  { name: 'update due date', fn: dueDateRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, deliverableId: sponsor.deliverable.id, kind: 'go_live' } },
 ];
 
 type ShapedRun = [name: string, fn: Parameters<typeof call>[0], method: string, params: Record<string, string>, body: fc.Arbitrary<unknown>];
@@ -295,6 +318,72 @@ describe('no shot body makes a 500', () => {
         fc.record({ state: fc.constantFrom('planned', 'captured', 'retake', 'lost'), reason: fc.string({ maxLength: 310 }), afterId: fc.oneof(fc.uuid(), fc.constant(null), fc.constant(shotId)) }, { requiredKeys: [] }),
       ],
       ['segment tools', toolsRoute.PUT, 'PUT', { channel: ch, segmentId: buildId }, fc.record({ tools: fc.array(fc.constantFrom('router', 'other', 'lathe', 'table_saw')), otherTool: fc.string({ maxLength: 90 }) }, { requiredKeys: [] })],
+    ];
+    await assertNo500(runs, 60);
+  });
+});
+
+// Sponsor bodies near the real shape: amounts, currencies, invoice states with and without their dates.
+const money = fc.oneof(fc.integer({ min: -5, max: 200_000_000_000 }), fc.double(), fc.constantFrom('2500', 1e21, -0));
+const currency = fc.constantFrom('USD', 'EUR', 'JPY', 'usd', 'XXQ', '', 'EURO');
+const seconds = fc.oneof(fc.integer({ min: -5, max: 40_000 }), fc.constantFrom('1:30', '99:99', '0:00', '1:00:00', 'soon', null));
+
+describe('no sponsor body makes a 500', () => {
+  it('for deal-, deliverable- and due-date-shaped bodies', async () => {
+    const ch = crew.channel.slug;
+    const { deal, deliverable, episode, read } = sponsor;
+    const deliverableBody = fc.record(
+      {
+        episodeId: fc.oneof(fc.constant(episode.id), fc.constant(episodeId), fc.uuid(), fc.constant('x')),
+        segmentId: fc.oneof(fc.constant(read.id), fc.constant(segmentId), fc.uuid(), fc.constant(null)),
+        kind: fc.constantFrom('segment_read', 'social_post', 'billboard'),
+        mustSay: fc.array(fc.string({ maxLength: 210 }), { maxLength: 22 }),
+        disclosure: fc.string({ maxLength: 510 }),
+        tracking: fc.string({ maxLength: 20 }),
+        readMinSeconds: seconds,
+        readMaxSeconds: seconds,
+        placement: fc.oneof(
+          fc.constant(null),
+          fc.record({ kind: fc.constantFrom('starts_before', 'within_percent', 'after'), seconds, percent: fc.oneof(fc.integer({ min: -1, max: 101 }), fc.double()) }, { requiredKeys: ['kind'] }),
+        ),
+        ownerId: fc.oneof(fc.constant(crew.editor.id), fc.uuid(), fc.constant(null)),
+        dueDates: fc.dictionary(fc.constantFrom('script_due', 'go_live', 'payment_due', 'launch'), day),
+      },
+      { requiredKeys: [] },
+    );
+    const dealBody = fc.record(
+      {
+        sponsorId: fc.oneof(fc.constant(sponsor.sponsor.id), fc.uuid(), fc.constant('x')),
+        title: fc.string({ maxLength: 170 }),
+        feeMinor: money,
+        currency,
+        paymentTermsDays: fc.oneof(fc.integer({ min: -1, max: 400 }), fc.double()),
+        invoiceState: fc.constantFrom('not_sent', 'sent', 'paid', 'lost'),
+        invoiceSentOn: day,
+        paidOn: day,
+        notes: fc.string({ maxLength: 30 }),
+      },
+      { requiredKeys: [] },
+    );
+    const runs: ShapedRun[] = [
+      ['add deal', dealsRoute.POST, 'POST', { channel: ch }, dealBody],
+      ['update deal', dealRoute.PATCH, 'PATCH', { channel: ch, dealId: deal.id }, dealBody],
+      ['add deliverable', deliverablesRoute.POST, 'POST', { channel: ch, dealId: deal.id }, deliverableBody],
+      ['update deliverable', deliverableRoute.PATCH, 'PATCH', { channel: ch, deliverableId: deliverable.id }, deliverableBody],
+      [
+        'update due date',
+        dueDateRoute.PATCH,
+        'PATCH',
+        { channel: ch, deliverableId: deliverable.id, kind: 'payment_due' },
+        fc.record({ dueOn: day, done: fc.oneof(fc.boolean(), fc.constant('yes')) }, { requiredKeys: [] }),
+      ],
+      [
+        'add sponsor',
+        sponsorsRoute.POST,
+        'POST',
+        { channel: ch },
+        fc.record({ name: fc.string({ maxLength: 130 }), contacts: fc.array(fc.record({ name: fc.string({ maxLength: 5 }), email: fc.constantFrom('a@b.test', 'nope', '') }), { maxLength: 11 }) }, { requiredKeys: [] }),
+      ],
     ];
     await assertNo500(runs, 60);
   });

@@ -4,6 +4,7 @@ import { db } from '@/db/client';
 import { AppServer } from './app-server';
 import { makeOutlinedEpisode } from '../integration/episode-fixtures';
 import { PASSWORD, makeCrew, makeUser, sessionCookie } from '../integration/helpers';
+import { makeDeal } from '../integration/sponsor-fixtures';
 
 // Real HTTP against the built app: status codes of streamed pages, and what the server takes as
 // the client's address, are only visible there. Its own port, next to the upload tests' one.
@@ -38,6 +39,17 @@ describe('pages answer real 404 and 403 statuses (issue 12 item 15)', () => {
     const crew = await makeCrew();
     expect((await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.editor))).status).toBe(403);
     expect((await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.host))).status).toBe(200);
+  });
+
+  it('sponsor pages: a shop hand gets 403 on the list, an editor 403 on a deal, an outsider 404 on another channel’s deal', async () => {
+    const crew = await makeCrew();
+    const { deal } = await makeDeal(crew);
+    const outsider = await makeCrew();
+    expect((await page(`/c/${crew.channel.slug}/sponsors`, await sessionCookie(crew.shopHand))).status).toBe(403);
+    expect((await page(`/c/${crew.channel.slug}/sponsors`, await sessionCookie(crew.editor))).status).toBe(200);
+    expect((await page(`/c/${crew.channel.slug}/sponsors/${deal.id}`, await sessionCookie(crew.editor))).status).toBe(403);
+    expect((await page(`/c/${outsider.channel.slug}/sponsors/${deal.id}`, await sessionCookie(outsider.host))).status).toBe(404);
+    expect((await page(`/c/${crew.channel.slug}/sponsors/${deal.id}`, await sessionCookie(crew.host))).status).toBe(200);
   });
 
   it('a signed-out session sends pages to sign-in, not into the channel (issue 12 item 10)', async () => {

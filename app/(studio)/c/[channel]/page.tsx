@@ -1,40 +1,28 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { buttonClasses } from '@/components/ui/button';
-import { EmptyState } from '@/components/ui/empty-state';
+import { DashboardView } from '@/components/dashboard/dashboard-view';
 import { PageHeader } from '@/components/ui/page-header';
 import { can, roleLabels } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
 import { channelPage } from '@/lib/api/paths';
+import { getDashboard } from '@/lib/dashboard/queries';
+import { dayOf } from '@/lib/sponsors/dates';
 
 export const metadata: Metadata = { title: 'Dashboard' };
 
 export default async function DashboardPage({ params }: { params: Promise<{ channel: string }> }) {
   const { channel } = await params;
   const member = await requireMember(channel);
-  const crew = await listCrew(member.channel.id);
+  const [crew, dashboard] = await Promise.all([listCrew(member.channel.id), getDashboard(member, dayOf(new Date()))]);
   const base = channelPage(member.channel.slug);
   return (
     <>
       <PageHeader title={member.channel.name}>
         Signed in as {member.user.name}, {roleLabels[member.role]}.
       </PageHeader>
-      <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
-        <EmptyState
-          title="No episodes yet"
-          action={
-            can(member.role, 'episodes.edit') ? (
-              <Link href={`${base}/episodes`} className={buttonClasses('primary')}>
-                Go to episodes
-              </Link>
-            ) : undefined
-          }
-        >
-          {can(member.role, 'episodes.edit')
-            ? 'Outline your first episode: its running order, scripts and runtime forecast will show here.'
-            : 'When a Host outlines an episode, its running order and what needs you will show here.'}
-        </EmptyState>
+      <div className="grid gap-6 xl:grid-cols-[3fr_1fr]">
+        <DashboardView data={dashboard} slug={member.channel.slug} canEditEpisodes={can(member.role, 'episodes.edit')} />
         <section className="rounded-card border border-paper-edge bg-white/60 p-5 shadow-card" aria-labelledby="crew-heading">
           <h2 id="crew-heading" className="font-bold">
             Crew

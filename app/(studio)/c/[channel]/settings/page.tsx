@@ -1,11 +1,13 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { CalendarFeedPanel } from '@/components/calendar/calendar-feed-panel';
 import { ProfileForm } from '@/components/profile/profile-form';
 import { SignOutEverywhere } from '@/components/profile/sign-out-everywhere';
 import { ChannelSettingsForm } from '@/components/settings/channel-settings-form';
 import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
+import { hasCalendarFeed } from '@/lib/calendar/queries';
 import { getProfile } from '@/lib/users/queries';
 import { channelPage } from '@/lib/api/paths';
 
@@ -14,7 +16,7 @@ export const metadata: Metadata = { title: 'Settings' };
 export default async function SettingsPage({ params }: { params: Promise<{ channel: string }> }) {
   const member = await requireMember((await params).channel);
   const host = can(member.role, 'channel.settings');
-  const profile = await getProfile(member.userId);
+  const [profile, feedActive] = await Promise.all([getProfile(member.userId), hasCalendarFeed(member.userId)]);
   return (
     <>
       <PageHeader title="Settings">Your profile, channel settings{host ? ' and crew' : ''}.</PageHeader>
@@ -31,6 +33,12 @@ export default async function SettingsPage({ params }: { params: Promise<{ chann
         </h2>
         <ProfileForm profile={profile} />
         <SignOutEverywhere />
+      </section>
+      <section aria-labelledby="calendar-heading" className="mb-6 max-w-xl rounded-card border border-paper-edge bg-white/60 p-5 shadow-card">
+        <h2 id="calendar-heading" className="text-lg font-bold">
+          Calendar feed
+        </h2>
+        <CalendarFeedPanel initiallyActive={feedActive} />
       </section>
       <section aria-labelledby="channel-heading" className="max-w-xl rounded-card border border-paper-edge bg-white/60 p-5 shadow-card">
         <h2 id="channel-heading" className="text-lg font-bold">

@@ -26,6 +26,8 @@ import { listStock } from '@/lib/stock/queries';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
 import { channelPage } from '@/lib/api/paths';
 import { Stat } from '@/components/ui/stat';
+import { SegmentSponsorChecks } from '@/components/sponsors/segment-sponsor-checks';
+import { listSegmentDeliverables } from '@/lib/sponsors/deliverable-queries';
 
 export const metadata: Metadata = { title: 'Segment' };
 
@@ -50,6 +52,8 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
   const cut = build
     ? await Promise.all([listSegmentParts(member.channel.id, segment.id), listStock(member.channel.id), planSegment(member.channel.id, segment.id)])
     : null;
+  // Each script save refreshes this page, so the sponsor checks follow the script as it is written.
+  const sponsorReads = can(member.role, 'sponsors.readDisclosure') ? await listSegmentDeliverables(member.channel.id, segment.id, member.channel.speakingRateWpm) : [];
   const canWrite = can(member.role, 'scripts.write');
   // Only a Host or a Shop hand may hold a shot.
   const assignable = crew.filter((c) => c.role === 'host' || c.role === 'shop_hand').map((c) => ({ userId: c.userId, name: c.name }));
@@ -90,6 +94,7 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
           </div>
         )}
       </section>
+      {sponsorReads.length > 0 ? <SegmentSponsorChecks deliverables={sponsorReads} channelSlug={member.channel.slug} canManage={can(member.role, 'sponsors.manage')} /> : null}
       <section aria-labelledby="safety-heading" className="mt-8">
         <h2 id="safety-heading" className="mb-3 text-lg font-bold">
           Shop safety

@@ -1,0 +1,113 @@
+import ICAL from 'ical.js';
+import { describe, expect, it } from 'vitest';
+import * as feedRoute from '@/app/api/calendar/[token]/route';
+import * as myFeedRoute from '@/app/api/profile/calendar-feed/route';
+import { db } from '@/db/client';
+import { updateEpisode } from '@/lib/episodes/queries';
+import { createShot } from '@/lib/shots/queries';
+import { updateDueDate } from '@/lib/sponsors/due-date-queries';
+import type { UserDto } from '@/lib/users/schemas';
+import { call, makeCrew } from './helpers';
+import { makeDeal } from './sponsor-fixtures';
+
+const tokenOf = (url: string) => url.split('/api/calendar/')[1]!;
+
+async function feedUrl(user: UserDto) {
+  const res = await call(myFeedRoute.POST, 'POST', { as: user });
+  expect(res.status).toBe(201);
+  return res.json.url as string;
+}
+
+async function readFeed(url: string) {
+  const res = await feedRoute.GET(new (await import('next/server')).NextRequest(url), { params: Promise.resolve({ token: tokenOf(url) }) });
+  return { status: res.status, type: res.headers.get('content-type'), text: await res.text() };
+}
+
+type Parsed = { uid: string; summary: string; start: string; startType: string; sequence: number; stamp: string; alarms: string[] };
+
+/** Parses with ical.js (an independent RFC 5545 parser) into the fields the tests assert. */
+function parse(text: string): Parsed[] {
+  const cal = new ICAL.Component(ICAL.parse(text));
+  expect(cal.name).toBe('vcalendar');
+  expect(cal.getFirstPropertyValue('version')).toBe('2.0');
+  return cal.getAllSubcomponents('vevent').map((v) => {
+    const start = v.getFirstProperty('dtstart')!;
+    const stamp = v.getFirstPropertyValue('dtstamp') as ICAL.Time;
+    return {
+      uid: String(v.getFirstPropertyValue('uid')),
+      summary: String(v.getFirstPropertyValue('summary')),
+      start: String(start.getFirstValue()),
+      startType: start.type,
+      sequence: Number(v.getFirstPropertyValue('sequence')),
+      stamp: `${stamp.toString()}|${stamp.zone?.tzid ?? ''}`,
+      alarms: v.getAllSubcomponents('valarm').map((a) => String(a.getFirstPropertyValue('trigger'))),
+    };
+  });
+}
+
+describe('calendar feed', () => {
+  it('needs a session to make a feed URL', async () => {
+    expect((await call(myFeedRoute.POST, 'POST')).status).toBe(401);
+    expect((await call(myFeedRoute.DELETE, 'DELETE')).status).toBe(401);
+  });
+
+  it('gives the Host due dates, shoot and publish dates as all-day events with stable UIDs, UTC stamps and one alarm per reminder setting', async () => {
+    const c = await makeCrew();
+    const { episode, deliverable } = await makeDeal(c);
+    await updateEpisode(c.channel.id, episode.id, { shootDate: '2027-02-10', publishDate: '2027-03-20' });
+    const url = await feedUrl(c.host);
+    const res = await readFeed(url);
+    expect(res.status).toBe(200);
+    expect(res.type).toBe('text/calendar; charset=utf-8');
+    expect(res.text).not.toMatch(/250000|2,500|USD|fee/i);
+    // Source: RFC 5545 §3.8.7.2: DTSTAMP in UTC; ical.js accepts a missing one, so the text is checked too.
+    expect(res.text.match(/^DTSTAMP:\d{8}T\d{6}Z\r?$/gm)?.length).toBe(parse(res.text).length);
+    expect(res.text).not.toContain('TZID');
+    const events = parse(res.text);
+    const byUid = Object.fromEntries(events.map((e) => [e.uid, e]));
+    const due: { id: string; kind: string }[] = await db('due_dates').where({ deliverable_id: deliverable.id }).select('id', 'kind');
+    const dueId = (k: string) => due.find((d) => d.kind === k)!.id;
+    expect(byUid[`shoot-${episode.id}@kerfline`]).toMatchObject({ summary: 'Shoot: Walnut step stool', start: '2027-02-10', startType: 'date', alarms: ['-P3D', '-P1D'] });
+    expect(byUid[`publish-${episode.id}@kerfline`]).toMatchObject({ start: '2027-03-20', startType: 'date' });
+    expect(byUid[`due-${dueId('script_due')}@kerfline`]).toMatchObject({ summary: 'Script due: Bramblewick Abrasives (Walnut step stool)', start: '2027-03-01', startType: 'date' });
+    expect(byUid[`due-${dueId('payment_due')}@kerfline`]!.start).toBe('2027-04-19');
+    expect(byUid[`due-${dueId('script_due')}@kerfline`]!.stamp).toMatch(/Z\|UTC$/);
+    // A due date without a date is no event.
+    expect(byUid[`due-${dueId('report_due')}@kerfline`]).toBeUndefined();
+
+    // Moving a date keeps its UID and bumps its SEQUENCE; done dates leave the feed.
+    const before = byUid[`due-${dueId('script_due')}@kerfline`]!.sequence;
+    await updateDueDate(c.channel.id, deliverable.id, 'script_due', { dueOn: '2027-03-03' }, c.host.id);
+    const moved = Object.fromEntries(parse((await readFeed(url)).text).map((e) => [e.uid, e]));
+    expect(moved[`due-${dueId('script_due')}@kerfline`]).toMatchObject({ start: '2027-03-03' });
+    expect(moved[`due-${dueId('script_due')}@kerfline`]!.sequence).toBeGreaterThan(before);
+    await updateDueDate(c.channel.id, deliverable.id, 'script_due', { done: true }, c.host.id);
+    expect(parse((await readFeed(url)).text).some((e) => e.uid === `due-${dueId('script_due')}@kerfline`)).toBe(false);
+  });
+
+  it('filters by role: the Shop hand gets shoot dates and their shots, the Editor no sponsor dates', async () => {
+    const c = await makeCrew();
+    const { episode, segments } = await makeDeal(c);
+    await updateEpisode(c.channel.id, episode.id, { shootDate: '2027-02-10', publishDate: '2027-03-20' });
+    const build = segments.find((s) => s.kind === 'build')!;
+    const shot = await createShot(c.channel.id, build.id, { description: 'Glue-up overhead', framing: 'overhead', camera: 'top_cam', assigneeId: c.shopHand.id, dueDate: '2027-02-09', notes: '' });
+    await db('channels').where({ id: c.channel.id }).update({ reminder_days: JSON.stringify([2]) });
+
+    const shop = parse((await readFeed(await feedUrl(c.shopHand))).text);
+    expect(shop.map((e) => e.uid).sort()).toEqual([`shoot-${episode.id}@kerfline`, `shot-${shot.id}@kerfline`].sort());
+    expect(shop.find((e) => e.uid.startsWith('shot-'))).toMatchObject({ summary: 'Shot due: Glue-up overhead (Walnut step stool)', start: '2027-02-09', alarms: ['-P2D'] });
+
+    const editor = parse((await readFeed(await feedUrl(c.editor))).text);
+    expect(editor.map((e) => e.uid).sort()).toEqual([`publish-${episode.id}@kerfline`, `shoot-${episode.id}@kerfline`].sort());
+  });
+
+  it('stops answering a revoked or replaced URL', async () => {
+    const c = await makeCrew();
+    const first = await feedUrl(c.host);
+    const second = await feedUrl(c.host);
+    expect((await readFeed(first)).status).toBe(404);
+    expect((await readFeed(second)).status).toBe(200);
+    expect((await call(myFeedRoute.DELETE, 'DELETE', { as: c.host })).status).toBe(204);
+    expect((await readFeed(second)).status).toBe(404);
+  });
+});

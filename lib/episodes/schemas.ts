@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { channelSlugSchema } from '@/lib/channels/schemas';
+import type { EditStage } from '@/lib/edit/stages';
 import { parseDuration } from '@/lib/runtime';
+import { frameRateIds, type FrameRateId } from '@/lib/timecode';
 
 export const episodeStages = ['idea', 'outline', 'shoot', 'edit', 'published'] as const;
 export type EpisodeStage = (typeof episodeStages)[number];
@@ -41,6 +43,7 @@ const episodeFields = {
   publishDate: dateSchema.nullable(),
   levelLabels: z.tuple([levelLabelSchema, levelLabelSchema, levelLabelSchema]),
   archived: z.boolean(),
+  frameRate: z.enum(frameRateIds, { error: 'Choose a frame rate.' }),
 };
 
 const datesInOrder = (v: { shootDate?: string | null; publishDate?: string | null }) =>
@@ -69,6 +72,7 @@ export const updateEpisodeSchema = z
     publishDate: episodeFields.publishDate.optional(),
     levelLabels: episodeFields.levelLabels.optional(),
     archived: episodeFields.archived.optional(),
+    frameRate: episodeFields.frameRate.optional(),
   })
   .refine(datesInOrder, datesMessage);
 export type UpdateEpisodeInput = z.infer<typeof updateEpisodeSchema>;
@@ -91,6 +95,9 @@ export type EpisodeDto = {
   levelLabels: [string, string, string];
   archived: boolean;
   updatedAt: string;
+  /** The rate the edit runs at: timecodes of notes and exports count frames at it. */
+  frameRate: FrameRateId;
+  editStage: EditStage | null;
 };
 
 export type EpisodeSummaryDto = EpisodeDto & { segmentCount: number; forecastSeconds: number };

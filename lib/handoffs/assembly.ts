@@ -93,3 +93,6 @@ export function packageClips(assembly: Assembly): AssemblyClip[] {
   const order = new Map(assembly.folders.map((f, i) => [f.segment.id, i]));
   return all.sort((a, b) => order.get(a.segment.id)! - order.get(b.segment.id)! || a.path.localeCompare(b.path));
 }
+
+/** Every clip of the snapshot, in running order. */
+export const clipsOfAll = (snapshot: HandoffSnapshot): SnapshotClip[] => snapshot.segments.flatMap((s) => [...s.shots.flatMap((sh) => sh.clips), ...s.otherClips]);

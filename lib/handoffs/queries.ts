@@ -215,3 +215,15 @@ export async function recordHandoffRead(episodeId: string, userId: string, versi
   );
   return result.rows[0]?.previous ?? null;
 }
+
+/** Upload ids of the clips that still exist, by clip id, in one statement. */
+export async function findClipUploads(channelId: string, clipIds: string[]): Promise<Map<string, string>> {
+  if (clipIds.length === 0) return new Map();
+  const rows: { id: string; upload_id: string }[] = await db('clips as c')
+    .join('segments as s', 's.id', 'c.segment_id')
+    .join('episodes as e', 'e.id', 's.episode_id')
+    .where('e.channel_id', channelId)
+    .whereIn('c.id', clipIds)
+    .select('c.id', 'c.upload_id');
+  return new Map(rows.map((r) => [r.id, r.upload_id]));
+}

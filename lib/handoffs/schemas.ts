@@ -27,3 +27,8 @@ export type HandoffSummaryDto = {
   lockedAt: string;
   segmentCount: number;
 };
+
+export const exportFormats = ['csv', 'otio', 'edl', 'zip', 'json'] as const;
+export type ExportFormat = (typeof exportFormats)[number];
+export const exportParamsSchema = handoffParamsSchema.extend({ format: z.enum(exportFormats) });
+export const segmentPackageParamsSchema = handoffParamsSchema.extend({ segmentId: z.uuid() });

@@ -6,13 +6,16 @@ import { PageHeader } from '@/components/ui/page-header';
 import { can, roleLabels } from '@/lib/auth/policy';
 import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
+import { editStageLabels } from '@/lib/edit/stages';
+import { listEpisodes } from '@/lib/episodes/queries';
 
 export const metadata: Metadata = { title: 'Dashboard' };
 
 export default async function DashboardPage({ params }: { params: Promise<{ channel: string }> }) {
   const { channel } = await params;
   const member = await requireMember(channel);
-  const crew = await listCrew(member.channel.id);
+  const [crew, episodes] = await Promise.all([listCrew(member.channel.id), listEpisodes(member.channel.id, member.channel.speakingRateWpm, { archived: false })]);
+  const inEdit = episodes.filter((e) => e.editStage !== null);
   const base = `/c/${member.channel.slug}`;
   return (
     <>
@@ -34,7 +37,24 @@ export default async function DashboardPage({ params }: { params: Promise<{ chan
             ? 'Outline your first episode: its running order, scripts and runtime forecast will show here.'
             : 'When a Host outlines an episode, its running order and what needs you will show here.'}
         </EmptyState>
-        <section className="rounded-card border border-paper-edge bg-white/60 p-5 shadow-card" aria-labelledby="crew-heading">
+        {inEdit.length ? (
+          <section className="rounded-card border border-paper-edge bg-white/60 p-5 shadow-card lg:col-start-1" aria-labelledby="edit-heading">
+            <h2 id="edit-heading" className="font-bold">
+              In the edit
+            </h2>
+            <ul className="mt-3 space-y-1 text-sm">
+              {inEdit.map((e) => (
+                <li key={e.id} className="flex justify-between gap-2">
+                  <Link href={`${base}/episodes/${e.id}`} className="inline-flex min-h-touch items-center truncate underline">
+                    {e.title}
+                  </Link>
+                  <span className="inline-flex items-center font-bold">{e.editStage ? editStageLabels[e.editStage] : ''}</span>
+                </li>
+              ))}
+            </ul>
+          </section>
+        ) : null}
+        <section className="rounded-card border border-paper-edge bg-white/60 p-5 shadow-card lg:col-start-2 lg:row-start-1" aria-labelledby="crew-heading">
           <h2 id="crew-heading" className="font-bold">
             Crew
           </h2>

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { DEMO_CHANNEL, seedDemo } from './seeds/demo';
 import { seedDemoEpisode } from './seeds/demo-episode';
+import { seedDemoHandoff } from './seeds/demo-handoff';
 import { seedDemoShots } from './seeds/demo-shots';
 import { seedDemoStock } from './seeds/demo-stock';
 
@@ -29,6 +30,13 @@ const steps: SeedStep[] = [
     run: async (trx) => {
       const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
       if (channel) await seedDemoShots(trx, channel.id as string);
+    },
+  },
+  {
+    key: 'demo_handoff_seeded',
+    run: async (trx) => {
+      const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
+      if (channel) await seedDemoHandoff(trx, channel.id as string);
     },
   },
 ];

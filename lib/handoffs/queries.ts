@@ -5,16 +5,11 @@ import type { Membership } from '@/lib/channels/queries';
 import { appUrl } from '@/lib/config';
 import { notFound } from '@/lib/errors';
 import { sendMail } from '@/lib/mail/mailer';
-import type { ScriptDoc } from '@/lib/scripts/schemas';
-import type { Level, SegmentKind } from '@/lib/segments/schemas';
-import type { Tool } from '@/lib/shots/safety';
-import { isFrameRateId } from '@/lib/timecode';
 import type { UserDto } from '@/lib/users/schemas';
-import { buildSnapshot, type SnapshotClipInput, type SnapshotShotInput } from './build';
 import { buildHandoffMail } from './mail';
 import type { HandoffSummaryDto, LockHandoffInput } from './schemas';
-import { hashContent, parseSnapshot, serializeSnapshot, type HandoffSnapshot } from './snapshot';
-import { listSnapshotDeliverables } from './sponsor-deliverables';
+import { insertHandoffVersion } from './lock';
+import { parseSnapshot, type HandoffSnapshot } from './snapshot';
 
 export const handoffPath = (slug: string, episodeId: string, version: number) => `/c/${slug}/episodes/${episodeId}/handoff/${version}`;
 
@@ -48,108 +43,14 @@ const channelHandoffs = (trx: Knex | Knex.Transaction, channelId: string, episod
     .leftJoin('users as u', 'u.id', 'h.locked_by')
     .where({ 'e.channel_id': channelId, 'h.episode_id': episodeId });
 
-type EpisodeLockRow = { id: string; title: string; premise: string; frame_rate: string; target_seconds: number | null; level_labels: unknown };
-type SegmentRow = { id: string; kind: SegmentKind; level: number | null; title: string; script: ScriptDoc | null; word_count: number; action_seconds: number; tools: Tool[]; safety_reviewed_at: Date | null };
-type ShotRow = { id: string; segment_id: string; description: string; framing: SnapshotShotInput['framing']; camera: SnapshotShotInput['camera']; state: SnapshotShotInput['state']; retake_reason: string | null };
-type ClipRow = { id: string; segment_id: string; shot_id: string | null; original_name: string; mime_type: string; size_bytes: string; duration_seconds: number | null; frame_rate: number | null; sha256: string; has_poster: boolean };
-
-const labelsOf = (v: unknown): [string, string, string] => {
-  const a = Array.isArray(v) ? v : [];
-  return [0, 1, 2].map((i) => (typeof a[i] === 'string' ? (a[i] as string) : ['Starter', 'Intermediate', 'Advanced'][i]!)) as [string, string, string];
-};
-
 /**
  * Locks the next version. The episode's row lock serialises concurrent locks, so each gets its own
- * number; the snapshot is read inside the same transaction. Statements per call do not grow with the
- * episode: lock, next number, segments, shots, clips, (deliverables), insert.
+ * number; the snapshot is read inside the same transaction.
  */
 export async function lockHandoff(member: Membership, user: UserDto, episodeId: string, input: LockHandoffInput): Promise<HandoffSummaryDto> {
-  const summary = await db.transaction(async (trx) => {
-    const episode: EpisodeLockRow | undefined = await trx('episodes')
-      .where({ id: episodeId, channel_id: member.channel.id })
-      .forUpdate()
-      .first('id', 'title', 'premise', 'frame_rate', 'target_seconds', 'level_labels');
-    if (!episode) throw notFound('That episode');
-    const next: { version: number } = await trx('handoffs').where({ episode_id: episodeId }).first(trx.raw('coalesce(max(version), 0)::int + 1 as version'));
-    const segments: SegmentRow[] = await trx('segments')
-      .where({ episode_id: episodeId })
-      .orderBy('position')
-      .select('id', 'kind', 'level', 'title', 'script', 'word_count', 'action_seconds', 'tools', 'safety_reviewed_at');
-    const shots: ShotRow[] = await trx('shots as sh')
-      .join('segments as s', 's.id', 'sh.segment_id')
-      .where('s.episode_id', episodeId)
-      .whereNull('sh.deleted_at')
-      .orderBy([{ column: 's.position' }, { column: 'sh.position' }])
-      .select('sh.id', 'sh.segment_id', 'sh.description', 'sh.framing', 'sh.camera', 'sh.state', 'sh.retake_reason');
-    const clips: ClipRow[] = await trx('clips as c')
-      .join('segments as s', 's.id', 'c.segment_id')
-      .where('s.episode_id', episodeId)
-      .orderBy([{ column: 'c.created_at' }, { column: 'c.id' }])
-      .select('c.id', 'c.segment_id', 'c.shot_id', 'c.original_name', 'c.mime_type', 'c.size_bytes', 'c.duration_seconds', 'c.frame_rate', 'c.sha256', 'c.has_poster');
-    const lockedAt = new Date();
-    const snapshotBase = {
-      version: next.version,
-      lockedAt,
-      lockedBy: user.name,
-      note: input.note,
-      wordsPerMinute: member.channel.speakingRateWpm,
-      episode: {
-        id: episode.id,
-        title: episode.title,
-        premise: episode.premise,
-        frameRate: isFrameRateId(episode.frame_rate) ? episode.frame_rate : '29.97df',
-        targetSeconds: episode.target_seconds,
-        levelLabels: labelsOf(episode.level_labels),
-      },
-      segments: segments.map((s) => ({
-        id: s.id,
-        kind: s.kind,
-        level: s.level as Level | null,
-        title: s.title,
-        script: s.script,
-        wordCount: s.word_count,
-        actionSeconds: s.action_seconds,
-        tools: s.tools,
-        safetyReviewed: s.safety_reviewed_at !== null,
-      })),
-      shots: shots.map((s) => ({ id: s.id, segmentId: s.segment_id, description: s.description, framing: s.framing, camera: s.camera, state: s.state, retakeReason: s.retake_reason })),
-      clips: clips.map(
-        (c): SnapshotClipInput => ({
-          id: c.id,
-          segmentId: c.segment_id,
-          shotId: c.shot_id,
-          name: c.original_name,
-          mimeType: c.mime_type,
-          sizeBytes: Number(c.size_bytes),
-          durationSeconds: c.duration_seconds,
-          frameRate: c.frame_rate,
-          sha256: c.sha256,
-          hasPoster: c.has_poster,
-        }),
-      ),
-    };
-    const forecastStart = new Map<string, number>();
-    const probe = buildSnapshot({ ...snapshotBase, deliverables: [] });
-    for (const s of probe.segments) forecastStart.set(s.id, s.startSeconds);
-    const deliverables = await listSnapshotDeliverables(trx, episodeId, (id) => forecastStart.get(id) ?? null);
-    const snapshot = deliverables.length ? buildSnapshot({ ...snapshotBase, deliverables }) : probe;
-    const content = serializeSnapshot(snapshot);
-    const [row] = await trx('handoffs')
-      .insert({ episode_id: episodeId, version: next.version, content, content_hash: hashContent(content), note: input.note, locked_by: user.id, locked_at: lockedAt })
-      .returning<{ id: string }[]>('id');
-    return {
-      id: row!.id,
-      episodeId,
-      version: next.version,
-      contentHash: hashContent(content),
-      note: input.note,
-      lockedBy: user.name,
-      lockedAt: lockedAt.toISOString(),
-      segmentCount: snapshot.segments.length,
-      title: episode.title,
-    };
-  });
-  const { title, ...dto } = summary;
+  const { title, ...dto } = await db.transaction((trx) =>
+    insertHandoffVersion(trx, { channelId: member.channel.id, episodeId, wordsPerMinute: member.channel.speakingRateWpm, lockedBy: user, note: input.note }),
+  );
   await mailEditors(member, episodeId, title, dto);
   return dto;
 }

@@ -1,4 +1,3 @@
-import 'server-only';
 import type { Knex } from 'knex';
 import type { SnapshotDeliverable } from './snapshot';
 

@@ -63,6 +63,7 @@ test('host locks v1, the editor opens it from the e-mail, previews, notes and se
   await editor.getByRole('button', { name: `Preview ${name}` }).click();
   const player = editor.getByLabel(`Preview of ${name}`);
   await expect.poll(() => player.evaluate((v: HTMLVideoElement) => v.readyState), { timeout: 15_000 }).toBeGreaterThan(0);
+  await editor.getByRole('button', { name: `Hide preview ${name}` }).click();
 
   await editor.getByLabel('Pinned to').selectOption(`segment:${build.id}`);
   await editor.getByLabel('Timecode').fill('00:01:00;02');

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { DEMO_CHANNEL, seedDemo } from './seeds/demo';
 import { seedDemoEpisode } from './seeds/demo-episode';
+import { seedDemoHandoff } from './seeds/demo-handoff';
 import { seedDemoShots } from './seeds/demo-shots';
 import { seedDemoSponsor } from './seeds/demo-sponsor';
 import { seedDemoStock } from './seeds/demo-stock';
@@ -37,6 +38,13 @@ const steps: SeedStep[] = [
     run: async (trx) => {
       const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
       if (channel) await seedDemoSponsor(trx, channel.id as string);
+    },
+  },
+  {
+    key: 'demo_handoff_seeded',
+    run: async (trx) => {
+      const channel = await trx('channels').where({ slug: DEMO_CHANNEL.slug }).first('id');
+      if (channel) await seedDemoHandoff(trx, channel.id as string);
     },
   },
 ];

@@ -6,6 +6,7 @@ import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
+import { frameRateIds, frameRates } from '@/lib/timecode';
 import { ApiError, apiFetch } from '@/lib/api/client';
 import { fieldErrorsFrom } from '@/lib/api/validation';
 import type { FieldErrors } from '@/lib/errors';
@@ -26,7 +27,7 @@ function readForm(form: HTMLFormElement, withLevels: boolean) {
     targetSeconds: orNull('targetSeconds'),
     shootDate: orNull('shootDate'),
     publishDate: orNull('publishDate'),
-    ...(withLevels && { levelLabels: [text('level1'), text('level2'), text('level3')] }),
+    ...(withLevels && { levelLabels: [text('level1'), text('level2'), text('level3')], frameRate: text('frameRate') }),
   };
 }
 
@@ -68,6 +69,15 @@ export function EpisodeForm({ channelSlug, episode }: Props) {
             </option>
           ))}
         </SelectField>
+        {episode ? (
+          <SelectField label="Edit frame rate" name="frameRate" defaultValue={episode.frameRate} error={fields.frameRate}>
+            {frameRateIds.map((id) => (
+              <option key={id} value={id}>
+                {frameRates[id].label}
+              </option>
+            ))}
+          </SelectField>
+        ) : null}
         <TextField
           label="Target runtime (mm:ss)"
           name="targetSeconds"

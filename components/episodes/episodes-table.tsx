@@ -3,6 +3,7 @@
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { EmptyState } from '@/components/ui/empty-state';
+import { editStageLabels } from '@/lib/edit/stages';
 import { episodeStages, stageLabels, type EpisodeStage, type EpisodeSummaryDto } from '@/lib/episodes/schemas';
 import { formatDuration } from '@/lib/runtime';
 import { channelPage } from '@/lib/api/paths';
@@ -116,7 +117,10 @@ function EpisodeRow({ episode: e, channelSlug }: { episode: EpisodeSummaryDto; c
         {e.archived ? <span className="ml-2 text-xs text-ink-faint">(archived)</span> : null}
         {e.premise ? <p className="text-xs text-ink-soft">{e.premise}</p> : null}
       </td>
-      <td className="px-3 py-2">{stageLabels[e.stage]}</td>
+      <td className="px-3 py-2">
+        {stageLabels[e.stage]}
+        {e.editStage ? <span className="block text-xs text-ink-soft">Edit: {editStageLabels[e.editStage]}</span> : null}
+      </td>
       <td className="px-3 py-2 font-mono">{e.shootDate ?? '—'}</td>
       <td className="px-3 py-2 font-mono">{e.publishDate ?? '—'}</td>
       <td className="px-3 py-2 font-mono">

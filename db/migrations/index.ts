@@ -8,6 +8,7 @@ import * as episodeDateOrder from './20261212000000_episode_date_order';
 import * as byteRemovals from './20261212000001_byte_removals';
 import * as sessionsAndLimits from './20261213000000_sessions_and_limits';
 import * as sponsors from './20261214000000_sponsors';
+import * as handoffs from './20261215000000_handoffs';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -23,6 +24,7 @@ const migrations: Record<string, Migration> = {
   '20261212000001_byte_removals': byteRemovals,
   '20261213000000_sessions_and_limits': sessionsAndLimits,
   '20261214000000_sponsors': sponsors,
+  '20261215000000_handoffs': handoffs,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

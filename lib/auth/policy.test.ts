@@ -21,6 +21,7 @@ const expected: Record<Capability, string> = {
   'sponsors.manage': 'H',
   'sponsors.readDisclosure': 'HE', // editor reads disclosure and talking points
   'handoff.lock': 'H',
+  'handoff.read': 'HE', // issue 14: the handoff holds sponsor talking points (sponsors.readDisclosure is HE)
   'editNotes.edit': 'HE', // edit stage, edit notes
   'crew.read': 'HSE',
 };

@@ -27,6 +27,7 @@ export const capabilities = [
   'sponsors.manage',
   'sponsors.readDisclosure',
   'handoff.lock',
+  'handoff.read',
   'editNotes.edit',
   'crew.read',
 ] as const;
@@ -51,6 +52,8 @@ const matrix: Record<Capability, readonly Role[]> = {
   'sponsors.manage': ['host'],
   'sponsors.readDisclosure': ['host', 'editor'],
   'handoff.lock': ['host'],
+  // A handoff carries the sponsor read's talking points and disclosure, which a Shop hand does not read.
+  'handoff.read': ['host', 'editor'],
   'editNotes.edit': ['host', 'editor'],
   'crew.read': ['host', 'shop_hand', 'editor'],
 };

@@ -1,7 +1,9 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/client';
+import type { EditStage } from '@/lib/edit/stages';
 import { invalidInput, notFound } from '@/lib/errors';
+import { isFrameRateId } from '@/lib/timecode';
 import { DEFAULT_LEVEL_LABELS, type CreateEpisodeInput, type EpisodeDto, type EpisodeStage, type EpisodeSummaryDto, type UpdateEpisodeInput } from './schemas';
 
 export type EpisodeRow = {
@@ -16,9 +18,11 @@ export type EpisodeRow = {
   level_labels: unknown;
   archived_at: Date | null;
   updated_at: Date;
+  frame_rate: string;
+  edit_stage: EditStage | null;
 };
 
-const episodeColumns = ['e.id', 'e.channel_id', 'e.title', 'e.premise', 'e.stage', 'e.target_seconds', 'e.shoot_date', 'e.publish_date', 'e.level_labels', 'e.archived_at', 'e.updated_at'];
+const episodeColumns = ['e.id', 'e.channel_id', 'e.title', 'e.premise', 'e.stage', 'e.target_seconds', 'e.shoot_date', 'e.publish_date', 'e.level_labels', 'e.archived_at', 'e.updated_at', 'e.frame_rate', 'e.edit_stage'];
 
 function levelLabelsOf(value: unknown): [string, string, string] {
   const v = Array.isArray(value) ? value : [];
@@ -36,6 +40,8 @@ export const toEpisodeDto = (r: EpisodeRow): EpisodeDto => ({
   levelLabels: levelLabelsOf(r.level_labels),
   archived: r.archived_at !== null,
   updatedAt: r.updated_at.toISOString(),
+  frameRate: isFrameRateId(r.frame_rate) ? r.frame_rate : '29.97df',
+  editStage: r.edit_stage,
 });
 
 export async function listEpisodes(
@@ -83,6 +89,7 @@ const toColumns = (input: Partial<UpdateEpisodeInput>) => ({
   ...(input.publishDate !== undefined && { publish_date: input.publishDate }),
   ...(input.levelLabels !== undefined && { level_labels: JSON.stringify(input.levelLabels) }),
   ...(input.archived !== undefined && { archived_at: input.archived ? db.fn.now() : null }),
+  ...(input.frameRate !== undefined && { frame_rate: input.frameRate }),
 });
 
 export async function createEpisode(channelId: string, input: CreateEpisodeInput): Promise<EpisodeDto> {

@@ -1,7 +1,9 @@
 import { z } from 'zod';
 import { INVISIBLE_CHARACTERS_MESSAGE, isVisibleName } from '@/lib/text/visible-name';
 import { channelSlugSchema } from '@/lib/channels/schemas';
+import type { EditStage } from '@/lib/edit/stages';
 import { parseDuration } from '@/lib/runtime';
+import { frameRateIds, type FrameRateId } from '@/lib/timecode';
 
 export const episodeStages = ['idea', 'outline', 'shoot', 'edit', 'published'] as const;
 export type EpisodeStage = (typeof episodeStages)[number];
@@ -42,6 +44,7 @@ const episodeFields = {
   publishDate: dateSchema.nullable(),
   levelLabels: z.tuple([levelLabelSchema, levelLabelSchema, levelLabelSchema]),
   archived: z.boolean(),
+  frameRate: z.enum(frameRateIds, { error: 'Choose a frame rate.' }),
 };
 
 const datesInOrder = (v: { shootDate?: string | null; publishDate?: string | null }) =>
@@ -70,6 +73,7 @@ export const updateEpisodeSchema = z
     publishDate: episodeFields.publishDate.optional(),
     levelLabels: episodeFields.levelLabels.optional(),
     archived: episodeFields.archived.optional(),
+    frameRate: episodeFields.frameRate.optional(),
   })
   .refine(datesInOrder, datesMessage);
 export type UpdateEpisodeInput = z.infer<typeof updateEpisodeSchema>;
@@ -92,6 +96,9 @@ export type EpisodeDto = {
   levelLabels: [string, string, string];
   archived: boolean;
   updatedAt: string;
+  /** The rate the edit runs at: timecodes of notes and exports count frames at it. */
+  frameRate: FrameRateId;
+  editStage: EditStage | null;
 };
 
 export type EpisodeSummaryDto = EpisodeDto & { segmentCount: number; forecastSeconds: number };

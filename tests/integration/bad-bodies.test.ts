@@ -42,6 +42,14 @@ import * as dueDateRoute from '@/app/api/channels/[channel]/deliverables/[delive
 import * as approvalLinksRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/approval-links/route';
 import * as approvalRoute from '@/app/api/approvals/[token]/route';
 import * as calendarFeedRoute from '@/app/api/profile/calendar-feed/route';
+import * as editStageRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/edit-stage/route';
+import * as handoffsRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/handoffs/route';
+import * as versionNotesRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/handoffs/[version]/notes/route';
+import * as noteRoute from '@/app/api/channels/[channel]/edit-notes/[noteId]/route';
+import * as noteRepliesRoute from '@/app/api/channels/[channel]/edit-notes/[noteId]/replies/route';
+import { createNote } from '@/lib/edit/queries';
+import { lockHandoff } from '@/lib/handoffs/queries';
+import { findMembership } from '@/lib/channels/queries';
 import { createInvitation } from '@/lib/crew/queries';
 import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
@@ -52,7 +60,7 @@ import { makeDeal } from './sponsor-fixtures';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', 'clipId', 'timecode', 'body', 'resolved', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
@@ -386,5 +394,50 @@ describe('no sponsor body makes a 500', () => {
       ],
     ];
     await assertNo500(runs, 60);
+  });
+});
+
+// Handoff bodies: lock notes, edit stages, edit notes with timecodes right and wrong for 29.97 DF.
+describe('no handoff body makes a 500', () => {
+  let noteId: string;
+  let hEpisodeId: string;
+  let hSegmentId: string;
+  beforeAll(async () => {
+    const outlined = await makeOutlinedEpisode(crew);
+    hEpisodeId = outlined.episode.id;
+    hSegmentId = outlined.segments[0]!.id;
+    const member = (await findMembership(crew.channel.slug, crew.host.id))!;
+    await lockHandoff(member, crew.host, hEpisodeId, { note: '' });
+    noteId = (await createNote(member, crew.host, hEpisodeId, 1, { segmentId: hSegmentId, timecode: '00:01:00;02', body: 'Trim the head' })).id;
+  });
+
+  it('for raw bodies and for bodies of the right shape', async () => {
+    const ch = crew.channel.slug;
+    const timecode = fc.oneof(fc.constantFrom('00:01:00;02', '00:01:00;00', '00:10:00;00', '23:59:59;29', '24:00:00;00', '1:2:3:4', '00:00:00:30', ''), fc.string({ maxLength: 24 }));
+    const raw: ShapedRun[] = [
+      ['lock', handoffsRoute.POST, 'POST', { channel: ch, episodeId: hEpisodeId }, fc.jsonValue()],
+      ['edit stage', editStageRoute.PUT, 'PUT', { channel: ch, episodeId: hEpisodeId }, nearMiss],
+      ['note', versionNotesRoute.POST, 'POST', { channel: ch, episodeId: hEpisodeId, version: '1' }, nearMiss],
+      ['reply', noteRepliesRoute.POST, 'POST', { channel: ch, noteId }, nearMiss],
+      ['resolve', noteRoute.PATCH, 'PATCH', { channel: ch, noteId }, nearMiss],
+    ];
+    await assertNo500(raw, 30);
+    const shaped: ShapedRun[] = [
+      ['lock', handoffsRoute.POST, 'POST', { channel: ch, episodeId: hEpisodeId }, fc.record({ note: fc.oneof(fc.string({ maxLength: 2100 }), fc.integer()) }, { requiredKeys: [] })],
+      ['edit stage', editStageRoute.PUT, 'PUT', { channel: ch, episodeId: hEpisodeId }, fc.record({ stage: fc.constantFrom('assembly', 'rough_cut', 'picture_lock', 'final', '') })],
+      [
+        'note',
+        versionNotesRoute.POST,
+        'POST',
+        { channel: ch, episodeId: hEpisodeId, version: '1' },
+        fc.record(
+          { segmentId: fc.oneof(fc.constant(hSegmentId), fc.uuid(), fc.constant('x')), clipId: fc.oneof(fc.uuid(), fc.constant('')), timecode, body: fc.string({ maxLength: 4100 }) },
+          { requiredKeys: [] },
+        ),
+      ],
+      ['reply', noteRepliesRoute.POST, 'POST', { channel: ch, noteId }, fc.record({ body: fc.oneof(fc.string({ maxLength: 4100 }), fc.constant('  ')) }, { requiredKeys: [] })],
+      ['resolve', noteRoute.PATCH, 'PATCH', { channel: ch, noteId }, fc.record({ resolved: fc.oneof(fc.boolean(), fc.constant('yes'), fc.constant(null)) }, { requiredKeys: [] })],
+    ];
+    await assertNo500(shaped, 40);
   });
 });

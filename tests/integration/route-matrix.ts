@@ -13,6 +13,8 @@ export type RouteCase = {
   body?: (c: Crew) => unknown;
   badBody?: unknown;
   okStatus: number;
+  /** Request path with its query string, for routes that read one. */
+  path?: string;
 };
 
 const asRole = (c: Crew, role: Role) => ({ host: c.host, shop_hand: c.shopHand, editor: c.editor })[role];
@@ -22,7 +24,7 @@ export function describeRouteMatrix(cases: RouteCase[]) {
   describe.each(cases)('$name', (tc) => {
     it('401 when signed out', async () => {
       const c = await makeCrew();
-      const res = await call(tc.fn, tc.method, { params: await tc.params(c), body: tc.body?.(c) });
+      const res = await call(tc.fn, tc.method, { params: await tc.params(c), body: tc.body?.(c), path: tc.path });
       expect(res.status).toBe(401);
       expect(res.json.error?.code).toBe('unauthenticated');
     });
@@ -30,14 +32,14 @@ export function describeRouteMatrix(cases: RouteCase[]) {
     it('404 for someone of another channel', async () => {
       const c = await makeCrew();
       const other = await makeCrew();
-      const res = await call(tc.fn, tc.method, { as: other.host, params: await tc.params(c), body: tc.body?.(c) });
+      const res = await call(tc.fn, tc.method, { as: other.host, params: await tc.params(c), body: tc.body?.(c), path: tc.path });
       expect(res.status).toBe(404);
     });
 
     it('403 for each role without the capability, success for each role with it', async () => {
       for (const role of ['host', 'shop_hand', 'editor'] as const) {
         const c = await makeCrew();
-        const res = await call(tc.fn, tc.method, { as: asRole(c, role), params: await tc.params(c), body: tc.body?.(c) });
+        const res = await call(tc.fn, tc.method, { as: asRole(c, role), params: await tc.params(c), body: tc.body?.(c), path: tc.path });
         expect(res.status, `${role}: ${JSON.stringify(res.json)}`).toBe(tc.allowed.includes(role) ? tc.okStatus : 403);
       }
     });
@@ -57,7 +59,7 @@ export function describeRouteMatrix(cases: RouteCase[]) {
     if (tc.badBody !== undefined) {
       it('400 with field errors for bad input', async () => {
         const c = await makeCrew();
-        const res = await call(tc.fn, tc.method, { as: c.host, params: await tc.params(c), body: tc.badBody });
+        const res = await call(tc.fn, tc.method, { as: c.host, params: await tc.params(c), body: tc.badBody, path: tc.path });
         expect(res.status).toBe(400);
         expect(Object.keys(res.json.error?.fields ?? {}).length).toBeGreaterThan(0);
       });

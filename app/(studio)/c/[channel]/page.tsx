@@ -8,13 +8,20 @@ import { listCrew } from '@/lib/crew/queries';
 import { channelPage } from '@/lib/api/paths';
 import { getDashboard } from '@/lib/dashboard/queries';
 import { dayOf } from '@/lib/sponsors/dates';
+import { editStageLabels } from '@/lib/edit/stages';
+import { listEpisodes } from '@/lib/episodes/queries';
 
 export const metadata: Metadata = { title: 'Dashboard' };
 
 export default async function DashboardPage({ params }: { params: Promise<{ channel: string }> }) {
   const { channel } = await params;
   const member = await requireMember(channel);
-  const [crew, dashboard] = await Promise.all([listCrew(member.channel.id), getDashboard(member, dayOf(new Date()))]);
+  const [crew, dashboard, episodes] = await Promise.all([
+    listCrew(member.channel.id),
+    getDashboard(member, dayOf(new Date())),
+    listEpisodes(member.channel.id, member.channel.speakingRateWpm, { archived: false }),
+  ]);
+  const inEdit = episodes.filter((e) => e.editStage !== null);
   const base = channelPage(member.channel.slug);
   return (
     <>
@@ -22,8 +29,27 @@ export default async function DashboardPage({ params }: { params: Promise<{ chan
         Signed in as {member.user.name}, {roleLabels[member.role]}.
       </PageHeader>
       <div className="grid gap-6 xl:grid-cols-[3fr_1fr]">
-        <DashboardView data={dashboard} slug={member.channel.slug} canEditEpisodes={can(member.role, 'episodes.edit')} />
-        <section className="rounded-card border border-paper-edge bg-white/60 p-5 shadow-card" aria-labelledby="crew-heading">
+        <div className="space-y-6">
+          <DashboardView data={dashboard} slug={member.channel.slug} canEditEpisodes={can(member.role, 'episodes.edit')} />
+          {inEdit.length ? (
+            <section className="rounded-card border border-paper-edge bg-white/60 p-5 shadow-card" aria-labelledby="edit-heading">
+              <h2 id="edit-heading" className="font-bold">
+                In the edit
+              </h2>
+              <ul className="mt-3 space-y-1 text-sm">
+                {inEdit.map((e) => (
+                  <li key={e.id} className="flex justify-between gap-2">
+                    <Link href={channelPage(member.channel.slug, 'episodes', e.id)} className="inline-flex min-h-touch items-center truncate underline">
+                      {e.title}
+                    </Link>
+                    <span className="inline-flex items-center font-bold">{e.editStage ? editStageLabels[e.editStage] : ''}</span>
+                  </li>
+                ))}
+              </ul>
+            </section>
+          ) : null}
+        </div>
+        <section className="rounded-card border border-paper-edge bg-white/60 p-5 shadow-card self-start" aria-labelledby="crew-heading">
           <h2 id="crew-heading" className="font-bold">
             Crew
           </h2>

@@ -2,6 +2,11 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { RunningOrderList } from '@/components/running-order/running-order-list';
 import { StarterButton } from '@/components/episodes/starter-button';
+import { EditStageSelect } from '@/components/handoff/edit-stage-select';
+import { HandoffPanel } from '@/components/handoff/handoff-panel';
+import { can } from '@/lib/auth/policy';
+import { editStageLabels } from '@/lib/edit/stages';
+import { listHandoffs } from '@/lib/handoffs/queries';
 import { buttonClasses } from '@/components/ui/button';
 import { requireMember } from '@/lib/auth/session';
 import { stageLabels } from '@/lib/episodes/schemas';
@@ -18,6 +23,7 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
   const member = await requireMember(channel);
   const runningOrder = await orNotFound(getRunningOrder(member, uuidOr404(episodeId)));
   const { episode } = runningOrder;
+  const handoffs = can(member.role, 'handoff.read') ? await listHandoffs(member.channel.id, episode.id) : null;
   const base = channelPage(member.channel.slug, 'episodes');
   return (
     <>
@@ -30,6 +36,10 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
             <div className="flex gap-1">
               <dt className="text-ink-faint">Stage</dt>
               <dd className="font-bold">{stageLabels[episode.stage]}</dd>
+            </div>
+            <div className="flex gap-1">
+              <dt className="text-ink-faint">Edit</dt>
+              <dd className="font-bold">{episode.editStage ? editStageLabels[episode.editStage] : 'not started'}</dd>
             </div>
             <div className="flex gap-1">
               <dt className="text-ink-faint">Target</dt>
@@ -59,6 +69,14 @@ export default async function EpisodePage({ params }: { params: Promise<{ channe
           ) : null}
         </div>
       </header>
+      {handoffs ? (
+        <div className="mb-6 grid gap-4 md:grid-cols-[1fr_16rem]">
+          <HandoffPanel slug={member.channel.slug} episodeId={episode.id} initial={handoffs} canLock={can(member.role, 'handoff.lock')} />
+          <div className="rounded-card border border-paper-edge bg-white/50 p-4 self-start">
+            <EditStageSelect slug={member.channel.slug} episodeId={episode.id} initial={episode.editStage} canEdit={can(member.role, 'editNotes.edit')} />
+          </div>
+        </div>
+      ) : null}
       {runningOrder.canEdit && runningOrder.segments.length === 0 ? (
         <div className="mb-6">
           <StarterButton channelSlug={member.channel.slug} episodeId={episode.id} />

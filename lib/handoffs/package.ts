@@ -1,0 +1,87 @@
+import type { Readable } from 'node:stream';
+import { ZipFile } from 'yazl';
+import { buildAssembly, packageClips, safeName, type AssemblyClip } from './assembly';
+import { buildEdl } from './edl';
+import { otioText } from './otio';
+import { hashContent, type HandoffSnapshot } from './snapshot';
+
+// The clip package: one stored (uncompressed) ZIP streamed straight from the clip store, with the
+// OTIO, the EDL, manifest.json and SHA256SUMS. yazl writes ZIP64 records for entries over 4 GiB and,
+// as every entry's size is given up front, knows the archive's size before the first byte.
+
+export type OpenClip = (clipId: string) => Promise<Readable>;
+
+export type ClipPackage = { stream: Readable; size: number | null; fileName: string; missing: string[] };
+
+/** Base name of the package and its timeline files: "Walnut step stool v3". */
+export const packageBaseName = (snapshot: HandoffSnapshot) => safeName(`${snapshot.episode.title} v${snapshot.version}`, 80);
+
+/** GNU coreutils `sha256sum` text format: hash, two spaces, path. */
+const sumsLine = (hash: string, path: string) => `${hash}  ${path}\n`;
+
+/**
+ * @param available clip ids whose bytes still exist (a clip deleted after the lock is listed as missing).
+ * @param segmentId only this segment's folder (a per-segment download), without the timeline files.
+ */
+export async function buildClipPackage(
+  snapshot: HandoffSnapshot,
+  options: { openClip: OpenClip; available: Set<string>; segmentId?: string},
+): Promise<ClipPackage> {
+  const assembly = buildAssembly(snapshot);
+  const mtime = new Date(snapshot.lockedAt);
+  const zip = new ZipFile();
+  // A clip that cannot be read ends the download with an error rather than a short, valid-looking file.
+  zip.on('error', (err: Error) => (zip.outputStream as unknown as Readable).destroy(err));
+  const segment = options.segmentId ? snapshot.segments.find((s) => s.id === options.segmentId) : undefined;
+  const clips = packageClips(assembly).filter((c) => !options.segmentId || c.segment.id === options.segmentId);
+  const present: AssemblyClip[] = clips.filter((c) => options.available.has(c.clip.id));
+  const missing = clips.filter((c) => !options.available.has(c.clip.id)).map((c) => c.path);
+  const base = packageBaseName(snapshot);
+  let sums = '';
+
+  for (const item of present) {
+    zip.addReadStreamLazy(item.path, { size: item.clip.sizeBytes, compress: false, mtime }, (cb) => {
+      options.openClip(item.clip.id).then(
+        (stream) => cb(null, stream),
+        (err: unknown) => cb(err, undefined as unknown as NodeJS.ReadableStream),
+      );
+    });
+    sums += sumsLine(item.clip.sha256, item.path);
+  }
+
+  const addText = (path: string, text: string) => {
+    zip.addBuffer(Buffer.from(text, 'utf8'), path, { compress: false, mtime });
+    sums += sumsLine(hashContent(text), path);
+  };
+  if (!segment) {
+    addText(`${base}.otio`, otioText(snapshot, assembly));
+    addText(`${base}.edl`, buildEdl(snapshot, assembly));
+  }
+  const manifest = {
+    episode: snapshot.episode.title,
+    version: snapshot.version,
+    lockedAt: snapshot.lockedAt,
+    frameRate: snapshot.episode.frameRate,
+    segment: segment ? { number: segment.number, title: segment.title } : null,
+    clips: clips.map((c) => ({
+      path: c.path,
+      clipId: c.clip.id,
+      name: c.clip.name,
+      segment: c.segment.number,
+      shot: c.shot?.number ?? null,
+      sizeBytes: c.clip.sizeBytes,
+      durationSeconds: c.clip.durationSeconds,
+      sha256: c.clip.sha256,
+      included: options.available.has(c.clip.id),
+    })),
+    missing,
+  };
+  addText('manifest.json', `${JSON.stringify(manifest, null, 2)}\n`);
+  zip.addBuffer(Buffer.from(sums, 'utf8'), 'SHA256SUMS', { compress: false, mtime });
+
+  const size = await new Promise<number>((resolve) => {
+    (zip.end as (options: object, cb: (size: number) => void) => void)({}, resolve);
+  });
+  const fileName = segment ? `${base} - ${safeName(`${String(segment.number).padStart(2, '0')} ${segment.title}`, 60)}.zip` : `${base}.zip`;
+  return { stream: zip.outputStream as unknown as Readable, size: size >= 0 ? size : null, fileName, missing };
+}

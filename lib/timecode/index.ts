@@ -1,0 +1,14 @@
+export { frameRateIds, frameRates, framesPerSecond, isFrameRateId, nearestFrameRate, type FrameRate, type FrameRateId } from './rates';
+export {
+  formatTimecode,
+  frameSeparator,
+  framesPerDay,
+  framesToParts,
+  framesToSeconds,
+  framesToTimecode,
+  partsToFrames,
+  secondsToFrames,
+  timecodeToFrames,
+  TimecodeError,
+  type TimecodeParts,
+} from './timecode';

@@ -5,6 +5,8 @@ import { AppServer } from './app-server';
 import { makeOutlinedEpisode } from '../integration/episode-fixtures';
 import { PASSWORD, makeCrew, makeUser, sessionCookie } from '../integration/helpers';
 import { makeDeal } from '../integration/sponsor-fixtures';
+import { hostMember } from '../integration/handoff-fixtures';
+import { lockHandoff } from '@/lib/handoffs/queries';
 
 // Real HTTP against the built app: status codes of streamed pages, and what the server takes as
 // the client's address, are only visible there. Its own port, next to the upload tests' one.
@@ -50,6 +52,16 @@ describe('pages answer real 404 and 403 statuses (issue 12 item 15)', () => {
     expect((await page(`/c/${crew.channel.slug}/sponsors/${deal.id}`, await sessionCookie(crew.editor))).status).toBe(403);
     expect((await page(`/c/${outsider.channel.slug}/sponsors/${deal.id}`, await sessionCookie(outsider.host))).status).toBe(404);
     expect((await page(`/c/${crew.channel.slug}/sponsors/${deal.id}`, await sessionCookie(crew.host))).status).toBe(200);
+  });
+
+  it('the handoff page: a shop hand gets 403, a version that was never locked 404, the editor 200', async () => {
+    const crew = await makeCrew();
+    const { episode } = await makeOutlinedEpisode(crew);
+    await lockHandoff(await hostMember(crew), crew.host, episode.id, { note: '' });
+    const at = (v: string) => `/c/${crew.channel.slug}/episodes/${episode.id}/handoff/${v}`;
+    expect((await page(at('1'), await sessionCookie(crew.shopHand))).status).toBe(403);
+    expect((await page(at('2'), await sessionCookie(crew.editor))).status).toBe(404);
+    expect((await page(at('1'), await sessionCookie(crew.editor))).status).toBe(200);
   });
 
   it('a signed-out session sends pages to sign-in, not into the channel (issue 12 item 10)', async () => {

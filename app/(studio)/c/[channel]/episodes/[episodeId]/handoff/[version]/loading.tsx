@@ -1,1 +1,0 @@
-export { PageSkeleton as default } from '@/components/ui/page-skeleton';

@@ -6,8 +6,9 @@ import { config } from '@/lib/config';
 // when KERFLINE_TEST_CLOCK=1, so a production process can never be moved by a database row.
 const KEY = 'test_clock_offset_seconds';
 
-export async function now(): Promise<Date> {
-  if (!config().KERFLINE_TEST_CLOCK) return new Date();
+/** Now, moved by the stored offset only in a test process (`testClock`, from KERFLINE_TEST_CLOCK). */
+export async function now(testClock = config().KERFLINE_TEST_CLOCK): Promise<Date> {
+  if (!testClock) return new Date();
   const row: { value: unknown } | undefined = await db('app_meta').where({ key: KEY }).first('value');
   const offset = typeof row?.value === 'number' ? row.value : 0;
   return new Date(Date.now() + offset * 1000);

@@ -7,6 +7,7 @@ import { db } from '@/db/client';
 import { sendApprovalLink } from '@/lib/approvals/queries';
 import type { DealDto } from '@/lib/sponsors/schemas';
 import { call, makeCrew, uniqueEmail } from './helpers';
+import { PEER_HEADER } from '@/lib/http/peer';
 import { waitForMail } from '../support/mail-catcher';
 import { describeRouteMatrix, type Crew, type RouteCase } from './route-matrix';
 import { makeDeal, writeScript } from './sponsor-fixtures';
@@ -38,8 +39,8 @@ const cases: RouteCase[] = [
 ];
 describeRouteMatrix(cases);
 
-const decide = (token: string, body: unknown, ip = '203.0.113.7') => call(approvalRoute.POST, 'POST', { params: { token }, body, headers: { 'x-forwarded-for': ip } });
-const view = (token: string, ip = '203.0.113.7') => call(approvalRoute.GET, 'GET', { params: { token }, headers: { 'x-forwarded-for': ip } });
+const decide = (token: string, body: unknown, ip = '203.0.113.7') => call(approvalRoute.POST, 'POST', { params: { token }, body, headers: { [PEER_HEADER]: ip } });
+const view = (token: string, ip = '203.0.113.7') => call(approvalRoute.GET, 'GET', { params: { token }, headers: { [PEER_HEADER]: ip } });
 
 describe('sponsor approval link', () => {
   it('shows the read without sign-in, records the approved script version once, and flags a later change', async () => {
@@ -102,7 +103,7 @@ describe('sponsor approval link', () => {
     for (let i = 0; i < 5; i++) expect((await view(`${'A'.repeat(42)}${i}`, ip)).status).toBe(404);
     const res = await view('B'.repeat(43), ip);
     expect(res.status).toBe(429);
-    await db('sign_in_failures').where({ throttle_key: `approval-ip:${ip}` }).delete();
+    await db('rate_limits').where({ limit_key: `approval-ip:${ip}` }).delete();
   });
 
   it('needs a segment before a link can go', async () => {

@@ -82,7 +82,8 @@ describe('the throttle keys on the socket address, not on X-Forwarded-For (issue
     const csrfRes = await fetch(`${app.url}/api/auth/csrf`);
     const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
     const csrfCookie = (csrfRes.headers.getSetCookie().find((c) => c.startsWith('next-auth.csrf-token=')) ?? '').split(';')[0] ?? '';
-    const spoofed = `198.51.100.${Math.floor(Math.random() * 250)}`;
+    // An address no other test uses (the integration tests share this database and use 198.51.100.x).
+    const spoofed = `2001:db8:5eed::${randomUUID().slice(0, 4)}`;
     const before = (await db('rate_limits').where({ limit_key: 'ip:127.0.0.1' }).first('hits'))?.hits ?? 0;
     const res = await fetch(`${app.url}/api/auth/callback/credentials`, {
       method: 'POST',

@@ -9,6 +9,8 @@ async function openStarterBuild(page: Page) {
 }
 
 test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ signedIn }) => {
+  // A long journey through three pages with two plans worked out: more than the default 60 s on a busy 2-core box.
+  test.setTimeout(180_000);
   const species = `Fir ${Date.now().toString(36)}`;
   const stockName = `2x4 ${species}`;
   const partName = `Rail ${species}`;

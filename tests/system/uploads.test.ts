@@ -257,7 +257,8 @@ describe('clip files', () => {
 
   it('reads duration, resolution and frame rate with ffprobe and makes a poster, off the upload’s path', async () => {
     await expect
-      .poll(async () => (await db('clips').where({ id: clipId }).first('probe_state')).probe_state, { timeout: 20_000, interval: 300 })
+      // ffprobe and ffmpeg run as child processes: on a loaded 2-core box they take far longer than alone.
+      .poll(async () => (await db('clips').where({ id: clipId }).first('probe_state')).probe_state, { timeout: 90_000, interval: 300 })
       .toBe('done');
     const clip = await db('clips').where({ id: clipId }).first();
     expect(clip).toMatchObject({ width: 320, height: 240, frame_rate: 30, codec: 'h264', has_poster: true });
@@ -265,7 +266,7 @@ describe('clip files', () => {
     const poster = await fetch(`${app.url}/api/channels/${crew.channel.slug}/clips/${clipId}/poster`, { headers: { cookie: await sessionCookie(crew.editor) } });
     expect(poster.status).toBe(200);
     expect(poster.headers.get('content-type')).toBe('image/jpeg');
-  });
+  }, 120_000);
 
   it('serves byte ranges with 206 and the right Content-Range, 416 past the end, and downloads under the original name', async () => {
     const editor = await sessionCookie(crew.editor);

@@ -1,4 +1,5 @@
 /** Lower bounds on the cost of a linear plan. */
+import { expiredEvery, type Deadline } from './deadline';
 import { type Instance, type StockType } from './instance';
 import { knapsack, unitOf, type Kind } from './knapsack';
 
@@ -83,11 +84,11 @@ export interface DualBound {
  * cost >= sum(d_k y_k) - sum_s available_s * max(0, v_s - price_s), with v_s the best pattern value
  * of stock s; for unlimited stock y is first scaled down until no pattern is worth more than its board.
  */
-export function dualBound(inst: Instance, kinds: readonly Kind[], raw: readonly number[]): DualBound {
+export function dualBound(inst: Instance, kinds: readonly Kind[], raw: readonly number[], deadline?: Deadline): DualBound {
   const sizes = kinds.map((k) => k.size);
   const limit = kinds.map((k) => k.pieces.length);
   let y = raw.map((v) => Math.max(0, v));
-  let v = inst.stocks.map((s) => knapsack(sizes, y, limit, s.cap, unitOf(sizes)).upper);
+  let v = inst.stocks.map((s) => knapsack(sizes, y, limit, s.cap, unitOf(sizes), deadline).upper);
   let scale = 1;
   inst.stocks.forEach((s, i) => {
     const vs = v[i] ?? 0;
@@ -113,7 +114,7 @@ export function dualBound(inst: Instance, kinds: readonly Kind[], raw: readonly 
  */
 
 /** The least total price of a set of boards, within `available`, that is at least `x`; `x` itself if the search is cut short. */
-export function achievableCost(stocks: readonly StockType[], x: number): number {
+export function achievableCost(stocks: readonly StockType[], x: number, deadline?: Deadline): number {
   if (x <= 0) return 0;
   const priced = stocks.filter((s) => s.price > 0).sort((a, b) => b.price - a.price);
   let best = Number.POSITIVE_INFINITY;
@@ -123,7 +124,11 @@ export function achievableCost(stocks: readonly StockType[], x: number): number 
       best = Math.min(best, sum);
       return;
     }
-    if (j === priced.length || ++nodes > 200_000) return;
+    if (j === priced.length) return;
+    if (++nodes > 200_000 || (deadline && expiredEvery(deadline))) {
+      nodes = 200_001;
+      return;
+    }
     const s = priced[j];
     if (!s) return;
     const most = Math.min(s.available, Math.ceil((x - sum) / s.price));

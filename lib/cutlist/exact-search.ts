@@ -1,5 +1,8 @@
 /** Exact search for a least-cost linear plan. */
-import { continuousCost, type DualBound } from './bounds';
+import { achievableCost, continuousCost, type DualBound } from './bounds';
+import type { DiveProblem } from './dive';
+import { solvePatternLp } from './pattern-lp';
+import { expiredEvery, type Deadline } from './deadline';
 import { better, type Bin, type Instance, type Solution } from './instance';
 import { gcd, type Kind } from './knapsack';
 
@@ -18,7 +21,8 @@ export function completionSearch(
   kinds: readonly Kind[],
   dual: DualBound,
   incumbent: Solution | null,
-  deadline: number,
+  deadline: Deadline,
+  lp?: DiveProblem & { feasibility?: boolean },
 ): { best: Solution | null; finished: boolean } {
   const K = kinds.length;
   const size = kinds.map((k) => k.size);
@@ -45,9 +49,48 @@ export function completionSearch(
 
   const penalty = (): number => inst.stocks.reduce((a, s, i) => a + (s.available - (used[i] ?? 0)) * (dual.excess[i] ?? 0), 0);
   const bound = (): number => {
+    // The boards still available must hold what is left.
+    let room = 0;
+    inst.stocks.forEach((s, i) => (room += (s.available - (used[i] ?? 0)) * s.cap));
+    if (room < sizeLeft) return Number.POSITIVE_INFINITY;
     const byDual = Math.ceil(yLeft - penalty() - 1e-3 - 1e-9 * Math.abs(yLeft));
     const byLength = Math.ceil(continuousCost(inst.stocks, sizeLeft, used) - 1e-6);
     return cost + Math.max(byDual, byLength, 0);
+  };
+
+  // Node bound from the pattern LP of what is left (branch and price with bin-completion branching), memoised
+  // by the remaining demand and boards since different orders of the same boards meet the same rest.
+  const lpMemo = new Map<string, number>();
+  const achievableMemo = new Map<number, number>();
+  const nodeLpBound = (): number => {
+    if (!lp) return Number.NEGATIVE_INFINITY;
+    const key = `${left.join(',')}|${used.join(',')}`;
+    let rest = lpMemo.get(key);
+    if (rest === undefined) {
+      // In feasibility mode every board is free, so a positive artificial at the optimum proves that the
+      // boards left cannot hold the pieces left (phase one of the simplex).
+      const free = lp.feasibility === true;
+      const stocks = inst.stocks.map((s, i) => ({ price: free ? 0 : s.price, available: s.available - (used[i] ?? 0) }));
+      const sol = solvePatternLp(left, stocks, lp.pricer, lp.pool, deadline);
+      if (sol.converged && sol.infeasible && free) rest = Number.POSITIVE_INFINITY;
+      if (!sol.converged || sol.infeasible) {
+        if (rest === Number.POSITIVE_INFINITY) lpMemo.set(key, rest);
+        return cost + (rest ?? Number.NEGATIVE_INFINITY);
+      }
+      if (free) {
+        lpMemo.set(key, Number.NEGATIVE_INFINITY);
+        return Number.NEGATIVE_INFINITY;
+      }
+      // Integer prices in micro-dollars: a margin of one absorbs the simplex's rounding.
+      const floorValue = Math.ceil(sol.value - Math.max(1, 1e-9 * sol.value));
+      rest = achievableMemo.get(floorValue);
+      if (rest === undefined) {
+        rest = achievableCost(inst.stocks, floorValue, deadline);
+        achievableMemo.set(floorValue, rest);
+      }
+      lpMemo.set(key, rest);
+    }
+    return cost + rest;
   };
 
   const record = (): void => {
@@ -96,6 +139,10 @@ export function completionSearch(
       counts[k0] = 1;
       const gen = (j: number, room: number, value: number): void => {
         if (over) return;
+        if (expiredEvery(deadline)) {
+          over = true;
+          return;
+        }
         if (value + room * (ratio[j] ?? 0) < need - 1e-3 - 1e-9 * Math.abs(need)) return;
         const load = st.cap - room;
         if (load + Math.min(room, suffix[j] ?? 0) < needLoad - 1e-3) return;
@@ -127,7 +174,7 @@ export function completionSearch(
 
   const dfs = (): void => {
     if (timedOut) return;
-    if (++nodes % 256 === 0 && Date.now() > deadline) {
+    if (++nodes > 0 && expiredEvery(deadline, 16)) {
       timedOut = true;
       return;
     }
@@ -138,6 +185,7 @@ export function completionSearch(
       return;
     }
     if (bound() > target()) return;
+    if (nodeLpBound() > target()) return;
     let candidates = completions(k0, COMPLETIONS_PER_NODE);
     if (candidates === null) {
       truncated = true;

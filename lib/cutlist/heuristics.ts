@@ -1,4 +1,5 @@
 /** Fast plans: greedy fits, minimum slack, and ruin-and-recreate improvement. */
+import { expired, expiredEvery, type Deadline } from './deadline';
 import { type Bin, type Instance, type Solution, better } from './instance';
 
 // ---------- heuristics ----------
@@ -93,7 +94,7 @@ export function downgrade(inst: Instance, sol: Solution): Solution {
  * Minimum bin slack with the largest piece fixed (after Gupta and Ho 1999; Fleszar and Hindi 2002):
  * each new board gets the subset of the remaining pieces that leaves the least slack.
  */
-export function minimumSlack(inst: Instance, deadline: number): Solution {
+export function minimumSlack(inst: Instance, deadline: Deadline): Solution {
   const remaining = inst.pieces.map((_, i) => i);
   const bins: Bin[] = [];
   const used = inst.stocks.map(() => 0);
@@ -121,7 +122,7 @@ export function minimumSlack(inst: Instance, deadline: number): Solution {
           // Equal sizes: only take the first of a run at each depth.
           if (k > from && size(remaining[k - 1] ?? -1) === size(i)) continue;
           if (load + size(i) > s.cap) continue;
-          if (++nodes > 20_000 || (nodes % 1024 === 0 && Date.now() > deadline)) return true;
+          if (++nodes > 20_000 || expiredEvery(deadline)) return true;
           chosen.push(i);
           if (search(k + 1, load + size(i))) return true;
           chosen.pop();
@@ -162,13 +163,13 @@ export function rng(seed: number): () => number {
 }
 
 /** Ruin and recreate: empty a few boards, refill them best-fit into the rest, keep the result if not worse. */
-export function improve(inst: Instance, start: Solution, lb: number, deadline: number): Solution {
+export function improve(inst: Instance, start: Solution, lb: number, deadline: Deadline): Solution {
   let best = start;
   let current = start;
   const random = rng(12345);
   const choose = chooserFor(inst, null);
   let iter = 0;
-  while (best.score.cost > lb && Date.now() < deadline) {
+  while (best.score.cost > lb && !expired(deadline)) {
     iter++;
     const bins = current.bins.map((b) => ({ ...b, items: [...b.items] }));
     if (bins.length === 0) break;

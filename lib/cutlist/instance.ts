@@ -78,6 +78,14 @@ export class Instance {
     this.pieces.sort((a, b) => b.size - a.size || a.part - b.part);
   }
 
+  /** The same instance with at most `counts[s]` boards of each stock (same stock positions). */
+  withAvailable(counts: readonly number[]): Instance {
+    const copy = Object.create(Instance.prototype) as Instance;
+    const stocks = this.stocks.map((s, i) => ({ ...s, available: Math.min(s.available, counts[i] ?? 0) }));
+    Object.assign(copy, { ...this, stocks });
+    return copy;
+  }
+
   offcutOf(bin: Bin): number {
     const stock = this.stocks[bin.stock];
     if (!stock) return 0;

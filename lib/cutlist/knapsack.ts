@@ -1,4 +1,5 @@
 /** Piece kinds and the knapsack that prices a board pattern. */
+import { expiredEvery, type Deadline } from './deadline';
 import type { Instance } from './instance';
 
 /** Pieces of one size, interchangeable for packing whatever part they belong to. */
@@ -85,6 +86,7 @@ export function knapsack(
   limit: readonly number[],
   cap: number,
   unit = 0,
+  deadline?: Deadline,
 ): { value: number; upper: number; counts: number[] } {
   if (unit > 0) {
     const dp = knapsackDp(sizes, values, limit, cap, unit);
@@ -115,7 +117,10 @@ export function knapsack(
       best = value;
       bestCounts = [...counts];
     }
-    if (j === order.length || ++nodes > KNAPSACK_NODES) return;
+    if (j === order.length || ++nodes > KNAPSACK_NODES || (deadline && expiredEvery(deadline))) {
+      if (j !== order.length) nodes = KNAPSACK_NODES + 1;
+      return;
+    }
     if (value + dantzig(j, room) <= best * (1 + 1e-12)) return;
     const k = order[j] ?? 0;
     const w = sizes[k] ?? 1;

@@ -8,11 +8,14 @@
  * of capacity `usable + kerf`: the plan is a bin packing with costed bin types.
  */
 import { achievableCost, dualBound, lowerBound } from './bounds';
-import { columnGenerationDuals } from './column-generation';
+import { deadlineIn, shareOf, type Deadline } from './deadline';
+import { diveSearch, type DiveProblem } from './dive';
+import { searchCostLevels } from './cost-levels';
 import { completionSearch } from './exact-search';
-import { chooserFor, downgrade, greedy, improve, minimumSlack } from './heuristics';
-import { better, Instance, SCALE, toMicro, type Solution } from './instance';
-import { kindsOf } from './knapsack';
+import { chooserFor, downgrade, greedy, improve, minimumSlack, rng } from './heuristics';
+import { better, Instance, SCALE, toMicro, type Bin, type Solution } from './instance';
+import { kindsOf, knapsack, unitOf, type Kind } from './knapsack';
+import { solvePatternLp, type Pattern } from './pattern-lp';
 import type { LinearBoard, LinearCut, LinearCutPlan, LinearCutRequest, LinearPurchase } from './types';
 
 export { martelloTothL2 } from './bounds';
@@ -105,37 +108,89 @@ export function firstFitDecreasing(req: LinearCutRequest): LinearCutPlan {
   return render(req, inst, sol, lowerBound(inst, placed), false);
 }
 
+/** The LP pieces of a linear instance: kinds of equal size, their demand, stocks and a knapsack pricer. */
+function lpProblem(inst: Instance, kinds: readonly Kind[], deadline: Deadline): DiveProblem {
+  const sizes = kinds.map((k) => k.size);
+  const unit = unitOf(sizes);
+  return {
+    demand: kinds.map((k) => k.pieces.length),
+    stocks: inst.stocks.map((s) => ({ price: s.price, available: s.available })),
+    pricer: (s, y, limit) => knapsack(sizes, y, limit, inst.stocks[s]?.cap ?? 0, unit, deadline),
+    pool: [],
+  };
+}
+
+/** Boards of a dive's patterns, with the pieces of each kind handed out in order. */
+function solutionOf(inst: Instance, kinds: readonly Kind[], patterns: readonly Pattern[]): Solution {
+  const queues = kinds.map((k) => [...k.pieces]);
+  const bins: Bin[] = patterns.map((p) => {
+    const items: number[] = [];
+    let load = 0;
+    p.counts.forEach((c, k) => {
+      for (let q = 0; q < c; q++) {
+        const i = queues[k]?.pop();
+        if (i === undefined) continue;
+        items.push(i);
+        load += kinds[k]?.size ?? 0;
+      }
+    });
+    return { stock: p.stock, load, items };
+  });
+  return inst.solution(bins, []);
+}
+
+/**
+ * Pipeline (README.md): greedy fits and minimum slack; the pattern LP for a bound; LP dives for a plan
+ * near that bound; bin completion to prove it or find better; ruin and recreate with what time is left.
+ * Each stage stops at its share of `timeLimitMs`, and every loop inside checks the deadline.
+ */
 export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
-  const started = Date.now();
-  const deadline = started + (req.timeLimitMs ?? 2000);
+  const deadline = deadlineIn(req.timeLimitMs ?? 2000);
   const inst = new Instance(req);
   const all = inst.pieces.map((_, i) => i);
   let lb = lowerBound(inst, all);
 
   let best = pickBest([...baselines(inst).map((s) => downgrade(inst, s)), ...baselines(inst)]);
-  if (best.score.unplaced > 0 || best.score.cost > lb) {
+  const proven = (): boolean => best.score.unplaced === 0 && best.score.cost <= lb;
+  if (!proven()) {
     const mbs = downgrade(inst, minimumSlack(inst, deadline));
     if (better(mbs.score, best.score)) best = mbs;
   }
 
-  let finished = best.score.unplaced === 0 && best.score.cost <= lb;
+  let finished = proven();
   if (!finished) {
     const kinds = kindsOf(inst);
+    const problem = lpProblem(inst, kinds, deadline);
     // The LP gets a share of the time; its duals are a valid bound wherever it stops.
-    const lpDeadline = Math.min(deadline, started + Math.max(1, (req.timeLimitMs ?? 2000) / 4));
-    const dual = dualBound(inst, kinds, columnGenerationDuals(inst, kinds, lpDeadline));
-    lb = Math.max(lb, achievableCost(inst.stocks, Math.ceil(dual.value - 1e-3 - 1e-9 * Math.abs(dual.value))));
-    finished = best.score.unplaced === 0 && best.score.cost <= lb;
+    const root = solvePatternLp(problem.demand, problem.stocks, problem.pricer, problem.pool, shareOf(deadline, 0.25));
+    const dual = dualBound(inst, kinds, root.duals, deadline);
+    lb = Math.max(lb, achievableCost(inst.stocks, Math.ceil(dual.value - 1e-3 - 1e-9 * Math.abs(dual.value)), deadline));
+    finished = proven();
+    if (!finished && best.score.unplaced === 0) {
+      const dived = diveSearch(problem, lb, shareOf(deadline, inst.stocks.length > 1 ? 0.3 : 0.5), rng(7));
+      if (dived) {
+        const sol = downgrade(inst, solutionOf(inst, kinds, dived.patterns));
+        if (better(sol.score, best.score)) best = sol;
+      }
+      finished = proven();
+    }
+    // With one stock length the LP bound is nearly always the optimum (Falkenauer's sets), so the dives and
+    // bin completion below do better than listing board counts; with several, mixes of lengths are the gap.
+    if (!finished && best.score.unplaced === 0 && inst.stocks.length > 1) {
+      const levels = searchCostLevels(inst, kinds, problem, best, lb, shareOf(deadline, 0.7));
+      best = levels.best;
+      lb = Math.max(lb, levels.lb);
+      finished = levels.finished || proven();
+    }
     if (!finished) {
       // A depth-first search that has not closed the gap by then is usually stuck deep in the tree, where
       // ruin and recreate still finds better plans (u120_00 in bench/cutlist), so it gets the rest.
-      const searchDeadline = Date.now() + 0.6 * Math.max(0, deadline - Date.now());
-      const result = completionSearch(inst, kinds, dual, best.score.unplaced === 0 ? best : null, searchDeadline);
+      const result = completionSearch(inst, kinds, dual, best.score.unplaced === 0 ? best : null, shareOf(deadline, 0.6), problem);
       if (result.best && better(result.best.score, best.score)) best = result.best;
-      finished = result.finished || (best.score.unplaced === 0 && best.score.cost <= lb);
+      finished = result.finished || proven();
       if (!finished && best.score.unplaced === 0) {
         best = improve(inst, best, lb, deadline);
-        finished = best.score.cost <= lb;
+        finished = proven();
       }
     }
   }
@@ -148,4 +203,3 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
   // A finished search proves the cost, so the bound can be raised to it.
   return render(req, inst, best, finished ? best.score.cost : lb, finished);
 }
-

@@ -114,7 +114,7 @@ export function dualBound(inst: Instance, kinds: readonly Kind[], raw: readonly 
  */
 
 /** The least total price of a set of boards, within `available`, that is at least `x`; `x` itself if the search is cut short. */
-export function achievableCost(stocks: readonly StockType[], x: number, deadline?: Deadline): number {
+export function achievableCost(stocks: readonly { price: number; available: number }[], x: number, deadline?: Deadline): number {
   if (x <= 0) return 0;
   const priced = stocks.filter((s) => s.price > 0).sort((a, b) => b.price - a.price);
   let best = Number.POSITIVE_INFINITY;

@@ -9,7 +9,7 @@
  * 86 (1999), and W. D. Harvey and M. L. Ginsberg, "Limited discrepancy search", IJCAI 1995.
  */
 import { expired, type Deadline } from './deadline';
-import { solvePatternLp, type LpStock, type Pattern, type Pricer } from './pattern-lp';
+import { clipPattern, solvePatternLp, type LpStock, type Pattern, type Pricer } from './pattern-lp';
 
 export interface DiveProblem {
   demand: readonly number[];
@@ -36,11 +36,11 @@ export function diveOnce(problem: DiveProblem, deadline: Deadline, choiceAt: (de
   const fix = (p: Pattern): boolean => {
     const st = problem.stocks[p.stock];
     if (!st || (used[p.stock] ?? 0) >= st.available) return false;
-    const counts = p.counts.map((c, k) => Math.min(c, residual[k] ?? 0));
-    if (counts.every((c) => c === 0)) return false;
-    counts.forEach((c, k) => (residual[k] = (residual[k] ?? 0) - c));
+    const clipped = clipPattern(p, residual);
+    if (clipped.counts.every((c) => c === 0)) return false;
+    clipped.counts.forEach((c, k) => (residual[k] = (residual[k] ?? 0) - c));
     used[p.stock] = (used[p.stock] ?? 0) + 1;
-    patterns.push({ stock: p.stock, counts });
+    patterns.push(clipped);
     cost += st.price;
     return true;
   };

@@ -14,6 +14,51 @@ import { expired, type Deadline } from './deadline';
 export interface Pattern {
   stock: number;
   counts: number[]; // pieces of each kind
+  /** Ripped boards: the strips side by side, each with its pieces of each kind (sum = counts). */
+  strips?: { width: number; counts: number[] }[];
+}
+
+/** The pattern with at most `wanted[k]` pieces of each kind, its strips trimmed to match; empty strips dropped. */
+export function clipPattern(p: Pattern, wanted: readonly number[]): Pattern {
+  const counts = p.counts.map((c, k) => Math.min(c, wanted[k] ?? 0));
+  if (!p.strips) return { stock: p.stock, counts };
+  const left = [...counts];
+  const strips = p.strips
+    .map((st) => ({
+      width: st.width,
+      counts: st.counts.map((c, k) => {
+        const take = Math.min(c, left[k] ?? 0);
+        left[k] = (left[k] ?? 0) - take;
+        return take;
+      }),
+    }))
+    .filter((st) => st.counts.some((c) => c > 0));
+  return { stock: p.stock, counts, strips };
+}
+
+/**
+ * Lagrangian bound for any duals y >= 0: cost >= sum(d_k y_k) - sum_s available_s * max(0, v_s - price_s),
+ * with v_s the best pattern value of stock s; for stock without a limit y is first scaled down until no
+ * pattern is worth more than its board. Valid wherever the LP stopped. Micro-dollars.
+ */
+export function lagrangianBound(demand: readonly number[], stocks: readonly LpStock[], pricer: Pricer, duals: readonly number[]): number {
+  let y = duals.map((v) => Math.max(0, v));
+  let v = stocks.map((_, s) => pricer(s, y, demand).upper);
+  let scale = 1;
+  stocks.forEach((s, i) => {
+    const vs = v[i] ?? 0;
+    if (!Number.isFinite(s.available) && vs > s.price) scale = Math.min(scale, s.price / vs);
+  });
+  if (scale < 1) {
+    y = y.map((x) => x * scale);
+    v = v.map((x) => x * scale);
+  }
+  let value = 0;
+  demand.forEach((d, k) => (value += d * (y[k] ?? 0)));
+  stocks.forEach((s, i) => {
+    if (Number.isFinite(s.available)) value -= s.available * Math.max(0, (v[i] ?? 0) - s.price);
+  });
+  return value;
 }
 
 export interface LpStock {
@@ -26,7 +71,7 @@ export type Pricer = (
   stock: number,
   y: readonly number[],
   limit: readonly number[],
-) => { counts: number[]; value: number; upper: number };
+) => { counts: number[]; value: number; upper: number; strips?: Pattern['strips'] };
 
 export interface LpSolution {
   /** Duals of the demand rows, micro-dollars per piece; valid for a Lagrangian bound wherever the LP stopped. */
@@ -63,23 +108,29 @@ export function solvePatternLp(
     return out;
   };
   const compress = (v: readonly number[]): number[] => active.map((k) => v[k] ?? 0);
-  const subPool = pool.map((p) => ({ stock: p.stock, counts: compress(p.counts) }));
+  const mapStrips = (p: Pattern, f: (v: readonly number[]) => number[]): Pattern => ({
+    stock: p.stock,
+    counts: f(p.counts),
+    ...(p.strips ? { strips: p.strips.map((st) => ({ width: st.width, counts: f(st.counts) })) } : {}),
+  });
+  const subPool = pool.map((p) => mapStrips(p, compress));
   const known = subPool.length;
   const sub = solveDense(
     compress(demand),
     stocks,
     (s, y, limit) => {
       const r = pricer(s, expand(y), expand(limit));
-      return { counts: compress(r.counts), value: r.value, upper: r.upper };
+      const strips = r.strips?.map((st) => ({ width: st.width, counts: compress(st.counts) }));
+      return { counts: compress(r.counts), value: r.value, upper: r.upper, ...(strips ? { strips } : {}) };
     },
     subPool,
     deadline,
   );
-  for (const p of subPool.slice(known)) pool.push({ stock: p.stock, counts: expand(p.counts) });
+  for (const p of subPool.slice(known)) pool.push(mapStrips(p, expand));
   return {
     ...sub,
     duals: expand(sub.duals),
-    columns: sub.columns.map((c) => ({ pattern: { stock: c.pattern.stock, counts: expand(c.pattern.counts) }, x: c.x })),
+    columns: sub.columns.map((c) => ({ pattern: mapStrips(c.pattern, expand), x: c.x })),
   };
 }
 
@@ -100,7 +151,6 @@ function solveDense(
   const price = stocks.map((s) => s.price / 1e6);
   const bigM = 4 * Math.max(1, ...price) + 1;
 
-
   // Basis: artificial columns (cost bigM) on demand rows, slacks on availability rows.
   // Row-major m x m basis inverse.
   const binv = new Float64Array(m * m);
@@ -112,18 +162,18 @@ function solveDense(
   // Crash basis: each demand row starts on the cheapest one-kind pattern of a stock without a limit, so
   // the simplex need not first drive out the artificial columns.
   for (let k = 0; k < K; k++) {
-    let best: { perPiece: number; fit: number; stock: number } | null = null;
+    let best: { perPiece: number; fit: number; stock: number; pattern: Pattern } | null = null;
     for (let s = 0; s < stocks.length; s++) {
-      if (rowOf.has(s)) continue;
+      if (rowOf.has(s) || expired(deadline)) continue;
       const single = new Array<number>(K).fill(0);
       single[k] = 1;
-      const fit = Math.min(demand[k] ?? 0, pricer(s, single, demandOne(k)).counts[k] ?? 0);
-      if (fit > 0 && (!best || (price[s] ?? 0) / fit < best.perPiece)) best = { perPiece: (price[s] ?? 0) / fit, fit, stock: s };
+      const r = pricer(s, single, demandOne(k));
+      const pattern = clipPattern({ stock: s, counts: r.counts, ...(r.strips ? { strips: r.strips } : {}) }, demandOne(k));
+      const fit = pattern.counts[k] ?? 0;
+      if (fit > 0 && (!best || (price[s] ?? 0) / fit < best.perPiece)) best = { perPiece: (price[s] ?? 0) / fit, fit, stock: s, pattern };
     }
     if (!best) continue;
-    const counts = new Array<number>(K).fill(0);
-    counts[k] = best.fit;
-    const p: Pattern = { stock: best.stock, counts };
+    const p = best.pattern;
     binv[k * m + k] = 1 / best.fit;
     xB[k] = (demand[k] ?? 0) / best.fit;
     cB[k] = price[best.stock] ?? 0;
@@ -176,7 +226,7 @@ function solveDense(
         const best = pricer(s, y, demand);
         const rc = (price[s] ?? 0) - best.value - (r === undefined ? 0 : (pi[r] ?? 0));
         if (rc < -1e-7) {
-          const p: Pattern = { stock: s, counts: best.counts };
+          const p: Pattern = { stock: s, counts: best.counts, ...(best.strips ? { strips: best.strips } : {}) };
           pool.push(p);
           offer(rc, p, -1, price[s] ?? 0);
         }

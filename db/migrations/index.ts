@@ -4,6 +4,7 @@ import * as episodes from './20261201100000_episodes';
 import * as cutlist from './20261202000000_cutlist';
 import * as shots from './20261202100000_shots';
 import * as clips from './20261203000000_clips';
+import * as jointAllowance from './20261216000000_joint_allowance';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -15,6 +16,7 @@ const migrations: Record<string, Migration> = {
   '20261202000000_cutlist': cutlist,
   '20261202100000_shots': shots,
   '20261203000000_clips': clips,
+  '20261216000000_joint_allowance': jointAllowance,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

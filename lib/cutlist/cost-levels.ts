@@ -9,7 +9,7 @@
  * S. Park, "Algorithms for the variable sized bin packing problem", EJOR 147 (2003); the feasibility
  * LP is the Gilmore–Gomory LP with free boards.
  */
-import { expired, shareOf, type Deadline } from './deadline';
+import { expired, expiredEvery, shareOf, type Deadline } from './deadline';
 import type { DiveProblem } from './dive';
 import { completionSearch } from './exact-search';
 import type { Instance, Solution } from './instance';
@@ -30,12 +30,24 @@ function listMixes(inst: Instance, lb: number, below: number, need: number, dead
   const out: Mix[] = [];
   const counts = stocks.map(() => 0);
   let tooMany = false;
+  // bestRate[s]: the most room per micro-dollar among stocks s.., to drop prefixes that cannot hold the pieces.
+  const bestRate = new Array<number>(stocks.length + 1).fill(0);
+  for (let s = stocks.length - 1; s >= 0; s--) {
+    const st = stocks[s];
+    const rate = !st ? 0 : st.price > 0 ? st.cap / st.price : Number.POSITIVE_INFINITY;
+    bestRate[s] = Math.max(bestRate[s + 1] ?? 0, rate);
+  }
   const walk = (s: number, cost: number, room: number): void => {
     if (tooMany) return;
+    if (expiredEvery(deadline)) {
+      tooMany = true;
+      return;
+    }
+    if (room < need && room + (below - 1 - cost) * (bestRate[s] ?? 0) < need) return;
     const st = stocks[s];
     if (!st) {
       if (cost >= lb && room >= need) {
-        if (out.length >= MAX_MIXES || expired(deadline)) tooMany = true;
+        if (out.length >= MAX_MIXES) tooMany = true;
         else out.push({ counts: [...counts], cost, room });
       }
       return;

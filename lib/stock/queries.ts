@@ -60,16 +60,17 @@ export async function deleteStock(channelId: string, stockId: string): Promise<v
   if (count === 0) throw notFound('That stock item');
 }
 
-type SettingsRow = { kerf_in: number; end_trim_in: number; min_offcut_in: number; length_unit: CutSettingsDto['lengthUnit'] };
+type SettingsRow = { kerf_in: number; end_trim_in: number; min_offcut_in: number; joint_in: number; length_unit: CutSettingsDto['lengthUnit'] };
 const toSettingsDto = (r: SettingsRow): CutSettingsDto => ({
   kerfIn: r.kerf_in,
   endTrimIn: r.end_trim_in,
   minOffcutIn: r.min_offcut_in,
+  jointIn: r.joint_in,
   lengthUnit: r.length_unit,
 });
 
 export async function getCutSettings(channelId: string): Promise<CutSettingsDto> {
-  const row: SettingsRow | undefined = await db('cut_settings').where({ channel_id: channelId }).first('kerf_in', 'end_trim_in', 'min_offcut_in', 'length_unit');
+  const row: SettingsRow | undefined = await db('cut_settings').where({ channel_id: channelId }).first('kerf_in', 'end_trim_in', 'min_offcut_in', 'joint_in', 'length_unit');
   return row ? toSettingsDto(row) : DEFAULT_CUT_SETTINGS;
 }
 
@@ -77,10 +78,10 @@ export async function updateCutSettings(channelId: string, input: CutSettingsInp
   const current = await getCutSettings(channelId);
   const next = { ...current, ...Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)) } as CutSettingsDto;
   const [row] = await db('cut_settings')
-    .insert({ channel_id: channelId, kerf_in: next.kerfIn, end_trim_in: next.endTrimIn, min_offcut_in: next.minOffcutIn, length_unit: next.lengthUnit })
+    .insert({ channel_id: channelId, kerf_in: next.kerfIn, end_trim_in: next.endTrimIn, min_offcut_in: next.minOffcutIn, joint_in: next.jointIn, length_unit: next.lengthUnit })
     .onConflict('channel_id')
-    .merge(['kerf_in', 'end_trim_in', 'min_offcut_in', 'length_unit', 'updated_at'])
-    .returning<SettingsRow[]>(['kerf_in', 'end_trim_in', 'min_offcut_in', 'length_unit']);
+    .merge(['kerf_in', 'end_trim_in', 'min_offcut_in', 'joint_in', 'length_unit', 'updated_at'])
+    .returning<SettingsRow[]>(['kerf_in', 'end_trim_in', 'min_offcut_in', 'joint_in', 'length_unit']);
   if (!row) throw new Error('upsert returned no row');
   return toSettingsDto(row);
 }

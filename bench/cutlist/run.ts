@@ -3,6 +3,7 @@
 // Prints boards against the proven optimum and the time for the Falkenauer u120 and t60 instances (u250 and
 // t120 too with --large), then the median time to a proven optimum for generated woodworking cut lists.
 import { readFileSync } from 'node:fs';
+import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { planLinearCuts, type LinearCutPlan, type LinearCutRequest } from '@/lib/cutlist';
 
@@ -79,9 +80,15 @@ function checkPlan(req: LinearCutRequest, plan: LinearCutPlan): string | null {
   return null;
 }
 
+let cpuOver = 0;
+
+/** Wall time of one call; also tracks how far its CPU time ran past the limit, to tell a busy machine from a slow loop. */
 function timed(req: LinearCutRequest): { plan: LinearCutPlan; ms: number } {
   const t0 = performance.now();
+  const c0 = process.cpuUsage();
   const plan = planLinearCuts(req);
+  const cpu = process.cpuUsage(c0);
+  cpuOver = Math.max(cpuOver, (cpu.user + cpu.system) / 1000 - (req.timeLimitMs ?? 2000));
   return { plan, ms: performance.now() - t0 };
 }
 
@@ -167,7 +174,10 @@ function main(): void {
     `Totals: ${hits}/${instances} at the optimum, ${proven}/${instances} proven optimal by the plan, ${invalid} invalid; time max ${Math.max(...times).toFixed(0)} ms, median ${median(times).toFixed(0)} ms`,
   );
   }
-  if (ONLY === 'falkenauer') return;
+  if (ONLY === 'falkenauer') {
+    console.log(`Hard limit: slowest call ${over.toFixed(0)} ms of wall time past timeLimitMs; load average now ${loadavg()[0]?.toFixed(1)}.`);
+    return;
+  }
 
   const random = mulberry32(20240611);
   const woodTimes: number[] = [];
@@ -199,7 +209,9 @@ function main(): void {
   console.log(
     `  proved optimal ${provedTimes.length}/${WOOD_CASES}, ${woodInvalid} invalid; median time ${median(woodTimes).toFixed(1)} ms (proved cases only ${median(provedTimes).toFixed(1)} ms), max ${Math.max(...woodTimes).toFixed(0)} ms; unproven at most ${gaps.length > 0 ? Math.max(...gaps).toFixed(2) : '0'} % over their bound`,
   );
-  console.log(`Hard limit: the slowest call ran ${over.toFixed(0)} ms past timeLimitMs (goal <= 50).`);
+  console.log(
+    `Hard limit: the slowest call ran ${over.toFixed(0)} ms of wall time past timeLimitMs (goal <= 50); the most CPU time past it was ${cpuOver.toFixed(0)} ms (load average now ${loadavg()[0]?.toFixed(1)} on ${availableParallelism()} cores).`,
+  );
 }
 
 main();

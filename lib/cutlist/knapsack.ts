@@ -24,6 +24,7 @@ export const unitOf = (sizes: readonly number[]): number => sizes.reduce((g, s) 
 
 const KNAPSACK_NODES = 200_000;
 const KNAPSACK_DP_CELLS = 4_000_000;
+let tookBuffer = new Uint8Array(1 << 16);
 
 /**
  * The same knapsack by dynamic programming over capacity in units of `unit` (a common divisor of the
@@ -51,7 +52,10 @@ function knapsackDp(
   });
   if (items.length * (W + 1) > KNAPSACK_DP_CELLS) return null;
   const dp = new Float64Array(W + 1);
-  const took = new Uint8Array(items.length * (W + 1));
+  // The choice table is reused between calls: the LP prices thousands of patterns.
+  if (tookBuffer.length < items.length * (W + 1)) tookBuffer = new Uint8Array(Math.max(items.length * (W + 1), 2 * tookBuffer.length));
+  const took = tookBuffer;
+  took.fill(0, 0, items.length * (W + 1));
   items.forEach((it, idx) => {
     for (let c = W; c >= it.units; c--) {
       const v = (dp[c - it.units] ?? 0) + it.value;

@@ -99,50 +99,44 @@ export function solvePatternLp(
   pool: Pattern[],
   deadline: Deadline,
 ): LpSolution {
-  const active = demand.flatMap((d, k) => (d > 0 ? [k] : []));
-  if (active.length === demand.length) return solveDense(demand, stocks, pricer, pool, deadline);
   // Kinds already cut in full drop out, so later solves of a dive work on fewer rows.
-  const expand = (v: readonly number[]): number[] => {
-    const out = new Array<number>(demand.length).fill(0);
-    active.forEach((k, i) => (out[k] = v[i] ?? 0));
-    return out;
-  };
-  const compress = (v: readonly number[]): number[] => active.map((k) => v[k] ?? 0);
-  const mapStrips = (p: Pattern, f: (v: readonly number[]) => number[]): Pattern => ({
-    stock: p.stock,
-    counts: f(p.counts),
-    ...(p.strips ? { strips: p.strips.map((st) => ({ width: st.width, counts: f(st.counts) })) } : {}),
-  });
-  const subPool = pool.map((p) => mapStrips(p, compress));
-  const known = subPool.length;
-  const sub = solveDense(
-    compress(demand),
-    stocks,
-    (s, y, limit) => {
-      const r = pricer(s, expand(y), expand(limit));
-      const strips = r.strips?.map((st) => ({ width: st.width, counts: compress(st.counts) }));
-      return { counts: compress(r.counts), value: r.value, upper: r.upper, ...(strips ? { strips } : {}) };
-    },
-    subPool,
-    deadline,
-  );
-  for (const p of subPool.slice(known)) pool.push(mapStrips(p, expand));
-  return {
-    ...sub,
-    duals: expand(sub.duals),
-    columns: sub.columns.map((c) => ({ pattern: mapStrips(c.pattern, expand), x: c.x })),
-  };
+  const active = demand.flatMap((d, k) => (d > 0 ? [k] : []));
+  return solveDense(demand, active, stocks, pricer, pool, deadline);
 }
 
+// The most pieces of one kind a board holds, per pricer: asked once, not on every LP solve of a dive.
+const singleKind = new WeakMap<Pricer, Map<string, Pattern>>();
+function singleKindPattern(pricer: Pricer, stock: number, kind: number, kinds: number): Pattern {
+  let cache = singleKind.get(pricer);
+  if (!cache) {
+    cache = new Map();
+    singleKind.set(pricer, cache);
+  }
+  const key = `${stock}:${kind}`;
+  let p = cache.get(key);
+  if (!p) {
+    const y = new Array<number>(kinds).fill(0);
+    y[kind] = 1;
+    const r = pricer(stock, y, new Array<number>(kinds).fill(Number.MAX_SAFE_INTEGER));
+    p = { stock, counts: r.counts, ...(r.strips ? { strips: r.strips } : {}) };
+    cache.set(key, p);
+  }
+  return p;
+}
+
+/** Rows for the kinds in `active` only; patterns, duals and the pricer stay in full kind order. */
 function solveDense(
-  demand: readonly number[],
+  full: readonly number[],
+  active: readonly number[],
   stocks: readonly LpStock[],
   pricer: Pricer,
   pool: Pattern[],
   deadline: Deadline,
 ): LpSolution {
-  const K = demand.length;
-  const demandOne = (k: number): number[] => demand.map((d, j) => (j === k ? d : 0));
+  const K = active.length;
+  const N = full.length;
+  const demand = active.map((k) => full[k] ?? 0);
+  const demandOne = (k: number): number[] => full.map((d, j) => (j === active[k] ? d : 0));
   const finite = stocks.map((s, i) => (Number.isFinite(s.available) ? i : -1)).filter((i) => i >= 0);
   const rowOf = new Map<number, number>();
   finite.forEach((s, r) => rowOf.set(s, K + r));
@@ -165,11 +159,8 @@ function solveDense(
     let best: { perPiece: number; fit: number; stock: number; pattern: Pattern } | null = null;
     for (let s = 0; s < stocks.length; s++) {
       if (rowOf.has(s) || expired(deadline)) continue;
-      const single = new Array<number>(K).fill(0);
-      single[k] = 1;
-      const r = pricer(s, single, demandOne(k));
-      const pattern = clipPattern({ stock: s, counts: r.counts, ...(r.strips ? { strips: r.strips } : {}) }, demandOne(k));
-      const fit = pattern.counts[k] ?? 0;
+      const pattern = clipPattern(singleKindPattern(pricer, s, active[k] ?? 0, N), demandOne(k));
+      const fit = pattern.counts[active[k] ?? 0] ?? 0;
       if (fit > 0 && (!best || (price[s] ?? 0) / fit < best.perPiece)) best = { perPiece: (price[s] ?? 0) / fit, fit, stock: s, pattern };
     }
     if (!best) continue;
@@ -213,17 +204,18 @@ function solveDense(
     // Columns already known are cheaper to price than a new knapsack.
     for (const p of pool) {
       let v = 0;
-      for (let k = 0; k < K; k++) v += (p.counts[k] ?? 0) * (pi[k] ?? 0);
+      for (let k = 0; k < K; k++) v += (p.counts[active[k] ?? 0] ?? 0) * (pi[k] ?? 0);
       const r = rowOf.get(p.stock);
       const rc = (price[p.stock] ?? 0) - v - (r === undefined ? 0 : (pi[r] ?? 0));
       if (rc < -1e-7) offer(rc, p, -1, price[p.stock] ?? 0);
     }
     if (enterUnit < 0 && enterPattern === null) {
-      const y = Array.from(pi.subarray(0, K), (v) => Math.max(0, v));
+      const y = new Array<number>(N).fill(0);
+      for (let k = 0; k < K; k++) y[active[k] ?? 0] = Math.max(0, pi[k] ?? 0);
       for (let s = 0; s < stocks.length; s++) {
         if (expired(deadline)) break;
         const r = rowOf.get(s);
-        const best = pricer(s, y, demand);
+        const best = pricer(s, y, full);
         const rc = (price[s] ?? 0) - best.value - (r === undefined ? 0 : (pi[r] ?? 0));
         if (rc < -1e-7) {
           const p: Pattern = { stock: s, counts: best.counts, ...(best.strips ? { strips: best.strips } : {}) };
@@ -239,7 +231,7 @@ function solveDense(
     const chosenPattern = enterPattern as Pattern | null;
     const col = colBuf.fill(0);
     if (chosenPattern) {
-      for (let k = 0; k < K; k++) col[k] = chosenPattern.counts[k] ?? 0;
+      for (let k = 0; k < K; k++) col[k] = chosenPattern.counts[active[k] ?? 0] ?? 0;
       const r = rowOf.get(chosenPattern.stock);
       if (r !== undefined) col[r] = 1;
     } else col[enterUnit] = enterUnit < K ? -1 : 1;
@@ -298,5 +290,7 @@ function solveDense(
       value += x * (price[p.stock] ?? 0);
     }
   }
-  return { duals: Array.from(pi.subarray(0, K), (v) => Math.max(0, v) * 1e6), columns, value: value * 1e6, converged, infeasible };
+  const duals = new Array<number>(N).fill(0);
+  for (let k = 0; k < K; k++) duals[active[k] ?? 0] = Math.max(0, pi[k] ?? 0) * 1e6;
+  return { duals, columns, value: value * 1e6, converged, infeasible };
 }

@@ -166,32 +166,40 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
     const dual = dualBound(inst, kinds, root.duals, deadline);
     lb = Math.max(lb, achievableCost(inst.stocks, Math.ceil(dual.value - 1e-3 - 1e-9 * Math.abs(dual.value)), deadline));
     finished = proven();
+    const single = inst.stocks.length === 1;
+    if (!finished && single) {
+      // One length (Falkenauer's sets): bin completion on the root duals is quick on exactly-full instances
+      // (t60's triplets), so it goes first; LP dives then find what it misses (u120).
+      const result = completionSearch(inst, kinds, dual, best.score.unplaced === 0 ? best : null, shareOf(deadline, 0.3));
+      if (result.best && better(result.best.score, best.score)) best = result.best;
+      finished = result.finished || proven();
+    }
     if (!finished && best.score.unplaced === 0) {
-      const dived = diveSearch(problem, lb, shareOf(deadline, inst.stocks.length > 1 ? 0.3 : 0.5), rng(7));
+      const dived = diveSearch(problem, lb, shareOf(deadline, single ? 0.6 : 0.3), rng(7));
       if (dived) {
         const sol = downgrade(inst, solutionOf(inst, kinds, dived.patterns));
         if (better(sol.score, best.score)) best = sol;
       }
       finished = proven();
     }
-    // With one stock length the LP bound is nearly always the optimum (Falkenauer's sets), so the dives and
-    // bin completion below do better than listing board counts; with several, mixes of lengths are the gap.
-    if (!finished && best.score.unplaced === 0 && inst.stocks.length > 1) {
+    // Several priced lengths: the gap is in the mix of lengths, so list mixes by cost (cost-levels.ts), then
+    // bin completion with the pattern LP of what is left as its node bound.
+    if (!finished && !single && best.score.unplaced === 0) {
       const levels = searchCostLevels(inst, kinds, problem, best, lb, shareOf(deadline, 0.7));
       best = levels.best;
       lb = Math.max(lb, levels.lb);
       finished = levels.finished || proven();
     }
-    if (!finished) {
-      // A depth-first search that has not closed the gap by then is usually stuck deep in the tree, where
-      // ruin and recreate still finds better plans (u120_00 in bench/cutlist), so it gets the rest.
+    if (!finished && !single) {
       const result = completionSearch(inst, kinds, dual, best.score.unplaced === 0 ? best : null, shareOf(deadline, 0.6), problem);
       if (result.best && better(result.best.score, best.score)) best = result.best;
       finished = result.finished || proven();
-      if (!finished && best.score.unplaced === 0) {
-        best = improve(inst, best, lb, deadline);
-        finished = proven();
-      }
+    }
+    // A depth-first search that has not closed the gap is usually stuck deep in the tree, where ruin and
+    // recreate still finds better plans, so it gets what time is left.
+    if (!finished && best.score.unplaced === 0) {
+      best = improve(inst, best, lb, deadline);
+      finished = proven();
     }
   }
 

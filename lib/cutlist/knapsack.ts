@@ -36,20 +36,35 @@ function knapsackDp(
   limit: readonly number[],
   cap: number,
   unit: number,
+  tableCap: number,
 ): { value: number; upper: number; counts: number[] } | null {
-  const W = Math.floor(cap / unit);
-  const items: { kind: number; copies: number; units: number; value: number }[] = [];
-  sizes.forEach((s, k) => {
-    const v = values[k] ?? 0;
-    const u = s / unit;
-    if (v <= 0 || u > W) return;
-    let rest = Math.min(limit[k] ?? 0, Math.floor(W / u));
-    for (let c = 1; rest > 0; c *= 2) {
-      const take = Math.min(c, rest);
-      items.push({ kind: k, copies: take, units: take * u, value: take * v });
-      rest -= take;
-    }
-  });
+  // dp[c] is the best value within c units, so one table up to the largest board serves every board
+  // priced with the same values (the LP prices all stocks for one set of duals in a row).
+  const last = lastTable;
+  if (last && last.sizes === sizes && last.values === values && last.limit === limit && last.unit === unit && cap <= last.W * unit) {
+    return readTable(last, sizes, Math.floor(cap / unit));
+  }
+  const itemsFor = (W: number): { kind: number; copies: number; units: number; value: number }[] => {
+    const out: { kind: number; copies: number; units: number; value: number }[] = [];
+    sizes.forEach((s, k) => {
+      const v = values[k] ?? 0;
+      const u = s / unit;
+      if (v <= 0 || u > W) return;
+      let rest = Math.min(limit[k] ?? 0, Math.floor(W / u));
+      for (let c = 1; rest > 0; c *= 2) {
+        const take = Math.min(c, rest);
+        out.push({ kind: k, copies: take, units: take * u, value: take * v });
+        rest -= take;
+      }
+    });
+    return out;
+  };
+  let W = Math.floor(Math.max(cap, tableCap) / unit);
+  let items = itemsFor(W);
+  if (items.length * (W + 1) > KNAPSACK_DP_CELLS && tableCap > cap) {
+    W = Math.floor(cap / unit);
+    items = itemsFor(W);
+  }
   if (items.length * (W + 1) > KNAPSACK_DP_CELLS) return null;
   const dp = new Float64Array(W + 1);
   // The choice table is reused between calls: the LP prices thousands of patterns.
@@ -65,16 +80,34 @@ function knapsackDp(
       }
     }
   });
+  lastTable = { sizes, values, limit, unit, W, items, dp, took };
+  return readTable(lastTable, sizes, Math.floor(cap / unit));
+}
+
+interface DpTable {
+  sizes: readonly number[];
+  values: readonly number[];
+  limit: readonly number[];
+  unit: number;
+  W: number;
+  items: { kind: number; copies: number; units: number; value: number }[];
+  dp: Float64Array;
+  took: Uint8Array;
+}
+// The table of the last DP; its choice bits live in tookBuffer, so only the last one can be read back.
+let lastTable: DpTable | null = null;
+
+function readTable(t: DpTable, sizes: readonly number[], w: number): { value: number; upper: number; counts: number[] } {
   const counts = sizes.map(() => 0);
-  let c = W;
-  for (let idx = items.length - 1; idx >= 0; idx--) {
-    const it = items[idx];
-    if (it && took[idx * (W + 1) + c] === 1) {
+  let c = w;
+  for (let idx = t.items.length - 1; idx >= 0; idx--) {
+    const it = t.items[idx];
+    if (it && t.took[idx * (t.W + 1) + c] === 1) {
       counts[it.kind] = (counts[it.kind] ?? 0) + it.copies;
       c -= it.units;
     }
   }
-  const value = dp[W] ?? 0;
+  const value = t.dp[w] ?? 0;
   return { value, upper: value, counts };
 }
 
@@ -91,9 +124,10 @@ export function knapsack(
   cap: number,
   unit = 0,
   deadline?: Deadline,
+  tableCap = 0,
 ): { value: number; upper: number; counts: number[] } {
   if (unit > 0) {
-    const dp = knapsackDp(sizes, values, limit, cap, unit);
+    const dp = knapsackDp(sizes, values, limit, cap, unit, tableCap);
     if (dp) return dp;
   }
   const order = sizes

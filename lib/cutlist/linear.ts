@@ -112,10 +112,11 @@ export function firstFitDecreasing(req: LinearCutRequest): LinearCutPlan {
 function lpProblem(inst: Instance, kinds: readonly Kind[], deadline: Deadline): DiveProblem {
   const sizes = kinds.map((k) => k.size);
   const unit = unitOf(sizes);
+  const maxCap = Math.max(0, ...inst.stocks.map((s) => s.cap));
   return {
     demand: kinds.map((k) => k.pieces.length),
     stocks: inst.stocks.map((s) => ({ price: s.price, available: s.available })),
-    pricer: (s, y, limit) => knapsack(sizes, y, limit, inst.stocks[s]?.cap ?? 0, unit, deadline),
+    pricer: (s, y, limit) => knapsack(sizes, y, limit, inst.stocks[s]?.cap ?? 0, unit, deadline, maxCap),
     pool: [],
   };
 }

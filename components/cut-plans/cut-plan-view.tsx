@@ -8,6 +8,10 @@ import { Stat } from '@/components/ui/stat';
 
 export const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
 
+/** One sentence on the difference, shown below the plan's verdict and on hover beside each stock. */
+const PLAN_QUALITY_NOTE =
+  'A least-cost plan was checked against every cheaper way to buy the stock; a good plan is the best found in the time allowed, and a cheaper one may exist.';
+
 type Props = {
   plan: CutPlan;
   unit: 'in' | 'mm';
@@ -30,9 +34,10 @@ export function CutPlanView({ plan, unit, kerfIn, shopping, cutting }: Props) {
         <Stat label="Pieces" value={String(plan.pieceCount)} />
         <Stat label="Kerf" value={fmt(kerfIn)} />
       </dl>
-      <p role="status" className={`text-sm font-bold ${plan.optimal ? 'text-ok' : 'text-ink-soft'}`}>
-        {plan.optimal ? 'Proven least-cost plan.' : 'Best plan found in the time allowed; not proven least-cost.'}
-      </p>
+      <div role="status" className="text-sm">
+        <p className={`font-bold ${plan.optimal ? 'text-ok' : 'text-ink-soft'}`}>{plan.optimal ? 'Least-cost plan.' : 'Good plan, may not be the cheapest.'}</p>
+        <p className="text-ink-faint">{PLAN_QUALITY_NOTE}</p>
+      </div>
       {plan.noStock.length > 0 ? (
         <div className="rounded-md border-l-4 border-attention bg-attention-soft px-4 py-3 text-sm text-attention-ink">
           <p className="font-bold">Parts without stock</p>
@@ -74,7 +79,7 @@ function StockSection({
       <h3 className="text-base font-bold">{g.stock.name}</h3>
       <p className="text-xs text-ink-faint">
         {sheet ? `${g.squareFeet?.toFixed(1)} sq ft` : `${g.boardFeet?.toFixed(2)} board feet`} · waste {g.wastePercent.toFixed(1)}% ·{' '}
-        {g.optimal ? 'proven least-cost' : `not proven (bound ${money(g.lowerBoundCents)})`}
+        <span title={PLAN_QUALITY_NOTE}>{g.optimal ? 'least-cost plan' : 'good plan, may not be the cheapest'}</span>
       </p>
       <table className="mt-3 w-full text-left text-sm">
         <caption className="sr-only">Buy: {g.stock.name}</caption>
@@ -118,7 +123,7 @@ function StockSection({
         <ul className="mt-3 list-disc rounded-md bg-attention-soft py-2 pl-8 pr-3 text-sm text-attention-ink">
           {g.unplaced.map((u) => (
             <li key={u.partId}>
-              {u.quantity} × {u.name} not placed: {u.reason}
+              {u.quantity} × {u.name} cannot be cut from this stock: {u.reason}
             </li>
           ))}
         </ul>

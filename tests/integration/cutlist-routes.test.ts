@@ -252,16 +252,21 @@ describe('lengths and sizes as typed', () => {
   it('starts from the default cut settings, takes fractions, and refuses an empty change', async () => {
     const c = await makeCrew();
     // Common practice: a full-kerf blade is about 1/8".
-    expect(await settingsOf(c)).toEqual({ kerfIn: 0.125, endTrimIn: 0, minOffcutIn: 12, lengthUnit: 'in' });
+    expect(await settingsOf(c)).toEqual({ kerfIn: 0.125, endTrimIn: 0, minOffcutIn: 12, jointIn: 0.0625, lengthUnit: 'in' });
     const patch = (body: unknown) => call(cutSettingsRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug }, body });
-    expect((await patch({ kerfIn: '3/32', lengthUnit: 'mm' })).json.settings).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 12, lengthUnit: 'mm' });
+    expect((await patch({ kerfIn: '3/32', lengthUnit: 'mm' })).json.settings).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 12, jointIn: 0.0625, lengthUnit: 'mm' });
     expect((await patch({ minOffcutIn: "1' 6\"" })).json.settings).toMatchObject({ kerfIn: 3 / 32, minOffcutIn: 18, lengthUnit: 'mm' });
     const empty = await patch({});
     expect(empty.status).toBe(400);
     const bad = await patch({ kerfIn: '1/8', endTrimIn: '25' });
     expect(Object.keys(bad.json.error?.fields ?? {})).toEqual(['endTrimIn']);
     // The refused change wrote nothing, not even its valid kerf.
-    expect(await settingsOf(c)).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 18, lengthUnit: 'mm' });
+    expect(await settingsOf(c)).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 18, jointIn: 0.0625, lengthUnit: 'mm' });
+    // Jointing per rip: a shop setting like the kerf, 0 to 1 inch.
+    expect((await patch({ jointIn: '1/32' })).json.settings).toMatchObject({ jointIn: 1 / 32 });
+    const wide = await patch({ jointIn: '2' });
+    expect(wide.status).toBe(400);
+    expect(Object.keys(wide.json.error?.fields ?? {})).toEqual(['jointIn']);
   });
 });
 

@@ -1,9 +1,10 @@
 'use client';
 
 import type { CutPlan, StockPlan } from '@/lib/cut-plans/build';
-import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
 import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
+import { BoardTicks, boughtOf, type Shopping } from './board-ticks';
+import { Fragment } from 'react';
 import { Stat } from '@/components/ui/stat';
 
 export const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
@@ -16,7 +17,7 @@ type Props = {
   plan: CutPlan;
   unit: 'in' | 'mm';
   kerfIn: number;
-  shopping?: { ticks: ShoppingTickDto[]; onTick: (t: ShoppingTickDto) => void; disabled: boolean } | undefined;
+  shopping?: Shopping | undefined;
   cutting?: { onCut: (partId: string, cutCount: number) => void; disabled: boolean } | undefined;
 };
 
@@ -94,27 +95,28 @@ function StockSection({
         </thead>
         <tbody>
           {g.purchase.map((p) => {
-            const bought = shopping?.ticks.find((t) => t.stockItemId === g.stock.id && t.sizeKey === p.sizeKey)?.bought ?? 0;
             const label = `${p.count} × ${g.stock.name}, ${sizeLabel(p)}`;
             return (
-              <tr key={p.sizeKey} className="border-b border-paper-edge/60">
+              <Fragment key={p.sizeKey}>
+                <tr className={shopping ? '' : 'border-b border-paper-edge/60'}>
+                  {shopping ? (
+                    <td className="py-1 pr-2 font-mono">
+                      {boughtOf(shopping, g.stock.id, p.sizeKey, p.count)}/{p.count}
+                    </td>
+                  ) : null}
+                  <td className="py-1 pr-2 font-mono">{sizeLabel(p)}</td>
+                  <td className="py-1 pr-2 text-right font-mono">{p.count}</td>
+                  <td className="py-1 pr-2 text-right font-mono">{money(p.unitCents)}</td>
+                  <td className="py-1 text-right font-mono">{money(p.costCents)}</td>
+                </tr>
                 {shopping ? (
-                  <td className="py-1 pr-2">
-                    <input
-                      type="checkbox"
-                      className="h-6 w-6 accent-ok"
-                      aria-label={`Bought ${label}`}
-                      checked={bought >= p.count}
-                      disabled={shopping.disabled}
-                      onChange={(e) => shopping.onTick({ stockItemId: g.stock.id, sizeKey: p.sizeKey, bought: e.target.checked ? p.count : 0 })}
-                    />
-                  </td>
+                  <tr className="border-b border-paper-edge/60">
+                    <td colSpan={5} className="pb-2">
+                      <BoardTicks shopping={shopping} stockItemId={g.stock.id} sizeKey={p.sizeKey} count={p.count} label={label} />
+                    </td>
+                  </tr>
                 ) : null}
-                <td className="py-1 pr-2 font-mono">{sizeLabel(p)}</td>
-                <td className="py-1 pr-2 text-right font-mono">{p.count}</td>
-                <td className="py-1 pr-2 text-right font-mono">{money(p.unitCents)}</td>
-                <td className="py-1 text-right font-mono">{money(p.costCents)}</td>
-              </tr>
+              </Fragment>
             );
           })}
         </tbody>

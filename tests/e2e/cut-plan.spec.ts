@@ -53,16 +53,19 @@ test('the shop hand stocks the rack, lists parts, and ticks off the shopping and
   const whole = page.getByRole('region', { name: stockName });
   // The checkboxes are driven by the plan's data, which updates a tick after the click.
   const bought = page.waitForResponse((r) => r.request().method() === 'PUT' && r.url().endsWith('/shopping'));
-  await whole.getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` }).click();
+  // One tick per board: board 2 of the five 120" boards goes on the cart, the others stay open.
+  await whole.getByRole('checkbox', { name: `Bought 2 of 5 × ${stockName}, 120"` }).click();
   expect((await bought).status()).toBe(200);
-  await expect(whole.getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` })).toBeChecked();
+  await expect(whole.getByRole('checkbox', { name: `Bought 2 of 5 × ${stockName}, 120"` })).toBeChecked();
+  await expect(whole.getByRole('checkbox', { name: `Bought 1 of 5 × ${stockName}, 120"` })).not.toBeChecked();
+  await expect(whole.getByRole('row', { name: /^1\/5 120"/ })).toBeVisible();
   const cutSaved = page.waitForResponse((r) => r.request().method() === 'PATCH' && r.url().includes('/parts/'));
   await whole.getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first().click();
   expect((await cutSaved).status()).toBe(200);
   await expect(whole.getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first()).toBeChecked();
   await page.waitForLoadState('networkidle');
   await page.reload();
-  await expect(page.getByRole('region', { name: stockName }).getByRole('checkbox', { name: `Bought 5 × ${stockName}, 120"` })).toBeChecked();
+  await expect(page.getByRole('region', { name: stockName }).getByRole('checkbox', { name: `Bought 2 of 5 × ${stockName}, 120"` })).toBeChecked();
   await expect(page.getByRole('region', { name: stockName }).getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first()).toBeChecked();
   await expectAccessible(page);
 

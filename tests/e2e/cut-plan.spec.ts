@@ -8,7 +8,7 @@ async function openStarterBuild(page: Page) {
   await expect(page.getByRole('heading', { name: 'Parts list' })).toBeVisible();
 }
 
-test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ signedIn }) => {
+test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ signedIn }, testInfo) => {
   const species = `Fir ${Date.now().toString(36)}`;
   const stockName = `2x4 ${species}`;
   const partName = `Rail ${species}`;
@@ -68,6 +68,14 @@ test('the shop hand stocks the rack, lists parts, and ticks off the shopping and
   await expect(page.getByRole('region', { name: stockName }).getByRole('checkbox', { name: `Bought 2 of 5 × ${stockName}, 120"` })).toBeChecked();
   await expect(page.getByRole('region', { name: stockName }).getByRole('list', { name: 'Cuts on board 1' }).getByRole('checkbox').first()).toBeChecked();
   await expectAccessible(page);
+  // The per-board shopping ticks, for a look at both widths.
+  await page.getByRole('region', { name: stockName }).scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('shopping-ticks-1280.png') });
+  await page.setViewportSize({ width: 375, height: 900 });
+  await page.getByRole('region', { name: stockName }).scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('shopping-ticks-375.png') });
+  await expectAccessible(page);
+  await page.setViewportSize({ width: 1280, height: 900 });
 
   await page.getByRole('button', { name: /Level 1/ }).click();
   await expect(page.getByRole('region', { name: stockName })).toBeVisible();

@@ -5,13 +5,17 @@ type Props = { board: PlanBoard; sheet: boolean; unit: 'in' | 'mm'; title: strin
 
 /**
  * One board or sheet drawn to scale, its length running left to right. Gaps between pieces are the
- * kerfs; the hatched tail of a board is its offcut.
+ * kerfs; the hatched tail of a board is its offcut. A ripped board shows its strips across the width,
+ * the dashed rip lines numbered in cut order, and lists "rip to …, then crosscut" per strip.
  */
 export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
   const fmt = (n: number) => formatLength(n, { unit });
   const scale = 1000 / Math.max(board.lengthIn, 1);
+  const strips = sheet ? undefined : board.strips;
+  // Ripped boards are drawn across their width too; a narrow board is stretched across only to stay legible.
+  const scaleY = strips ? Math.max(scale, 60 / Math.max(board.widthIn, 1e-6)) : scale;
   const w = board.lengthIn * scale;
-  const h = Math.max(board.widthIn * scale, sheet ? 0 : 60);
+  const h = strips ? board.widthIn * scaleY : Math.max(board.widthIn * scale, sheet ? 0 : 60);
   const labelSize = Math.max(14, Math.min(28, h / 4));
   return (
     <figure className={`break-inside-avoid ${sheet ? 'max-w-xl' : ''}`}>
@@ -26,9 +30,9 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
         {board.pieces.map((p) => {
           // Sheets: x runs across the width, y along the length; drawn with the length horizontal.
           const x = p.y * scale;
-          const y = sheet ? p.x * scale : 0;
+          const y = sheet ? p.x * scale : strips ? p.x * scaleY : 0;
           const pw = p.lengthIn * scale;
-          const ph = sheet ? p.widthIn * scale : h;
+          const ph = sheet ? p.widthIn * scale : strips ? p.widthIn * scaleY : h;
           const cut = (cutCounts?.get(p.partId) ?? 0) > p.pieceIndex;
           const label = `${p.name} ${fmt(p.lengthIn)}${sheet ? ` × ${fmt(p.widthIn)}` : ''}`;
           return (
@@ -47,11 +51,29 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
             </g>
           );
         })}
+        {strips?.map((st, i) => (
+          // Rip line after each strip, numbered in cut order.
+          <g key={`rip-${i}`}>
+            <line x1="0" x2={w} y1={(st.x + st.widthIn) * scaleY} y2={(st.x + st.widthIn) * scaleY} className="stroke-blueprint" strokeWidth="2" strokeDasharray="10 6" />
+            <text x="6" y={st.x * scaleY + Math.min(labelSize, st.widthIn * scaleY * 0.8)} fontSize={Math.min(labelSize, st.widthIn * scaleY * 0.8)} className="fill-blueprint font-mono">
+              {i + 1}
+            </text>
+          </g>
+        ))}
       </svg>
       <figcaption className="mt-1 text-xs text-ink-faint">
         {title}
         {!sheet && board.offcutIn > 0 ? ` · offcut ${fmt(board.offcutIn)}${board.keepOffcut ? ' (keep)' : ' (scrap)'}` : ''}
       </figcaption>
+      {strips && strips.length > 0 ? (
+        <ol className="mt-1 list-decimal pl-6 text-sm">
+          {strips.map((st, i) => (
+            <li key={i}>
+              Rip to <span className="font-mono">{fmt(st.widthIn)}</span>, then crosscut
+            </li>
+          ))}
+        </ol>
+      ) : null}
     </figure>
   );
 }

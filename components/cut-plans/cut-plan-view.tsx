@@ -1,18 +1,23 @@
 'use client';
 
 import type { CutPlan, StockPlan } from '@/lib/cut-plans/build';
-import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
 import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
+import { BoardTicks, boughtOf, type Shopping } from './board-ticks';
+import { Fragment } from 'react';
 import { Stat } from '@/components/ui/stat';
 
 export const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
+
+/** One sentence on the difference, shown below the plan's verdict and on hover beside each stock. */
+const PLAN_QUALITY_NOTE =
+  'A least-cost plan was checked against every cheaper way to buy the stock; a good plan is the best found in the time allowed, and a cheaper one may exist.';
 
 type Props = {
   plan: CutPlan;
   unit: 'in' | 'mm';
   kerfIn: number;
-  shopping?: { ticks: ShoppingTickDto[]; onTick: (t: ShoppingTickDto) => void; disabled: boolean } | undefined;
+  shopping?: Shopping | undefined;
   cutting?: { onCut: (partId: string, cutCount: number) => void; disabled: boolean } | undefined;
 };
 
@@ -30,9 +35,10 @@ export function CutPlanView({ plan, unit, kerfIn, shopping, cutting }: Props) {
         <Stat label="Pieces" value={String(plan.pieceCount)} />
         <Stat label="Kerf" value={fmt(kerfIn)} />
       </dl>
-      <p role="status" className={`text-sm font-bold ${plan.optimal ? 'text-ok' : 'text-ink-soft'}`}>
-        {plan.optimal ? 'Proven least-cost plan.' : 'Best plan found in the time allowed; not proven least-cost.'}
-      </p>
+      <div role="status" className="text-sm">
+        <p className={`font-bold ${plan.optimal ? 'text-ok' : 'text-ink-soft'}`}>{plan.optimal ? 'Least-cost plan.' : 'Good plan, may not be the cheapest.'}</p>
+        <p className="text-ink-faint">{PLAN_QUALITY_NOTE}</p>
+      </div>
       {plan.noStock.length > 0 ? (
         <div className="rounded-md border-l-4 border-attention bg-attention-soft px-4 py-3 text-sm text-attention-ink">
           <p className="font-bold">Parts without stock</p>
@@ -74,7 +80,7 @@ function StockSection({
       <h3 className="text-base font-bold">{g.stock.name}</h3>
       <p className="text-xs text-ink-faint">
         {sheet ? `${g.squareFeet?.toFixed(1)} sq ft` : `${g.boardFeet?.toFixed(2)} board feet`} · waste {g.wastePercent.toFixed(1)}% ·{' '}
-        {g.optimal ? 'proven least-cost' : `not proven (bound ${money(g.lowerBoundCents)})`}
+        <span title={PLAN_QUALITY_NOTE}>{g.optimal ? 'least-cost plan' : 'good plan, may not be the cheapest'}</span>
       </p>
       <table className="mt-3 w-full text-left text-sm">
         <caption className="sr-only">Buy: {g.stock.name}</caption>
@@ -89,27 +95,28 @@ function StockSection({
         </thead>
         <tbody>
           {g.purchase.map((p) => {
-            const bought = shopping?.ticks.find((t) => t.stockItemId === g.stock.id && t.sizeKey === p.sizeKey)?.bought ?? 0;
             const label = `${p.count} × ${g.stock.name}, ${sizeLabel(p)}`;
             return (
-              <tr key={p.sizeKey} className="border-b border-paper-edge/60">
+              <Fragment key={p.sizeKey}>
+                <tr className={shopping ? '' : 'border-b border-paper-edge/60'}>
+                  {shopping ? (
+                    <td className="py-1 pr-2 font-mono">
+                      {boughtOf(shopping, g.stock.id, p.sizeKey, p.count)}/{p.count}
+                    </td>
+                  ) : null}
+                  <td className="py-1 pr-2 font-mono">{sizeLabel(p)}</td>
+                  <td className="py-1 pr-2 text-right font-mono">{p.count}</td>
+                  <td className="py-1 pr-2 text-right font-mono">{money(p.unitCents)}</td>
+                  <td className="py-1 text-right font-mono">{money(p.costCents)}</td>
+                </tr>
                 {shopping ? (
-                  <td className="py-1 pr-2">
-                    <input
-                      type="checkbox"
-                      className="h-6 w-6 accent-ok"
-                      aria-label={`Bought ${label}`}
-                      checked={bought >= p.count}
-                      disabled={shopping.disabled}
-                      onChange={(e) => shopping.onTick({ stockItemId: g.stock.id, sizeKey: p.sizeKey, bought: e.target.checked ? p.count : 0 })}
-                    />
-                  </td>
+                  <tr className="border-b border-paper-edge/60">
+                    <td colSpan={5} className="pb-2">
+                      <BoardTicks shopping={shopping} stockItemId={g.stock.id} sizeKey={p.sizeKey} count={p.count} label={label} />
+                    </td>
+                  </tr>
                 ) : null}
-                <td className="py-1 pr-2 font-mono">{sizeLabel(p)}</td>
-                <td className="py-1 pr-2 text-right font-mono">{p.count}</td>
-                <td className="py-1 pr-2 text-right font-mono">{money(p.unitCents)}</td>
-                <td className="py-1 text-right font-mono">{money(p.costCents)}</td>
-              </tr>
+              </Fragment>
             );
           })}
         </tbody>
@@ -118,7 +125,7 @@ function StockSection({
         <ul className="mt-3 list-disc rounded-md bg-attention-soft py-2 pl-8 pr-3 text-sm text-attention-ink">
           {g.unplaced.map((u) => (
             <li key={u.partId}>
-              {u.quantity} × {u.name} not placed: {u.reason}
+              {u.quantity} × {u.name} cannot be cut from this stock: {u.reason}
             </li>
           ))}
         </ul>

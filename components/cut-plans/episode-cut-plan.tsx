@@ -6,7 +6,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ApiError, apiFetch } from '@/lib/api/client';
 import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
-import type { ShoppingTickDto } from '@/lib/cut-plans/schemas';
+import type { ShoppingTickInput } from '@/lib/cut-plans/schemas';
 import { CutPlanView, money } from './cut-plan-view';
 import { SafetyNote } from './safety-note';
 import { channelApi } from '@/lib/api/paths';
@@ -27,16 +27,19 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
   });
   const onError = (e: unknown) => setError(e instanceof ApiError ? e.message : 'Could not save.');
   const tick = useMutation({
-    mutationFn: (t: ShoppingTickDto) => apiFetch(channelApi(channelSlug, 'episodes', episodeId, 'shopping'), { method: 'PUT', body: t }),
+    mutationFn: (t: ShoppingTickInput) => apiFetch(channelApi(channelSlug, 'episodes', episodeId, 'shopping'), { method: 'PUT', body: t }),
     onError,
     onSettled: () => client.invalidateQueries({ queryKey: key }),
   });
   // Optimistic and synchronous, so the checkbox a shop hand taps flips at once.
-  const markBought = (t: ShoppingTickDto) => {
+  const markBought = (t: ShoppingTickInput) => {
     setError(undefined);
-    client.setQueryData<EpisodePlanDto>(key, (d) =>
-      d && { ...d, ticks: [...d.ticks.filter((x) => !(x.stockItemId === t.stockItemId && x.sizeKey === t.sizeKey)), t] },
-    );
+    const same = (x: EpisodePlanDto['ticks'][number]) => x.stockItemId === t.stockItemId && x.sizeKey === t.sizeKey && x.board === t.board;
+    client.setQueryData<EpisodePlanDto>(key, (d) => {
+      if (!d) return d;
+      const others = d.ticks.filter((x) => !same(x));
+      return { ...d, ticks: t.bought ? [...others, { stockItemId: t.stockItemId, sizeKey: t.sizeKey, board: t.board }] : others };
+    });
     tick.mutate(t);
   };
   const cut = useMutation({

@@ -61,7 +61,7 @@ export function PartForm({ stock, unit, part, errors, pending, submitLabel, onSu
       <TextField label="Length" name="lengthIn" defaultValue={fmt(part?.lengthIn)} error={errors.lengthIn} placeholder='32 1/2 or 2′ 8"' />
       <TextField label="Width" name="widthIn" defaultValue={fmt(part?.widthIn)} error={errors.widthIn} />
       <TextField label="Thickness" name="thicknessIn" defaultValue={fmt(part?.thicknessIn)} error={errors.thicknessIn} />
-      <SelectField label="Stock" name="stockItemId" defaultValue={part?.stockItemId ?? stock[0]?.id ?? ''} error={errors.stockItemId}>
+      <SelectField label="Stock" name="stockItemId" defaultValue={part?.stockItemId ?? ''} error={errors.stockItemId}>
         <option value="">Not chosen</option>
         {stock.map((s) => (
           <option key={s.id} value={s.id}>

@@ -38,6 +38,11 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
   const [message, setMessage] = useState<string | undefined>();
   const [formKey, setFormKey] = useState(0);
   const unit = plan.data.lengthUnit;
+  // A part the plan could not cut is flagged on its own row, in the plan's plain words.
+  const problems = new Map<string, string>();
+  for (const u of [...plan.data.plan.noStock, ...plan.data.plan.groups.flatMap((g) => g.unplaced)]) {
+    problems.set(u.partId, u.quantity < (parts.data.find((p) => p.id === u.partId)?.quantity ?? 0) ? `${u.quantity} cannot be cut: ${u.reason}` : `Cannot be cut: ${u.reason}`);
+  }
   const fmt = (n: number | null) => (n === null ? '—' : formatLength(n, { unit }));
   const onError = (e: unknown) => {
     setErrors(e instanceof ApiError ? e.fields : {});
@@ -122,6 +127,9 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
                     <td className="py-1 pr-2 font-bold">
                       {p.name}
                       {p.note ? <span className="block text-xs font-normal text-ink-faint">{p.note}</span> : null}
+                      {problems.get(p.id) ? (
+                        <span className="mt-1 block rounded-sm bg-attention-soft px-2 py-1 text-xs font-normal text-attention-ink">{problems.get(p.id)}</span>
+                      ) : null}
                     </td>
                     <td className="py-1 pr-2 text-right font-mono">{p.quantity}</td>
                     <td className="py-1 pr-2 font-mono">{fmt(p.lengthIn)}</td>

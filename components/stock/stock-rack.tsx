@@ -119,17 +119,18 @@ function CutSettingsForm({ channelSlug, canEdit, initial }: { channelSlug: strin
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const text = (k: string) => String(form.get(k) ?? '').trim();
-    save.mutate({ kerfIn: text('kerfIn'), endTrimIn: text('endTrimIn'), minOffcutIn: text('minOffcutIn'), lengthUnit: text('lengthUnit') });
+    save.mutate({ kerfIn: text('kerfIn'), endTrimIn: text('endTrimIn'), minOffcutIn: text('minOffcutIn'), jointIn: text('jointIn'), lengthUnit: text('lengthUnit') });
   }
   return (
     <section aria-labelledby="cut-settings-heading" className="max-w-3xl rounded-card border border-paper-edge bg-white/60 p-4">
       <h2 id="cut-settings-heading" className="mb-2 font-bold">
         Shop settings
       </h2>
-      <form onSubmit={submit} noValidate className="grid grid-cols-2 gap-3 sm:grid-cols-5">
+      <form onSubmit={submit} noValidate className="grid grid-cols-2 gap-3 sm:grid-cols-3">
         <TextField label="Saw kerf (in)" name="kerfIn" defaultValue={f(initial.kerfIn)} error={errors.kerfIn} disabled={!canEdit} />
         <TextField label="End trim (in)" name="endTrimIn" defaultValue={f(initial.endTrimIn)} error={errors.endTrimIn} disabled={!canEdit} />
         <TextField label="Keep offcuts from (in)" name="minOffcutIn" defaultValue={f(initial.minOffcutIn)} error={errors.minOffcutIn} disabled={!canEdit} />
+        <TextField label="Jointing per rip (in)" name="jointIn" defaultValue={f(initial.jointIn)} error={errors.jointIn} disabled={!canEdit} />
         <SelectField label="Show lengths in" name="lengthUnit" defaultValue={initial.lengthUnit} error={errors.lengthUnit} disabled={!canEdit}>
           <option value="in">Inches</option>
           <option value="mm">Millimetres</option>

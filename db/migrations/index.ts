@@ -9,6 +9,8 @@ import * as byteRemovals from './20261212000001_byte_removals';
 import * as sessionsAndLimits from './20261213000000_sessions_and_limits';
 import * as sponsors from './20261214000000_sponsors';
 import * as handoffs from './20261215000000_handoffs';
+import * as jointAllowance from './20261216000000_joint_allowance';
+import * as shoppingBoardTicks from './20261220000000_shopping_board_ticks';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -25,6 +27,8 @@ const migrations: Record<string, Migration> = {
   '20261213000000_sessions_and_limits': sessionsAndLimits,
   '20261214000000_sponsors': sponsors,
   '20261215000000_handoffs': handoffs,
+  '20261216000000_joint_allowance': jointAllowance,
+  '20261220000000_shopping_board_ticks': shoppingBoardTicks,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -91,4 +91,21 @@ describe('buildCutPlan', () => {
     expect(g?.boards[0]?.pieces).toHaveLength(4);
     expect(g?.boards[0]?.pieces.every((p) => !p.rotated)).toBe(true);
   });
+
+  it('rips narrow parts side by side from one hardwood board instead of one board each', () => {
+    // 1 1/2" legs from a 6" board: 1.5 x 3 + 2 x (1/8" kerf + 1/16" jointing) = 4.875" <= 6", so three strips.
+    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 28, widthIn: 1.5, quantity: 4, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, 300);
+    const g = plan.groups[0];
+    expect(g?.purchase[0]).toMatchObject({ count: 1, costCents: 3600 });
+    const board = g?.boards[0];
+    expect(board?.strips?.every((s) => s.widthIn === 1.5)).toBe(true);
+    expect(board?.pieces).toHaveLength(4);
+    // Each piece lies in its strip, never turned: its x is its strip's offset across the board.
+    for (const p of board?.pieces ?? []) {
+      expect(board?.strips?.some((s) => s.x === p.x)).toBe(true);
+      expect(p.widthIn).toBe(1.5);
+      expect(p.rotated).toBe(false);
+    }
+    expect(plan.optimal).toBe(true);
+  });
 });

@@ -1,5 +1,5 @@
 /** Turns a parts list and the stock rack into a cut plan: one planner run per stock item. No I/O. */
-import { planLinearCuts, planSheetCuts } from '@/lib/cutlist';
+import { planLinearCuts, planRipCuts, planSheetCuts } from '@/lib/cutlist';
 import { boardFeet, parseNominalProfile, softwoodBoardFeet } from '@/lib/lumber';
 import { offerSizeKey, type CutSettingsDto, type LumberOffer, type SheetOffer, type StockItemDto } from '@/lib/stock/schemas';
 
@@ -16,7 +16,18 @@ export type PlanPart = {
 };
 
 export type PlanPiece = { partId: string; name: string; pieceIndex: number; x: number; y: number; lengthIn: number; widthIn: number; rotated: boolean };
-export type PlanBoard = { sizeKey: string; lengthIn: number; widthIn: number; pieces: PlanPiece[]; offcutIn: number; keepOffcut: boolean };
+/** A strip ripped from a lumber board: rip it to `widthIn` at `x` across the board, then crosscut it. */
+export type PlanStrip = { x: number; widthIn: number };
+export type PlanBoard = {
+  sizeKey: string;
+  lengthIn: number;
+  widthIn: number;
+  pieces: PlanPiece[];
+  offcutIn: number;
+  keepOffcut: boolean;
+  /** Lumber ripped into strips, in cut order; absent when every piece takes the board's full width. */
+  strips?: PlanStrip[];
+};
 export type PlanPurchase = { sizeKey: string; lengthIn: number; widthIn: number | null; count: number; unitCents: number; costCents: number };
 export type PlanUnplaced = { partId: string; name: string; quantity: number; reason: string };
 
@@ -76,6 +87,8 @@ function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
     return true;
   });
   const offers = cheapestPerSize(stock.offers as LumberOffer[]);
+  // Parts narrower than the board are ripped side by side from it rather than each taking a board.
+  if (fits.some((p) => p.widthIn !== null && p.widthIn < width - EPS)) return planLumberRips(stock, parts, fits, unplaced, offers, settings, timeLimitMs);
   const result = planLinearCuts({
     kerf: settings.kerfIn,
     endTrim: settings.endTrimIn,
@@ -106,6 +119,64 @@ function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
   });
   const bought = boards.reduce((a, b) => a + b.lengthIn, 0);
   const used = boards.reduce((a, b) => a + b.pieces.reduce((s, c) => s + c.lengthIn, 0), 0);
+  return {
+    stock: pickStock(stock),
+    boards,
+    purchase,
+    costCents: purchase.reduce((a, p) => a + p.costCents, 0),
+    lowerBoundCents: Math.round(result.lowerBound * 100),
+    optimal: result.optimal && unplaced.length === 0,
+    boardFeet: round4(boards.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn), 0)),
+    squareFeet: null,
+    wastePercent: bought > 0 ? round4((100 * (bought - used)) / bought) : 0,
+    unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
+  };
+}
+
+function planLumberRips(
+  stock: StockItemDto,
+  parts: PlanPart[],
+  fits: PlanPart[],
+  unplaced: PlanUnplaced[],
+  offers: LumberOffer[],
+  settings: CutSettingsDto,
+  timeLimitMs: number,
+): StockPlan {
+  const width = stock.widthIn ?? 0;
+  const result = planRipCuts({
+    kerf: settings.kerfIn,
+    jointAllowance: settings.jointIn,
+    endTrim: settings.endTrimIn,
+    parts: fits.map((p) => ({ id: p.id, length: p.lengthIn, width: p.widthIn ?? width, quantity: p.quantity, label: p.name })),
+    stock: offers.map((o) => ({ id: sizeKey(o.lengthIn), length: o.lengthIn, width, price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
+    timeLimitMs,
+  });
+  const names = new Map(parts.map((p) => [p.id, p]));
+  const seen = new Map<string, number>();
+  const boards: PlanBoard[] = result.boards.map((b) => ({
+    sizeKey: b.stockId,
+    lengthIn: b.length,
+    widthIn: b.width,
+    pieces: b.strips.flatMap((strip) =>
+      strip.cuts.map((c) => {
+        const index = seen.get(c.partId) ?? 0;
+        seen.set(c.partId, index + 1);
+        return { partId: c.partId, name: names.get(c.partId)?.name ?? '', pieceIndex: index, x: strip.offset, y: c.start, lengthIn: c.length, widthIn: c.width, rotated: false };
+      }),
+    ),
+    // The leftover is a strip along the board, not a length off its end.
+    offcutIn: 0,
+    keepOffcut: false,
+    strips: b.strips.map((s) => ({ x: s.offset, widthIn: s.width })),
+  }));
+  const purchase = result.purchase.map((p) => {
+    const offer = offers.find((o) => sizeKey(o.lengthIn) === p.stockId);
+    const lengthIn = offer?.lengthIn ?? 0;
+    const unitCents = offer ? lumberUnitCents(stock, lengthIn, offer) : 0;
+    return { sizeKey: p.stockId, lengthIn, widthIn: null, count: p.count, unitCents, costCents: unitCents * p.count };
+  });
+  const bought = boards.reduce((a, b) => a + b.lengthIn * b.widthIn, 0);
+  const used = boards.reduce((a, b) => a + b.pieces.reduce((s, c) => s + c.lengthIn * c.widthIn, 0), 0);
   return {
     stock: pickStock(stock),
     boards,

@@ -112,7 +112,7 @@ async function runOnPool(s: PoolState, task: PlanTask): Promise<PlanTaskResult> 
 
 /** Starts the threads and loads the planner in them, so the first plan request does not wait for that. */
 export async function warmPlanPool(): Promise<void> {
-  const settings = { kerfIn: 0, endTrimIn: 0, minOffcutIn: 0, lengthUnit: 'in' as const };
+  const settings = { kerfIn: 0, endTrimIn: 0, minOffcutIn: 0, jointIn: 0, lengthUnit: 'in' as const };
   await state().pool.run({ parts: [], stock: [], settings, byLevel: false, budgetMs: 0 });
 }
 

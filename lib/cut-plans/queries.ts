@@ -41,19 +41,25 @@ export async function planSegment(channelId: string, segmentId: string): Promise
 }
 
 async function listTicks(episodeId: string): Promise<ShoppingTickDto[]> {
-  const rows: { stock_item_id: string; size_key: string; bought: number }[] = await db('shopping_ticks')
+  const rows: { stock_item_id: string; size_key: string; board: number }[] = await db('shopping_board_ticks')
     .where({ episode_id: episodeId })
-    .select('stock_item_id', 'size_key', 'bought');
-  return rows.map((r) => ({ stockItemId: r.stock_item_id, sizeKey: r.size_key, bought: r.bought }));
+    .orderBy(['stock_item_id', 'size_key', 'board'])
+    .select('stock_item_id', 'size_key', 'board');
+  return rows.map((r) => ({ stockItemId: r.stock_item_id, sizeKey: r.size_key, board: r.board }));
 }
 
-export async function setShoppingTick(channelId: string, episodeId: string, userId: string, input: ShoppingTickInput): Promise<ShoppingTickDto> {
+/** Ticks or unticks one board: an insert that ignores a tick already there, or a delete; each is one statement. */
+export async function setShoppingTick(
+  channelId: string,
+  episodeId: string,
+  userId: string,
+  input: ShoppingTickInput,
+): Promise<ShoppingTickDto & { bought: boolean }> {
   await findEpisode(channelId, episodeId);
   const stock = await db('stock_items').where({ id: input.stockItemId, channel_id: channelId }).first('id');
   if (!stock) throw notFound('That stock item');
-  await db('shopping_ticks')
-    .insert({ episode_id: episodeId, stock_item_id: input.stockItemId, size_key: input.sizeKey, bought: input.bought, updated_by: userId })
-    .onConflict(['episode_id', 'stock_item_id', 'size_key'])
-    .merge({ bought: input.bought, updated_by: userId, updated_at: db.fn.now() });
-  return { stockItemId: input.stockItemId, sizeKey: input.sizeKey, bought: input.bought };
+  const key = { episode_id: episodeId, stock_item_id: input.stockItemId, size_key: input.sizeKey, board: input.board };
+  if (input.bought) await db('shopping_board_ticks').insert({ ...key, updated_by: userId }).onConflict(['episode_id', 'stock_item_id', 'size_key', 'board']).ignore();
+  else await db('shopping_board_ticks').where(key).delete();
+  return { stockItemId: input.stockItemId, sizeKey: input.sizeKey, board: input.board, bought: input.bought };
 }

@@ -24,3 +24,13 @@ export {
   type SheetStock,
   type SheetUnplaced,
 } from './sheet';
+export {
+  planRipCuts,
+  type RipBoard,
+  type RipCut,
+  type RipCutPlan,
+  type RipCutRequest,
+  type RipPart,
+  type RipStock,
+  type RipStrip,
+} from './rips';

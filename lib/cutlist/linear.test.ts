@@ -361,3 +361,49 @@ describe('planLinearCuts: time limit (issue 12)', () => {
     expect(elapsed).toBeLessThan(500);
   });
 });
+
+describe('planLinearCuts: on-hand boards (issue 16)', () => {
+  // On-hand stock reaches the planner as stock at price 0 with a count (`available`): offcuts kept
+  // from earlier plans and boards added by hand, used before anything is bought.
+  const onHandArb = fc.record({
+    kerf: fc.constantFrom(0, 1 / 8),
+    endTrim: fc.constantFrom(0, 0.5),
+    parts: fc
+      .array(fc.record({ length: sixteenths(4, 60), quantity: fc.integer({ min: 1, max: 3 }) }), { minLength: 1, maxLength: 3 })
+      .map((ps) => ps.map((p, i) => ({ id: `p${i}`, ...p }))),
+    onHand: fc.array(fc.record({ length: fc.integer({ min: 12, max: 96 }), available: fc.integer({ min: 1, max: 3 }) }), { minLength: 1, maxLength: 2 }),
+    bought: fc.array(fc.record({ length: fc.integer({ min: 72, max: 144 }), price: fc.integer({ min: 100, max: 3000 }).map((c) => c / 100) }), { minLength: 1, maxLength: 2 }),
+  });
+  const small = onHandArb.filter((r) => r.parts.reduce((a, p) => a + p.quantity, 0) <= 6);
+
+  it('uses boards on hand at no cost, proves the least cost, and never costs more than buying everything', () => {
+    fc.assert(
+      fc.property(small, ({ kerf, endTrim, parts, onHand, bought }) => {
+        const buyOnly = bought.map((s, i) => ({ id: `buy${i}`, ...s }));
+        const req: LinearCutRequest = {
+          kerf,
+          endTrim,
+          parts,
+          stock: [...onHand.map((s, i) => ({ id: `hand${i}`, length: s.length, price: 0, available: s.available })), ...buyOnly],
+          timeLimitMs: 200,
+        };
+        const plan = planLinearCuts(req);
+        expectValidPlan(req, plan);
+        const best = bruteForceCost(req);
+        const bestBuying = bruteForceCost({ ...req, stock: buyOnly });
+        if (best === null) return;
+        if (bestBuying !== null) expect(best).toBeLessThanOrEqual(bestBuying + EPS);
+        if (unplacedCount(plan) > 0) return;
+        expect(plan.lowerBound).toBeLessThanOrEqual(best + EPS);
+        if (plan.totalCost > best + EPS) expect(plan.optimal).toBe(false);
+        expect(plan.optimal).toBe(true);
+        expect(plan.totalCost).toBeCloseTo(best, 6);
+        // What is paid for is only what is bought: on-hand boards never appear at a cost.
+        for (const p of plan.purchase) if (p.stockId.startsWith('hand')) expect(p.cost).toBe(0);
+        const paid = plan.purchase.filter((p) => p.stockId.startsWith('buy')).reduce((a, p) => a + p.cost, 0);
+        expect(paid).toBeCloseTo(plan.totalCost, 6);
+      }),
+      { numRuns: 150 },
+    );
+  }, 120_000);
+});

@@ -11,6 +11,7 @@
  * x runs along the sheet width and y along its length; a part that is not rotated has its length
  * along y.
  */
+import { dffSheetBound } from './sheet-dff';
 
 export type SheetGrain = 'length' | 'any';
 
@@ -828,6 +829,17 @@ function greedyClique(inst: Instance, items: readonly number[]): Set<number> {
   return new Set(clique);
 }
 
+/** Sheets of the stocks in `q` needed for the pieces of `items` that fit only those stocks. */
+function dffBoundOver(inst: Instance, items: readonly number[], q: number, maskOf: (i: number) => number): number {
+  const stocks = inst.stocks.flatMap((s, j) => (q === -1 || (q & (1 << j)) !== 0 ? [{ s, j }] : []));
+  const own = items.filter((i) => (maskOf(i) & ~q) === 0);
+  return dffSheetBound(
+    own.map((i) => inst.piece(i)),
+    stocks.map(({ s }) => s),
+    (k, t) => inst.fit[own[k] ?? -1]?.[stocks[t]?.j ?? -1] === true,
+  );
+}
+
 interface Cover {
   coef: bigint[]; // per stock
   rhs: bigint;
@@ -871,7 +883,9 @@ function coverBound(inst: Instance, items: readonly number[], unit: boolean): nu
     if (union !== q) continue;
     const inQ = (j: number): boolean => q === -1 || (q & (1 << j)) !== 0;
     if (area > 0n) covers.push({ coef: inst.stocks.map((s, j) => (inQ(j) ? BigInt(s.area) : 0n)), rhs: area });
-    if (count > 0n) covers.push({ coef: inst.stocks.map((_, j) => (inQ(j) ? 1n : 0n)), rhs: count });
+    // Sheets from Q: at least the clique, and at least the dual-feasible-function bound (sheet-dff.ts).
+    const dff = BigInt(dffBoundOver(inst, items, q, maskOf));
+    if (count > 0n || dff > 0n) covers.push({ coef: inst.stocks.map((_, j) => (inQ(j) ? 1n : 0n)), rhs: count > dff ? count : dff });
   }
   const rate = (j: number): number => (price[j] ?? 0) / (inst.stocks[j]?.area ?? 1);
   const order = inst.stocks.map((_, j) => j).sort((a, b) => rate(a) - rate(b));

@@ -60,20 +60,21 @@ export async function deleteStock(channelId: string, stockId: string): Promise<v
   if (count === 0) throw notFound('That stock item');
 }
 
-type SettingsRow = { kerf_in: number; end_trim_in: number; min_offcut_in: number; length_unit: CutSettingsDto['lengthUnit'] };
+type SettingsRow = { kerf_in: number; end_trim_in: number; min_offcut_in: number; joint_in: number; length_unit: CutSettingsDto['lengthUnit'] };
 const toSettingsDto = (r: SettingsRow): CutSettingsDto => ({
   kerfIn: r.kerf_in,
   endTrimIn: r.end_trim_in,
   minOffcutIn: r.min_offcut_in,
+  jointIn: r.joint_in,
   lengthUnit: r.length_unit,
 });
 
 export async function getCutSettings(channelId: string): Promise<CutSettingsDto> {
-  const row: SettingsRow | undefined = await db('cut_settings').where({ channel_id: channelId }).first('kerf_in', 'end_trim_in', 'min_offcut_in', 'length_unit');
+  const row: SettingsRow | undefined = await db('cut_settings').where({ channel_id: channelId }).first('kerf_in', 'end_trim_in', 'min_offcut_in', 'joint_in', 'length_unit');
   return row ? toSettingsDto(row) : DEFAULT_CUT_SETTINGS;
 }
 
-const settingsColumns = { kerfIn: 'kerf_in', endTrimIn: 'end_trim_in', minOffcutIn: 'min_offcut_in', lengthUnit: 'length_unit' } as const;
+const settingsColumns = { kerfIn: 'kerf_in', endTrimIn: 'end_trim_in', minOffcutIn: 'min_offcut_in', jointIn: 'joint_in', lengthUnit: 'length_unit' } as const;
 
 /**
  * One statement that writes only the fields given: a first change inserts the defaults with them,
@@ -83,10 +84,10 @@ export async function updateCutSettings(channelId: string, input: CutSettingsInp
   const given = (Object.keys(settingsColumns) as (keyof typeof settingsColumns)[]).filter((k) => input[k] !== undefined);
   const next = { ...DEFAULT_CUT_SETTINGS, ...Object.fromEntries(given.map((k) => [k, input[k]])) } as CutSettingsDto;
   const [row] = await db('cut_settings')
-    .insert({ channel_id: channelId, kerf_in: next.kerfIn, end_trim_in: next.endTrimIn, min_offcut_in: next.minOffcutIn, length_unit: next.lengthUnit })
+    .insert({ channel_id: channelId, kerf_in: next.kerfIn, end_trim_in: next.endTrimIn, min_offcut_in: next.minOffcutIn, joint_in: next.jointIn, length_unit: next.lengthUnit })
     .onConflict('channel_id')
     .merge([...given.map((k) => settingsColumns[k]), 'updated_at'])
-    .returning<SettingsRow[]>(['kerf_in', 'end_trim_in', 'min_offcut_in', 'length_unit']);
+    .returning<SettingsRow[]>(['kerf_in', 'end_trim_in', 'min_offcut_in', 'joint_in', 'length_unit']);
   if (!row) throw new Error('upsert returned no row');
   return toSettingsDto(row);
 }

@@ -126,6 +126,7 @@ export const cutSettingsSchema = z
     kerfIn: settingLength('Enter a kerf from 0 to 1 inch, like 1/8.', 1).optional(),
     endTrimIn: settingLength('Enter an end trim from 0 to 24 inches, like 1/2.', 24).optional(),
     minOffcutIn: settingLength('Enter the smallest offcut worth keeping, 0 to 240 inches.', 240).optional(),
+    jointIn: settingLength('Enter what jointing takes off a ripped edge, 0 to 1 inch, like 1/16.', 1).optional(),
     lengthUnit: z.enum(lengthUnits, { error: 'Choose inches or millimetres.' }).optional(),
   })
   .refine((v) => Object.values(v).some((x) => x !== undefined), 'Change at least one setting.');
@@ -150,5 +151,6 @@ export type StockItemDto = {
   offers: (LumberOffer | SheetOffer)[];
 };
 
-export type CutSettingsDto = { kerfIn: number; endTrimIn: number; minOffcutIn: number; lengthUnit: LengthUnit };
-export const DEFAULT_CUT_SETTINGS: CutSettingsDto = { kerfIn: 0.125, endTrimIn: 0, minOffcutIn: 12, lengthUnit: 'in' };
+export type CutSettingsDto = { kerfIn: number; endTrimIn: number; minOffcutIn: number; jointIn: number; lengthUnit: LengthUnit };
+// Common practice, no published source: 1/16" lost to jointing each ripped edge.
+export const DEFAULT_CUT_SETTINGS: CutSettingsDto = { kerfIn: 0.125, endTrimIn: 0, minOffcutIn: 12, jointIn: 0.0625, lengthUnit: 'in' };

@@ -60,7 +60,7 @@ import { makeDeal } from './sponsor-fixtures';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'lengthUnit', 'sizeKey', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', 'clipId', 'timecode', 'body', 'resolved', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'jointIn', 'lengthUnit', 'sizeKey', 'board', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', 'clipId', 'timecode', 'body', 'resolved', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
@@ -279,7 +279,7 @@ const partFields = (stockItemId: string) => ({
   grain: fc.constantFrom('length', 'any', 'across'),
   note: fc.string({ maxLength: 210 }),
 });
-const settingsBody = fc.record({ kerfIn: shopLength, endTrimIn: shopLength, minOffcutIn: shopLength, lengthUnit: fc.constantFrom('in', 'mm', 'cubit') }, { requiredKeys: [] });
+const settingsBody = fc.record({ kerfIn: shopLength, endTrimIn: shopLength, minOffcutIn: shopLength, jointIn: shopLength, lengthUnit: fc.constantFrom('in', 'mm', 'cubit') }, { requiredKeys: [] });
 
 describe('no rack, part or settings body makes a 500', () => {
   it('for shop-notation bodies of the right shape', async () => {

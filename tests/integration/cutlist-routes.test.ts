@@ -102,8 +102,8 @@ const cases: RouteCase[] = [
       stockOf.set(c, p.stock.id);
       return { channel: c.channel.slug, episodeId: p.episode.id };
     },
-    body: (c) => ({ stockItemId: stockOf.get(c) ?? '00000000-0000-4000-8000-000000000000', sizeKey: '120', bought: 5 }),
-    badBody: { stockItemId: 'x', sizeKey: '../', bought: -1 },
+    body: (c) => ({ stockItemId: stockOf.get(c) ?? '00000000-0000-4000-8000-000000000000', sizeKey: '120', board: 5, bought: true }),
+    badBody: { stockItemId: 'x', sizeKey: '../', board: 0, bought: 1 },
     okStatus: 200,
   },
 ];
@@ -190,9 +190,9 @@ describe('parts and plans', () => {
   it('keeps shopping ticks, and lists parts whose stock was deleted instead of dropping them', async () => {
     const c = await makeCrew();
     const { episode, stock } = await planned(c);
-    const tick = await call(shoppingRoute.PUT, 'PUT', { as: c.shopHand, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '120', bought: 5 } });
+    const tick = await call(shoppingRoute.PUT, 'PUT', { as: c.shopHand, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '120', board: 5, bought: true } });
     expect(tick.status).toBe(200);
-    expect((await episodePlan(c, episode.id)).ticks).toEqual([{ stockItemId: stock.id, sizeKey: '120', bought: 5 }]);
+    expect((await episodePlan(c, episode.id)).ticks).toEqual([{ stockItemId: stock.id, sizeKey: '120', board: 5 }]);
     const del = await call(stockItemRoute.DELETE, 'DELETE', { as: c.host, params: { channel: c.channel.slug, stockId: stock.id } });
     expect(del.status).toBe(204);
     const plan = await episodePlan(c, episode.id);
@@ -252,16 +252,21 @@ describe('lengths and sizes as typed', () => {
   it('starts from the default cut settings, takes fractions, and refuses an empty change', async () => {
     const c = await makeCrew();
     // Common practice: a full-kerf blade is about 1/8".
-    expect(await settingsOf(c)).toEqual({ kerfIn: 0.125, endTrimIn: 0, minOffcutIn: 12, lengthUnit: 'in' });
+    expect(await settingsOf(c)).toEqual({ kerfIn: 0.125, endTrimIn: 0, minOffcutIn: 12, jointIn: 0.0625, lengthUnit: 'in' });
     const patch = (body: unknown) => call(cutSettingsRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug }, body });
-    expect((await patch({ kerfIn: '3/32', lengthUnit: 'mm' })).json.settings).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 12, lengthUnit: 'mm' });
+    expect((await patch({ kerfIn: '3/32', lengthUnit: 'mm' })).json.settings).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 12, jointIn: 0.0625, lengthUnit: 'mm' });
     expect((await patch({ minOffcutIn: "1' 6\"" })).json.settings).toMatchObject({ kerfIn: 3 / 32, minOffcutIn: 18, lengthUnit: 'mm' });
     const empty = await patch({});
     expect(empty.status).toBe(400);
     const bad = await patch({ kerfIn: '1/8', endTrimIn: '25' });
     expect(Object.keys(bad.json.error?.fields ?? {})).toEqual(['endTrimIn']);
     // The refused change wrote nothing, not even its valid kerf.
-    expect(await settingsOf(c)).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 18, lengthUnit: 'mm' });
+    expect(await settingsOf(c)).toEqual({ kerfIn: 3 / 32, endTrimIn: 0, minOffcutIn: 18, jointIn: 0.0625, lengthUnit: 'mm' });
+    // Jointing per rip: a shop setting like the kerf, 0 to 1 inch.
+    expect((await patch({ jointIn: '1/32' })).json.settings).toMatchObject({ jointIn: 1 / 32 });
+    const wide = await patch({ jointIn: '2' });
+    expect(wide.status).toBe(400);
+    expect(Object.keys(wide.json.error?.fields ?? {})).toEqual(['jointIn']);
   });
 });
 
@@ -309,16 +314,25 @@ describe('plans follow the rack and the settings', () => {
     expect(segPlan.plan.groups[0]?.purchase).toMatchObject([{ sizeKey: '120', count: 1 }]);
   });
 
-  it('lists parts without stock and cut counts, and updates one tick per size', async () => {
+  it('lists parts without stock and cut counts, and keeps one tick per board', async () => {
     const c = await makeCrew();
     const { episode, build, stock, part } = await planned(c);
     await call(partsRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug, segmentId: build.id }, body: { name: 'Shelf', quantity: 1, lengthIn: '30' } });
     await call(partRoute.PATCH, 'PATCH', { as: c.host, params: { channel: c.channel.slug, partId: part.id }, body: { cutCount: 4 } });
-    const tick = (bought: number) => call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '120', bought } });
-    expect((await tick(2)).json.tick).toEqual({ stockItemId: stock.id, sizeKey: '120', bought: 2 });
-    await tick(4);
+    const tick = (board: number, bought: boolean) =>
+      call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '120', board, bought } });
+    expect((await tick(2, true)).json.tick).toEqual({ stockItemId: stock.id, sizeKey: '120', board: 2, bought: true });
+    // Ticking twice changes nothing; unticking a board never ticked is fine too.
+    expect((await tick(2, true)).status).toBe(200);
+    expect((await tick(3, false)).status).toBe(200);
+    await tick(4, true);
+    await tick(1, true);
+    expect((await tick(1, false)).json.tick).toEqual({ stockItemId: stock.id, sizeKey: '120', board: 1, bought: false });
     const plan = await episodePlan(c, episode.id);
-    expect(plan.ticks).toEqual([{ stockItemId: stock.id, sizeKey: '120', bought: 4 }]);
+    expect(plan.ticks).toEqual([
+      { stockItemId: stock.id, sizeKey: '120', board: 2 },
+      { stockItemId: stock.id, sizeKey: '120', board: 4 },
+    ]);
     expect(plan.whole.noStock).toMatchObject([{ name: 'Shelf', quantity: 1 }]);
     expect(plan.whole.optimal).toBe(false);
     expect(plan.whole.cutCounts[part.id]).toBe(4);
@@ -350,7 +364,7 @@ describe('ids of another channel', () => {
     expect((await call(partRoute.DELETE, 'DELETE', { ...as, params: { channel: ch, partId: theirs.part.id } })).status).toBe(404);
     expect((await call(segmentPlanRoute.GET, 'GET', { ...as, params: { channel: ch, segmentId: theirs.build.id } })).status).toBe(404);
     expect((await call(episodePlanRoute.GET, 'GET', { ...as, params: { channel: ch, episodeId: theirs.episode.id } })).status).toBe(404);
-    expect((await call(shoppingRoute.PUT, 'PUT', { ...as, params: { channel: ch, episodeId: theirs.episode.id }, body: { stockItemId: theirs.stock.id, sizeKey: '120', bought: 1 } })).status).toBe(404);
+    expect((await call(shoppingRoute.PUT, 'PUT', { ...as, params: { channel: ch, episodeId: theirs.episode.id }, body: { stockItemId: theirs.stock.id, sizeKey: '120', board: 1, bought: true } })).status).toBe(404);
     // Their rack and parts are as they were.
     expect(await partsOf(other, theirs.build.id)).toMatchObject([{ id: theirs.part.id, cutCount: 0, stockItemId: theirs.stock.id }]);
     expect((await episodePlan(other, theirs.episode.id)).ticks).toEqual([]);
@@ -365,7 +379,7 @@ describe('ids of another channel', () => {
     expect(add.status).toBe(400);
     expect(Object.keys(add.json.error?.fields ?? {})).toEqual(['stockItemId']);
     expect((await partsOf(c, build.id)).map((p) => p.name)).toEqual(['Leg']);
-    const tick = await call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: foreign.id, sizeKey: '120', bought: 1 } });
+    const tick = await call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: foreign.id, sizeKey: '120', board: 1, bought: true } });
     expect(tick.status).toBe(404);
     expect((await episodePlan(c, episode.id)).ticks).toEqual([]);
   });
@@ -408,9 +422,36 @@ describe('shopping tick sizes', () => {
   it('names the field of a size key too long to store', async () => {
     const c = await makeCrew();
     const { episode, stock } = await planned(c);
-    const res = await call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '9'.repeat(41), bought: 1 } });
+    const res = await call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '9'.repeat(41), board: 1, bought: true } });
     expect(res.status).toBe(400);
     expect(Object.keys(res.json.error?.fields ?? {})).toEqual(['sizeKey']);
+  });
+
+  it('names the field of a board number out of range or a bought that is not yes or no', async () => {
+    const c = await makeCrew();
+    const { episode, stock } = await planned(c);
+    const put = (body: unknown) => call(shoppingRoute.PUT, 'PUT', { as: c.host, params: { channel: c.channel.slug, episodeId: episode.id }, body });
+    for (const board of [0, 10_001, 1.5, '1']) {
+      const res = await put({ stockItemId: stock.id, sizeKey: '120', board, bought: true });
+      expect(res.status).toBe(400);
+      expect(Object.keys(res.json.error?.fields ?? {})).toEqual(['board']);
+    }
+    const res = await put({ stockItemId: stock.id, sizeKey: '120', board: 1, bought: 3 });
+    expect(Object.keys(res.json.error?.fields ?? {})).toEqual(['bought']);
+    expect((await episodePlan(c, episode.id)).ticks).toEqual([]);
+  });
+
+  it('keeps every tick of boards ticked at the same moment', async () => {
+    const c = await makeCrew();
+    const { episode, stock } = await planned(c);
+    const boards = [1, 2, 3, 4, 5];
+    const answers = await Promise.all(
+      boards.map((board) =>
+        call(shoppingRoute.PUT, 'PUT', { as: board % 2 ? c.host : c.shopHand, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: stock.id, sizeKey: '120', board, bought: true } }),
+      ),
+    );
+    expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200, 200]);
+    expect((await episodePlan(c, episode.id)).ticks.map((t) => t.board)).toEqual(boards);
   });
 });
 

@@ -58,13 +58,13 @@ describe('shop board order in parallel', () => {
 });
 
 describe('cut settings in parallel', () => {
-  it('keeps every field of four single-field changes sent at once', async () => {
+  it('keeps every field of five single-field changes sent at once', async () => {
     for (let round = 0; round < 5; round++) {
       const c = await makeCrew();
-      const bodies = [{ kerfIn: '3/32' }, { endTrimIn: '1/2' }, { minOffcutIn: '18' }, { lengthUnit: 'mm' }];
+      const bodies = [{ kerfIn: '3/32' }, { endTrimIn: '1/2' }, { minOffcutIn: '18' }, { jointIn: '1/8' }, { lengthUnit: 'mm' }];
       const answers = await Promise.all(bodies.map((body) => call(cutSettingsRoute.PATCH, 'PATCH', { as: c.host, params: ch(c), body })));
-      expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200]);
-      expect(await getCutSettings(c.channel.id)).toEqual({ kerfIn: 0.09375, endTrimIn: 0.5, minOffcutIn: 18, lengthUnit: 'mm' });
+      expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200, 200]);
+      expect(await getCutSettings(c.channel.id)).toEqual({ kerfIn: 0.09375, endTrimIn: 0.5, minOffcutIn: 18, jointIn: 0.125, lengthUnit: 'mm' });
     }
   });
 });

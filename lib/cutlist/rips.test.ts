@@ -1,0 +1,232 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { planRipCuts, type RipCutPlan, type RipCutRequest } from './rips';
+
+const EPS = 1e-6;
+const ripOf = (req: RipCutRequest): number => (req.ripKerf ?? req.kerf) + req.jointAllowance;
+
+/** Checks a rip plan against its request, independently of the planner. */
+function expectValidRipPlan(req: RipCutRequest, plan: RipCutPlan): void {
+  const trim = req.endTrim ?? 0;
+  const placed = new Map<string, number>();
+  const boardsPerStock = new Map<string, number>();
+  for (const board of plan.boards) {
+    const stock = req.stock.find((s) => s.id === board.stockId);
+    expect(stock).toBeDefined();
+    if (!stock) continue;
+    expect(board.length).toBe(stock.length);
+    expect(board.width).toBe(stock.width);
+    boardsPerStock.set(stock.id, (boardsPerStock.get(stock.id) ?? 0) + 1);
+    expect(board.strips.length).toBeGreaterThan(0);
+    // Strips side by side from the reference edge, a rip (kerf + jointing) apart, inside the board.
+    let edge = 0;
+    board.strips.forEach((strip, i) => {
+      if (i > 0) expect(strip.offset).toBeCloseTo(edge + ripOf(req), 6);
+      else expect(strip.offset).toBe(0);
+      edge = strip.offset + strip.width;
+      expect(edge).toBeLessThanOrEqual(stock.width + EPS);
+      expect(strip.cuts.length).toBeGreaterThan(0);
+      let sum = 0;
+      const cuts = [...strip.cuts].sort((a, b) => a.start - b.start);
+      cuts.forEach((cut, k) => {
+        const part = req.parts.find((p) => p.id === cut.partId);
+        // Grain along the length: a part keeps its length and width, never turned.
+        expect(cut.length).toBe(part?.length);
+        expect(cut.width).toBe(part?.width);
+        expect(cut.width).toBeLessThanOrEqual(strip.width + EPS);
+        placed.set(cut.partId, (placed.get(cut.partId) ?? 0) + 1);
+        sum += cut.length;
+        const prev = cuts[k - 1];
+        if (prev) expect(cut.start).toBeCloseTo(prev.start + prev.length + req.kerf, 6);
+        else expect(cut.start).toBeCloseTo(trim, 9);
+      });
+      expect(sum + req.kerf * (cuts.length - 1)).toBeLessThanOrEqual(stock.length - 2 * trim + EPS);
+    });
+  }
+  for (const part of req.parts) {
+    const missing = plan.unplaced.filter((u) => u.partId === part.id).reduce((a, u) => a + u.quantity, 0);
+    expect((placed.get(part.id) ?? 0) + missing).toBe(part.quantity);
+  }
+  let total = 0;
+  for (const p of plan.purchase) {
+    const stock = req.stock.find((s) => s.id === p.stockId);
+    expect(p.count).toBe(boardsPerStock.get(p.stockId));
+    if (stock?.available !== undefined) expect(p.count).toBeLessThanOrEqual(stock.available);
+    total += p.cost;
+  }
+  expect(plan.totalCost).toBeCloseTo(total, 6);
+  expect(plan.lowerBound).toBeLessThanOrEqual(plan.totalCost + EPS);
+}
+
+/** All ways to split `items` into non-empty groups. */
+function* partitions<T>(items: readonly T[]): Generator<T[][]> {
+  const [first, ...rest] = items;
+  if (first === undefined) {
+    yield [];
+    return;
+  }
+  for (const p of partitions(rest)) {
+    for (let i = 0; i < p.length; i++) yield p.map((g, j) => (j === i ? [first, ...g] : g));
+    yield [[first], ...p];
+  }
+}
+
+/** Least cost by trying every grouping into boards, every stock, and every split of a board into strips. */
+function bruteForceRipCost(req: RipCutRequest): number | null {
+  const pieces = req.parts.flatMap((p) => Array.from({ length: p.quantity }, () => p));
+  const trim = req.endTrim ?? 0;
+  const fitsBoard = (group: typeof pieces, length: number, width: number): boolean => {
+    for (const strips of partitions(group)) {
+      const widths = strips.map((s) => Math.max(...s.map((p) => p.width)));
+      const across = widths.reduce((a, b) => a + b, 0) + ripOf(req) * (strips.length - 1);
+      if (across > width + EPS) continue;
+      if (strips.every((s) => s.reduce((a, p) => a + p.length, 0) + req.kerf * (s.length - 1) <= length - 2 * trim + EPS)) return true;
+    }
+    return false;
+  };
+  let best: number | null = null;
+  for (const groups of partitions(pieces)) {
+    const assign = (g: number, used: number[], cost: number): void => {
+      if (best !== null && cost >= best) return;
+      if (g === groups.length) {
+        best = cost;
+        return;
+      }
+      req.stock.forEach((s, i) => {
+        if ((used[i] ?? 0) >= (s.available ?? Infinity) || !fitsBoard(groups[g] ?? [], s.length, s.width)) return;
+        used[i] = (used[i] ?? 0) + 1;
+        assign(g + 1, used, cost + s.price);
+        used[i] = (used[i] ?? 0) - 1;
+      });
+    };
+    assign(0, [], 0);
+  }
+  return best;
+}
+
+describe('planRipCuts: common practice', () => {
+  it('rips four 1 1/2 in legs side by side from one 5 in board instead of buying four boards', () => {
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [{ id: 'leg', length: 28, width: 1.5, quantity: 4 }],
+      stock: [{ id: '5x96', length: 96, width: 5, price: 18 }],
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    expect(plan.boards).toHaveLength(1);
+    expect(plan.optimal).toBe(true);
+    // Two strips of 1 1/2 in, each crosscut into legs; three strips would fit too (4.875 in), two suffice.
+    expect(plan.boards[0]?.strips.every((s) => s.width === 1.5)).toBe(true);
+    expect(plan.boards[0]?.strips.reduce((a, s) => a + s.cuts.length, 0)).toBe(4);
+  });
+
+  it('loses a rip kerf and a jointed edge per rip: three 1 5/8 in strips do not fit a 5 in board', () => {
+    // 3 x 1 5/8 + 2 x (1/8 + 1/16) = 5.25 in > 5 in, so the third strip needs a second board.
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [{ id: 'rail', length: 90, width: 1.625, quantity: 3 }],
+      stock: [{ id: '5x96', length: 96, width: 5, price: 18 }],
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    expect(plan.boards).toHaveLength(2);
+    expect(plan.optimal).toBe(true);
+  });
+
+  it('reports a part wider than every board and still plans the rest', () => {
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [
+        { id: 'top', length: 30, width: 12, quantity: 1 },
+        { id: 'leg', length: 28, width: 1.5, quantity: 2 },
+      ],
+      stock: [{ id: '5x96', length: 96, width: 5, price: 18 }],
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    expect(plan.unplaced).toEqual([{ partId: 'top', quantity: 1, reason: 'Wider than every board on the rack.' }]);
+    expect(plan.optimal).toBe(false);
+  });
+
+  it('picks the cheaper board width when the rack offers several', () => {
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [{ id: 'slat', length: 40, width: 2, quantity: 8 }],
+      stock: [
+        { id: '4x96', length: 96, width: 4.25, price: 12 },
+        { id: '9x96', length: 96, width: 9.25, price: 20 },
+      ],
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    // One 9 1/4 in board holds four strips of two slats ($20); 4 1/4 in boards hold two strips each ($24).
+    expect(plan.totalCost).toBe(20);
+    expect(plan.optimal).toBe(true);
+  });
+});
+
+const ripRequest = (maxPieces: number) =>
+  fc
+    .record({
+      kerf: fc.constantFrom(0, 0.125),
+      jointAllowance: fc.constantFrom(0, 1 / 16),
+      endTrim: fc.constantFrom(0, 0.5),
+      parts: fc.array(
+        fc.record({ length: fc.integer({ min: 4, max: 100 }), width: fc.constantFrom(0.75, 1.5, 2.5, 3.5, 5.5), quantity: fc.integer({ min: 0, max: 3 }) }),
+        { minLength: 1, maxLength: 4 },
+      ),
+      stock: fc.array(
+        fc.record({
+          length: fc.constantFrom(48, 72, 96),
+          width: fc.constantFrom(3.5, 5.5, 7.25),
+          price: fc.integer({ min: 1, max: 40 }),
+          available: fc.option(fc.integer({ min: 0, max: 3 }), { nil: undefined }),
+        }),
+        { minLength: 1, maxLength: 3 },
+      ),
+    })
+    .map(({ parts, stock, ...rest }): RipCutRequest => {
+      let left = maxPieces;
+      return {
+        ...rest,
+        parts: parts.map((p, i) => {
+          const quantity = Math.min(p.quantity, left);
+          left -= quantity;
+          return { id: `p${i}`, length: p.length, width: p.width, quantity };
+        }),
+        stock: stock.map((s, i) => ({ id: `s${i}`, ...s, ...(s.available === undefined ? {} : { available: s.available }) })),
+        timeLimitMs: 300,
+      };
+    });
+
+describe('planRipCuts: properties', () => {
+  it('always returns a valid plan that places or reports every part, with a bound at or below its cost', () => {
+    fc.assert(
+      fc.property(ripRequest(14), (req) => {
+        expectValidRipPlan(req, planRipCuts(req));
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('on tiny cases never claims optimal when brute force finds a cheaper plan, and its bound holds', () => {
+    fc.assert(
+      fc.property(ripRequest(5), (req) => {
+        const plan = planRipCuts(req);
+        expectValidRipPlan(req, plan);
+        const best = bruteForceRipCost(req);
+        if (best === null) return;
+        if (plan.unplaced.length === 0) {
+          expect(plan.totalCost).toBeGreaterThanOrEqual(best - EPS);
+          if (plan.optimal) expect(plan.totalCost).toBeCloseTo(best, 6);
+          expect(plan.lowerBound).toBeLessThanOrEqual(best + EPS);
+        }
+      }),
+      { numRuns: 80 },
+    );
+  });
+});

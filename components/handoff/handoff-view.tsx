@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { LocalTime } from '@/components/shop-board/dates';
 import { PrintButton } from '@/components/shoot-sheet/print-button';
 import { scriptProseClasses } from '@/components/script/script-prose';
 import { buttonClasses } from '@/components/ui/button';
@@ -36,14 +37,14 @@ export function HandoffView({ slug, data }: Props) {
     <PlayerTimeProvider>
       <article className="print:text-black">
         <header className="mb-6 flex flex-wrap items-start justify-between gap-4 border-b border-paper-edge pb-4 print:border-black">
-          <div>
+          <div className="min-w-0 md:flex-1">
             <p className="text-sm text-ink-faint">Handoff, locked version</p>
             <h1 className="text-2xl font-bold tracking-tight">
               {snap.episode.title} <span className="font-mono">v{snap.version}</span>
             </h1>
             <dl className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-sm">
               <Pair label="Locked">
-                {new Date(snap.lockedAt).toUTCString()} by {snap.lockedBy}
+                <LocalTime iso={snap.lockedAt} /> by {snap.lockedBy}
               </Pair>
               <Pair label="Frame rate">
                 <span className="font-mono">{rate.label}</span>

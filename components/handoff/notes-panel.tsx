@@ -87,27 +87,32 @@ export function NotesPanel({ slug, episodeId, version, frameRate, targets, targe
                 setFromPlayer(null);
               }}
               placeholder={example}
-              className="min-w-40 flex-1 font-mono"
+              className="min-w-40 flex-1"
+              inputClassName="font-mono"
               inputMode="numeric"
               autoComplete="off"
               error={fields.timecode}
-              hint={`Like ${example}`}
+              {...(fields.timecode ? {} : { 'aria-describedby': 'player-time-hint' })}
             />
-            <Button type="button" variant="secondary" disabled={!player} aria-describedby="player-time-hint" onClick={takePlayerTime}>
+            <Button type="button" variant="secondary" disabled={!player} onClick={takePlayerTime}>
               Use player time
             </Button>
-            <p id="player-time-hint" className="basis-full text-sm text-ink-faint" aria-live="polite">
-              {fromPlayer ? (
-                <>
-                  From the player: <span className="font-mono">{fromPlayer}</span>
-                </>
-              ) : player ? (
+            <p id="player-time-hint" className="basis-full text-sm text-ink-faint">
+              Like <span className="font-mono">{example}</span>.{' '}
+              {!player ? 'Preview a clip to take its time from the player.' : null}
+              {player && !fromPlayer ? (
                 <>
                   Player at <span className="font-mono">{playerTimeToTimecode(player.seconds, rate)}</span> in {player.clipName}
                 </>
-              ) : (
-                'Preview a clip to take its time from the player.'
-              )}
+              ) : null}
+              {/* Announced once when the button fills the field, not at every tick of a playing video. */}
+              <span role="status">
+                {fromPlayer ? (
+                  <>
+                    From the player: <span className="font-mono">{fromPlayer}</span>
+                  </>
+                ) : null}
+              </span>
             </p>
           </div>
           <div>

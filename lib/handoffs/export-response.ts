@@ -35,7 +35,8 @@ export async function exportResponse(channelId: string, stored: StoredHandoff, f
     const store = clipStore();
     const pkg = await buildClipPackage(snapshot, {
       available: new Set(uploads.keys()),
-      openClip: (clipId) => store.read(uploads.get(clipId)!),
+      openClip: (clipId) => store.read(uploads.get(clipId)!.uploadId),
+      crcOf: (clipId) => uploads.get(clipId)?.crc32 ?? null,
       segmentId,
     });
     return new Response(pkg.stream, { headers: download(pkg.fileName, 'application/zip', { 'Content-Length': String(pkg.size) }) });

@@ -22,10 +22,11 @@ const sumsLine = (hash: string, path: string) => `${hash}  ${path}\n`;
 /**
  * @param available clip ids whose bytes still exist (a clip deleted after the lock is listed as missing).
  * @param segmentId only this segment's folder (a per-segment download), without the timeline files.
+ * @param crcOf a clip's CRC-32 as ingest recorded it; null makes the writer compute it while streaming.
  */
 export async function buildClipPackage(
   snapshot: HandoffSnapshot,
-  options: { openClip: OpenClip; available: Set<string>; segmentId?: string },
+  options: { openClip: OpenClip; available: Set<string>; segmentId?: string; crcOf?: (clipId: string) => number | null },
 ): Promise<ClipPackage> {
   const assembly = buildAssembly(snapshot);
   const mtime = new Date(snapshot.lockedAt);
@@ -38,7 +39,7 @@ export async function buildClipPackage(
   let sums = '';
 
   for (const item of present) {
-    entries.push({ path: item.path, mtime, size: item.clip.sizeBytes, open: () => options.openClip(item.clip.id) });
+    entries.push({ path: item.path, mtime, size: item.clip.sizeBytes, crc32: options.crcOf?.(item.clip.id) ?? null, open: () => options.openClip(item.clip.id) });
     sums += sumsLine(item.clip.sha256, item.path);
   }
 

@@ -4,6 +4,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Readable } from 'node:stream';
+import { crc32 } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { createZipArchive, type ZipEntrySource } from './zip-writer';
 
@@ -67,6 +68,15 @@ describe('stored ZIP writer', () => {
       });
     });
   }
+
+  it('takes a CRC-32 known beforehand instead of computing it', async () => {
+    const bytes = Buffer.from('known crc');
+    const right = createZipArchive([{ path: 'k', mtime, size: bytes.length, crc32: crc32(bytes), open: chunked(bytes) }]);
+    const wrong = createZipArchive([{ path: 'k', mtime, size: bytes.length, crc32: (crc32(bytes) + 1) >>> 0, open: chunked(bytes) }]);
+    withArchive(await readAll(right.stream), (file) => expect(execFileSync('unzip', ['-t', file]).toString()).toContain('No errors detected'));
+    // The writer trusts the CRC it is given: a wrong one is what unzip -t catches.
+    withArchive(await readAll(wrong.stream), (file) => expect(() => execFileSync('unzip', ['-t', file], { stdio: 'pipe' })).toThrow());
+  });
 
   it('reads nothing before the consumer pulls, and only one entry at a time', async () => {
     const opened: string[] = [];

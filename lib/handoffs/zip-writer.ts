@@ -2,15 +2,23 @@ import { crc32 } from 'node:zlib';
 
 // A streaming writer for stored (uncompressed) ZIP archives, ZIP64 where sizes or offsets need it.
 // Every entry's size is known before the first byte, so the archive's layout and length are fixed up
-// front (Content-Length); only the CRC-32 is learnt while the bytes pass, and goes into a data
-// descriptor after each entry. The CRC is Node's native zlib.crc32 (Node >= 20.15): the JavaScript
-// CRC the yazl package uses was the bottleneck of the clip package (bench/handoff, issue 14).
+// front (Content-Length); the CRC-32 goes into a data descriptor after each entry. A clip's CRC is
+// taken at ingest (storage/ingest.ts) so the package only copies bytes; for a file without one it is
+// computed while the bytes pass, with Node's native zlib.crc32 (Node >= 20.15). Per-byte CRC work was
+// the bottleneck of the clip package (bench/handoff, issue 14).
 // The output is a pull-based web stream, so nothing is read before the client asks for it.
 // Source for every record below: PKWARE APPNOTE.TXT 6.3.10 (sections cited beside each record).
 
 export type ZipEntrySource =
   | { path: string; mtime: Date; data: Uint8Array }
-  | { path: string; mtime: Date; size: number; open: () => Promise<AsyncIterable<Uint8Array>> };
+  | {
+      path: string;
+      mtime: Date;
+      size: number;
+      /** The bytes' CRC-32 when known beforehand (taken at ingest); otherwise computed while they pass. */
+      crc32?: number | null;
+      open: () => Promise<AsyncIterable<Uint8Array>>;
+    };
 
 type PlannedEntry = { source: ZipEntrySource; name: Buffer; size: number; offset: number; zip64: boolean; crc: number };
 
@@ -185,13 +193,15 @@ async function* archiveChunks(plan: Plan): AsyncGenerator<Uint8Array> {
       read = e.source.data.byteLength;
       yield e.source.data;
     } else {
+      const known = e.source.crc32 ?? null;
       for await (const chunk of await e.source.open()) {
         read += chunk.byteLength;
         // A file that grew would shift every later offset: stop rather than send a corrupt archive.
         if (read > e.size) break;
-        crc = crc32(chunk, crc);
+        if (known === null) crc = crc32(chunk, crc);
         yield chunk;
       }
+      if (known !== null) crc = known;
     }
     if (read !== e.size) throw new Error(`${e.source.path}: expected ${e.size} bytes, read ${read}`);
     e.crc = crc;

@@ -5,6 +5,8 @@ import type { Readable } from 'node:stream';
 import { FileStore } from '@tus/file-store';
 import { checkClipId, checkUploadId, isClipId, isUploadId, type ClipStore } from './clip-store';
 
+const READ_CHUNK_BYTES = 1024 * 1024;
+
 export class DiskClipStore implements ClipStore {
   readonly tus: FileStore;
 
@@ -26,7 +28,9 @@ export class DiskClipStore implements ClipStore {
   async read(uploadId: string, range?: { start: number; end: number }): Promise<Readable> {
     const file = this.file(uploadId);
     await stat(file);
-    return createReadStream(file, range ? { start: range.start, end: range.end } : {});
+    // 1 MiB reads instead of the default 64 KiB: a 5 GB clip package is 16 times fewer chunks through
+    // the ZIP writer and the response (measured in bench/handoff, issue 14).
+    return createReadStream(file, { highWaterMark: READ_CHUNK_BYTES, ...(range ? { start: range.start, end: range.end } : {}) });
   }
 
   async remove(uploadId: string): Promise<void> {

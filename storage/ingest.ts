@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { Readable } from 'node:stream';
+import { crc32 } from 'node:zlib';
 import type { Upload } from '@tus/server';
 import { findClipIdByUpload, recordClipOnce } from '@/lib/clips/queries';
 import type { ClipStore } from './clip-store';
@@ -12,6 +13,17 @@ export async function sha256Of(stream: Readable): Promise<string> {
   return hash.digest('hex');
 }
 
+/** SHA-256 and CRC-32 in one pass: the CRC lets the clip package skip recomputing it (a ZIP record needs it). */
+export async function hashesOf(stream: Readable): Promise<{ sha256: string; crc32: number }> {
+  const hash = createHash('sha256');
+  let crc = 0;
+  for await (const chunk of stream) {
+    hash.update(chunk as Buffer);
+    crc = crc32(chunk as Buffer, crc);
+  }
+  return { sha256: hash.digest('hex'), crc32: crc };
+}
+
 /** Turns a finished upload into its clip row (once) and queues the media job. */
 export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ clipId: string; created: boolean }> {
   const meta = upload.metadata ?? {};
@@ -20,7 +32,7 @@ export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ 
   // A retried finish finds its row and does not hash the bytes again.
   const existing = await findClipIdByUpload(upload.id);
   if (existing) return { clipId: existing, created: false };
-  const sha256 = await sha256Of(await store.read(upload.id));
+  const { sha256, crc32: crc } = await hashesOf(await store.read(upload.id));
   try {
     return await recordClipOnce({
       uploadId: upload.id,
@@ -31,6 +43,7 @@ export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ 
       mimeType: filetype,
       sizeBytes: upload.size ?? upload.offset,
       sha256,
+      crc32: crc,
     });
   } catch (err) {
     // The segment was deleted while its clip was still uploading.

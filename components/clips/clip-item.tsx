@@ -1,6 +1,7 @@
 'use client';
 
 import { useEffect, useId, useRef, useState } from 'react';
+import { ClipNotes } from '@/components/handoff/clip-notes';
 import { LocalTime } from '@/components/shop-board/dates';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { formatBytes } from '@/lib/clips/names';
@@ -11,6 +12,8 @@ type Props = {
   slug: string;
   clip: ClipDto;
   mayDelete: boolean;
+  /** The edit notes on this clip are the viewer's to read (lib/edit/policy.ts). */
+  mayReadNotes?: boolean;
   onDelete: (clip: ClipDto) => void;
   /** Which shot it was uploaded to, on the segment page. */
   shotLabel?: string | undefined;
@@ -60,7 +63,7 @@ async function copyText(text: string): Promise<boolean> {
   }
 }
 
-export function ClipItem({ slug, clip, mayDelete, onDelete, shotLabel, nested = false }: Props) {
+export function ClipItem({ slug, clip, mayDelete, mayReadNotes = false, onDelete, shotLabel, nested = false }: Props) {
   const name = clip.originalName;
   const kind = kindOf(clip.mimeType);
   const [previewing, setPreviewing] = useState(false);
@@ -179,6 +182,7 @@ export function ClipItem({ slug, clip, mayDelete, onDelete, shotLabel, nested = 
       <div id={previewId} hidden={!previewing}>
         {previewing ? <Preview slug={slug} clip={clip} kind={kind} /> : null}
       </div>
+      {mayReadNotes ? <ClipNotes slug={slug} clipId={clip.id} clipName={name} /> : null}
     </article>
   );
 }

@@ -5,6 +5,7 @@ import { useSegmentShots } from '@/components/shots/use-shots';
 import { Alert } from '@/components/ui/alert';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { ShotDto } from '@/lib/shots/schemas';
+import { mayReadClipNotes } from '@/lib/edit/policy';
 import { ClipItem } from './clip-item';
 import { useViewer } from '@/components/providers/viewer-provider';
 import { mayDeleteClip, useDeleteClip, useSegmentClips } from './use-clips';
@@ -79,6 +80,7 @@ function ClipListBody({ slug, segmentId, shotId, initialClips, nested = false, l
               slug={slug}
               clip={clip}
               mayDelete={mayDeleteClip(who, clip)}
+              mayReadNotes={mayReadClipNotes(who.role, clip.uploadedBy, who.userId)}
               onDelete={onDelete}
               shotLabel={clip.shotId ? labels?.get(clip.shotId) : undefined}
               nested={nested}

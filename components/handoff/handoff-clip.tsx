@@ -6,12 +6,15 @@ import { clipFileUrl, clipPosterUrl } from '@/components/clips/use-clips';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { formatBytes } from '@/lib/clips/names';
 import type { SnapshotClip } from '@/lib/handoffs/snapshot';
+import { usePlayerTime } from './player-time';
 
 /** One clip of a version: poster, duration, preview in place, download. */
 export function HandoffClip({ slug, clip, stored }: { slug: string; clip: SnapshotClip; stored: boolean }) {
   const [previewing, setPreviewing] = useState(false);
   const previewId = useId();
   const video = clip.mimeType.startsWith('video/');
+  const { report } = usePlayerTime();
+  const reportTime = (e: React.SyntheticEvent<HTMLVideoElement>) => report({ clipId: clip.id, clipName: clip.name, seconds: e.currentTarget.currentTime });
   return (
     <li className="flex flex-wrap items-start gap-3 rounded-md border border-paper-edge bg-white p-2">
       {clip.hasPoster && stored ? (
@@ -46,7 +49,17 @@ export function HandoffClip({ slug, clip, stored }: { slug: string; clip: Snapsh
       ) : null}
       {previewing ? (
         <div id={previewId} className="basis-full">
-          <video src={clipFileUrl(slug, clip.id)} controls preload="metadata" className="max-h-80 w-full rounded bg-black" aria-label={`Preview of ${clip.name}`} />
+          <video
+            src={clipFileUrl(slug, clip.id)}
+            controls
+            preload="metadata"
+            className="max-h-80 w-full rounded bg-black"
+            aria-label={`Preview of ${clip.name}`}
+            onLoadedMetadata={reportTime}
+            onTimeUpdate={reportTime}
+            onSeeked={reportTime}
+            onPause={reportTime}
+          />
         </div>
       ) : null}
     </li>

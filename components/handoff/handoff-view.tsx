@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { LocalTime } from '@/components/shop-board/dates';
 import { PrintButton } from '@/components/shoot-sheet/print-button';
 import { scriptProseClasses } from '@/components/script/script-prose';
 import { buttonClasses } from '@/components/ui/button';
@@ -13,6 +14,7 @@ import { ChangesBanner } from './changes-banner';
 import { EditStageSelect } from './edit-stage-select';
 import { HandoffClip } from './handoff-clip';
 import { NotesPanel } from './notes-panel';
+import { PlayerTimeProvider } from './player-time';
 
 type Props = { slug: string; data: HandoffPageData };
 
@@ -32,159 +34,160 @@ export function HandoffView({ slug, data }: Props) {
   const targetLabels = Object.fromEntries(targets.map((t) => [t.value.split(':')[1]!, t.label]));
 
   return (
-    <article className="print:text-black">
-      <header className="mb-6 flex flex-wrap items-start justify-between gap-4 border-b border-paper-edge pb-4 print:border-black">
-        <div>
-          <p className="text-sm text-ink-faint">Handoff, locked version</p>
-          <h1 className="text-2xl font-bold tracking-tight">
-            {snap.episode.title} <span className="font-mono">v{snap.version}</span>
-          </h1>
-          <dl className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-sm">
-            <Pair label="Locked">
-              {new Date(snap.lockedAt).toUTCString()} by {snap.lockedBy}
-            </Pair>
-            <Pair label="Frame rate">
-              <span className="font-mono">{rate.label}</span>
-            </Pair>
-            <Pair label="Forecast runtime">
-              <span className="font-mono">{formatDuration(snap.episode.totalSeconds)}</span>
-            </Pair>
-            <Pair label="Content hash">
-              <span className="font-mono" title={handoff.contentHash}>
-                {handoff.contentHash.slice(0, 12)}
-              </span>
-            </Pair>
-          </dl>
-          {snap.note ? <p className="mt-3 max-w-prose rounded-md bg-white/70 px-3 py-2">Note from the host: {snap.note}</p> : null}
-        </div>
-        <div className="flex flex-col items-start gap-3">
-          <EditStageSelect slug={slug} episodeId={episode.id} initial={episode.editStage} canEdit={data.canWriteNotes} />
-          <PrintButton />
-        </div>
-      </header>
+    <PlayerTimeProvider>
+      <article className="print:text-black">
+        <header className="mb-6 flex flex-wrap items-start justify-between gap-4 border-b border-paper-edge pb-4 print:border-black">
+          <div className="min-w-0 md:flex-1">
+            <p className="text-sm text-ink-faint">Handoff, locked version</p>
+            <h1 className="text-2xl font-bold tracking-tight">
+              {snap.episode.title} <span className="font-mono">v{snap.version}</span>
+            </h1>
+            <dl className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-sm">
+              <Pair label="Locked">
+                <LocalTime iso={snap.lockedAt} /> by {snap.lockedBy}
+              </Pair>
+              <Pair label="Frame rate">
+                <span className="font-mono">{rate.label}</span>
+              </Pair>
+              <Pair label="Forecast runtime">
+                <span className="font-mono">{formatDuration(snap.episode.totalSeconds)}</span>
+              </Pair>
+              <Pair label="Content hash">
+                <span className="font-mono" title={handoff.contentHash}>
+                  {handoff.contentHash.slice(0, 12)}
+                </span>
+              </Pair>
+            </dl>
+            {snap.note ? <p className="mt-3 max-w-prose rounded-md bg-white/70 px-3 py-2">Note from the host: {snap.note}</p> : null}
+          </div>
+          <div className="flex flex-col items-start gap-3">
+            <EditStageSelect slug={slug} episodeId={episode.id} initial={episode.editStage} canEdit={data.canWriteNotes} />
+            <PrintButton />
+          </div>
+        </header>
 
-      {changes ? <ChangesBanner diff={changes} /> : null}
+        {changes ? <ChangesBanner diff={changes} /> : null}
 
-      <nav aria-label="Downloads" className="mb-6 flex flex-wrap gap-2 print:hidden">
-        <a className={buttonClasses('primary')} href={`${api}/exports/zip`}>
-          Clip package (ZIP)
-        </a>
-        <a className={buttonClasses('secondary')} href={`${api}/exports/otio`}>
-          OTIO
-        </a>
-        <a className={buttonClasses('secondary')} href={`${api}/exports/edl`}>
-          EDL
-        </a>
-        <a className={buttonClasses('secondary')} href={`${api}/exports/csv`}>
-          Shots CSV
-        </a>
-      </nav>
+        <nav aria-label="Downloads" className="mb-6 flex flex-wrap gap-2 print:hidden">
+          <a className={buttonClasses('primary')} href={`${api}/exports/zip`}>
+            Clip package (ZIP)
+          </a>
+          <a className={buttonClasses('secondary')} href={`${api}/exports/otio`}>
+            OTIO
+          </a>
+          <a className={buttonClasses('secondary')} href={`${api}/exports/edl`}>
+            EDL
+          </a>
+          <a className={buttonClasses('secondary')} href={`${api}/exports/csv`}>
+            Shots CSV
+          </a>
+        </nav>
 
-      <div className="grid gap-6 lg:grid-cols-[1fr_22rem] print:block">
-        <div className="min-w-0">
-          <section aria-labelledby="order-heading">
-            <h2 id="order-heading" className="mb-2 text-lg font-bold">
-              Running order
-            </h2>
-            <table className="w-full text-left text-sm">
-              <caption className="sr-only">Segments with forecast start timecodes</caption>
-              <thead>
-                <tr className="border-b border-paper-edge">
-                  <th scope="col" className="py-1 pr-2">#</th>
-                  <th scope="col" className="py-1 pr-2">Starts (forecast)</th>
-                  <th scope="col" className="py-1 pr-2">Segment</th>
-                  <th scope="col" className="py-1">Runs</th>
-                </tr>
-              </thead>
-              <tbody>
-                {snap.segments.map((s) => (
-                  <tr key={s.id} className="border-b border-paper-edge/60">
-                    <td className="py-1 pr-2 font-mono">{s.number}</td>
-                    <td className="py-1 pr-2 font-mono">{forecastTc(s.startSeconds, rate)}</td>
-                    <td className="py-1 pr-2">
-                      <a href={`#segment-${s.number}`} className="underline">
-                        {s.title}
-                      </a>
-                    </td>
-                    <td className="py-1 font-mono">{formatDuration(s.totalSeconds)}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </section>
-
-          {snap.sponsorDeliverables.length ? (
-            <section aria-labelledby="sponsor-heading" className="mt-6">
-              <h2 id="sponsor-heading" className="mb-2 text-lg font-bold">
-                What the sponsor read must contain
+        <div className="grid gap-6 lg:grid-cols-[1fr_22rem] print:block">
+          <div className="min-w-0">
+            <section aria-labelledby="order-heading">
+              <h2 id="order-heading" className="mb-2 text-lg font-bold">
+                Running order
               </h2>
-              <ul className="grid gap-2">
-                {snap.sponsorDeliverables.map((d) => (
-                  <li key={d.id} className="rounded-md border border-paper-edge bg-white p-3 text-sm">
-                    <p className="font-bold">
-                      {d.sponsorName}
-                      {d.forecastStartSeconds !== null ? <span className="ml-2 font-mono">{forecastTc(d.forecastStartSeconds, rate)}</span> : null}
-                    </p>
-                    <p>Disclosure: {d.disclosure}</p>
-                    <p>Placement: {d.placementRule}</p>
-                    <ul className="list-disc pl-5">
-                      {d.talkingPoints.map((t, i) => (
-                        <li key={i}>{t}</li>
-                      ))}
-                    </ul>
+              <table className="w-full text-left text-sm">
+                <caption className="sr-only">Segments with forecast start timecodes</caption>
+                <thead>
+                  <tr className="border-b border-paper-edge">
+                    <th scope="col" className="py-1 pr-2">#</th>
+                    <th scope="col" className="py-1 pr-2">Starts (forecast)</th>
+                    <th scope="col" className="py-1 pr-2">Segment</th>
+                    <th scope="col" className="py-1">Runs</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {snap.segments.map((s) => (
+                    <tr key={s.id} className="border-b border-paper-edge/60">
+                      <td className="py-1 pr-2 font-mono">{s.number}</td>
+                      <td className="py-1 pr-2 font-mono">{forecastTc(s.startSeconds, rate)}</td>
+                      <td className="py-1 pr-2">
+                        <a href={`#segment-${s.number}`} className="underline">
+                          {s.title}
+                        </a>
+                      </td>
+                      <td className="py-1 font-mono">{formatDuration(s.totalSeconds)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </section>
+
+            {snap.sponsorDeliverables.length ? (
+              <section aria-labelledby="sponsor-heading" className="mt-6">
+                <h2 id="sponsor-heading" className="mb-2 text-lg font-bold">
+                  What the sponsor read must contain
+                </h2>
+                <ul className="grid gap-2">
+                  {snap.sponsorDeliverables.map((d) => (
+                    <li key={d.id} className="rounded-md border border-paper-edge bg-white p-3 text-sm">
+                      <p className="font-bold">
+                        {d.sponsorName}
+                        {d.forecastStartSeconds !== null ? <span className="ml-2 font-mono">{forecastTc(d.forecastStartSeconds, rate)}</span> : null}
+                      </p>
+                      <p>Disclosure: {d.disclosure}</p>
+                      <p>Placement: {d.placementRule}</p>
+                      <ul className="list-disc pl-5">
+                        {d.talkingPoints.map((t, i) => (
+                          <li key={i}>{t}</li>
+                        ))}
+                      </ul>
+                    </li>
+                  ))}
+                </ul>
+              </section>
+            ) : null}
+
+            {snap.segments.map((s) => (
+              <SegmentBlock key={s.id} slug={slug} segment={s} rate={rate} stored={stored} packageUrl={`${api}/segments/${s.id}/package`} />
+            ))}
+          </div>
+
+          <aside className="grid content-start gap-6 print:mt-6 print:block">
+            <NotesPanel
+              slug={slug}
+              episodeId={episode.id}
+              version={handoff.version}
+              frameRate={rate.id}
+              targets={targets}
+              targetLabels={targetLabels}
+              initial={data.notes}
+              canWrite={data.canWriteNotes}
+            />
+            <section aria-labelledby="versions-heading" className="print:hidden">
+              <h2 id="versions-heading" className="text-lg font-bold">
+                Versions
+              </h2>
+              <ol className="mt-2 grid gap-1 text-sm">
+                {versions.map((v) => (
+                  <li key={v.id} className="flex flex-wrap items-center gap-x-3">
+                    {v.version === handoff.version ? (
+                      <span className="inline-flex min-h-touch items-center font-bold" aria-current="page">
+                        v{v.version} (this one)
+                      </span>
+                    ) : (
+                      <>
+                        <Link href={`/c/${slug}/episodes/${episode.id}/handoff/${v.version}`} className="inline-flex min-h-touch items-center underline">
+                          v{v.version}
+                        </Link>
+                        {v.version < handoff.version ? (
+                          <Link href={`?since=${v.version}`} className="inline-flex min-h-touch items-center text-blueprint underline">
+                            changes since v{v.version}
+                          </Link>
+                        ) : null}
+                      </>
+                    )}
                   </li>
                 ))}
-              </ul>
+              </ol>
             </section>
-          ) : null}
-
-          {snap.segments.map((s) => (
-            <SegmentBlock key={s.id} slug={slug} segment={s} rate={rate} stored={stored} packageUrl={`${api}/segments/${s.id}/package`} />
-          ))}
+          </aside>
         </div>
-
-        <aside className="grid content-start gap-6 print:mt-6 print:block">
-          <NotesPanel
-            slug={slug}
-            episodeId={episode.id}
-            version={handoff.version}
-            frameRateLabel={rate.label}
-            dropFrame={rate.dropFrame}
-            targets={targets}
-            targetLabels={targetLabels}
-            initial={data.notes}
-            canWrite={data.canWriteNotes}
-          />
-          <section aria-labelledby="versions-heading" className="print:hidden">
-            <h2 id="versions-heading" className="text-lg font-bold">
-              Versions
-            </h2>
-            <ol className="mt-2 grid gap-1 text-sm">
-              {versions.map((v) => (
-                <li key={v.id} className="flex flex-wrap items-center gap-x-3">
-                  {v.version === handoff.version ? (
-                    <span className="inline-flex min-h-touch items-center font-bold" aria-current="page">
-                      v{v.version} (this one)
-                    </span>
-                  ) : (
-                    <>
-                      <Link href={`/c/${slug}/episodes/${episode.id}/handoff/${v.version}`} className="inline-flex min-h-touch items-center underline">
-                        v{v.version}
-                      </Link>
-                      {v.version < handoff.version ? (
-                        <Link href={`?since=${v.version}`} className="inline-flex min-h-touch items-center text-blueprint underline">
-                          changes since v{v.version}
-                        </Link>
-                      ) : null}
-                    </>
-                  )}
-                </li>
-              ))}
-            </ol>
-          </section>
-        </aside>
-      </div>
-    </article>
+      </article>
+    </PlayerTimeProvider>
   );
 }
 

@@ -6,6 +6,8 @@ import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import type { EditNoteDto } from '@/lib/edit/schemas';
+import { frameRates, playerTimeToTimecode, type FrameRateId } from '@/lib/timecode';
+import { usePlayerTime } from './player-time';
 import { useNoteMutations, useVersionNotes } from './use-handoff';
 
 export type NoteTarget = { value: string; label: string };
@@ -14,8 +16,7 @@ type Props = {
   slug: string;
   episodeId: string;
   version: number;
-  frameRateLabel: string;
-  dropFrame: boolean;
+  frameRate: FrameRateId;
   targets: NoteTarget[];
   targetLabels: Record<string, string>;
   initial: EditNoteDto[];
@@ -23,14 +24,26 @@ type Props = {
 };
 
 /** Edit notes of one version: threads pinned to a timecode on a segment or a clip. */
-export function NotesPanel({ slug, episodeId, version, frameRateLabel, dropFrame, targets, targetLabels, initial, canWrite }: Props) {
+export function NotesPanel({ slug, episodeId, version, frameRate, targets, targetLabels, initial, canWrite }: Props) {
   const { data: notes } = useVersionNotes(slug, episodeId, version, initial);
   const { create, reply, resolve } = useNoteMutations(slug, episodeId, version);
   const [target, setTarget] = useState(targets[0]?.value ?? '');
   const [timecode, setTimecode] = useState('');
   const [body, setBody] = useState('');
   const fields = create.error instanceof ApiError ? create.error.fields : {};
-  const example = dropFrame ? '00:01:00;02' : '00:01:00:00';
+  const rate = frameRates[frameRate];
+  const example = rate.dropFrame ? '00:01:00;02' : '00:01:00:00';
+  const player = usePlayerTime().current;
+  const [fromPlayer, setFromPlayer] = useState<string | null>(null);
+  const takePlayerTime = () => {
+    if (!player) return;
+    const tc = playerTimeToTimecode(player.seconds, rate);
+    const clipTarget = `clip:${player.clipId}`;
+    // The player's time is the clip's own, so the note goes on that clip.
+    if (targets.some((t) => t.value === clipTarget)) setTarget(clipTarget);
+    setTimecode(tc);
+    setFromPlayer(`${tc} in ${player.clipName}`);
+  };
 
   return (
     <section aria-labelledby="notes-heading" className="rounded-card border border-paper-edge bg-white/50 p-4 print:border-black">
@@ -38,7 +51,7 @@ export function NotesPanel({ slug, episodeId, version, frameRateLabel, dropFrame
         Edit notes
       </h2>
       <p className="text-sm text-ink-faint">
-        Timecodes at <span className="font-mono">{frameRateLabel}</span>.
+        Timecodes at <span className="font-mono">{rate.label}</span>.
       </p>
       {canWrite ? (
         <form
@@ -52,6 +65,7 @@ export function NotesPanel({ slug, episodeId, version, frameRateLabel, dropFrame
                 onSuccess: () => {
                   setBody('');
                   setTimecode('');
+                  setFromPlayer(null);
                 },
               },
             );
@@ -64,17 +78,43 @@ export function NotesPanel({ slug, episodeId, version, frameRateLabel, dropFrame
               </option>
             ))}
           </SelectField>
-          <TextField
-            label="Timecode"
-            value={timecode}
-            onChange={(e) => setTimecode(e.target.value)}
-            placeholder={example}
-            className="font-mono"
-            inputMode="numeric"
-            autoComplete="off"
-            error={fields.timecode}
-            hint={`Like ${example}`}
-          />
+          <div className="flex flex-wrap items-end gap-2">
+            <TextField
+              label="Timecode"
+              value={timecode}
+              onChange={(e) => {
+                setTimecode(e.target.value);
+                setFromPlayer(null);
+              }}
+              placeholder={example}
+              className="min-w-40 flex-1"
+              inputClassName="font-mono"
+              inputMode="numeric"
+              autoComplete="off"
+              error={fields.timecode}
+              {...(fields.timecode ? {} : { 'aria-describedby': 'player-time-hint' })}
+            />
+            <Button type="button" variant="secondary" disabled={!player} onClick={takePlayerTime}>
+              Use player time
+            </Button>
+            <p id="player-time-hint" className="basis-full text-sm text-ink-faint">
+              Like <span className="font-mono">{example}</span>.{' '}
+              {!player ? 'Preview a clip to take its time from the player.' : null}
+              {player && !fromPlayer ? (
+                <>
+                  Player at <span className="font-mono">{playerTimeToTimecode(player.seconds, rate)}</span> in {player.clipName}
+                </>
+              ) : null}
+              {/* Announced once when the button fills the field, not at every tick of a playing video. */}
+              <span role="status">
+                {fromPlayer ? (
+                  <>
+                    From the player: <span className="font-mono">{fromPlayer}</span>
+                  </>
+                ) : null}
+              </span>
+            </p>
+          </div>
           <div>
             <label htmlFor="note-body" className="mb-1 block text-sm font-bold">
               Note

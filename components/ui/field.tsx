@@ -5,7 +5,8 @@ const controlClasses =
 
 type FieldProps = { label: string; error?: string | undefined; hint?: ReactNode };
 
-export function TextField({ label, error, hint, className = '', ...props }: FieldProps & InputHTMLAttributes<HTMLInputElement>) {
+/** `className` styles the field's box (label, input, hint); `inputClassName` the input alone (a monospaced timecode). */
+export function TextField({ label, error, hint, className = '', inputClassName = '', ...props }: FieldProps & { inputClassName?: string } & InputHTMLAttributes<HTMLInputElement>) {
   const id = useId();
   return (
     <div className={className}>
@@ -16,7 +17,7 @@ export function TextField({ label, error, hint, className = '', ...props }: Fiel
         id={id}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-        className={`${controlClasses} border-ink/30`}
+        className={`${controlClasses} border-ink/30 ${inputClassName}`}
         {...props}
       />
       {hint && !error ? (

@@ -22,6 +22,10 @@ export const queryKeys = {
 
   stock: (slug: string) => ['stock', slug] as const,
   parts: (segmentId: string) => ['parts', segmentId] as const,
+  handoffs: (slug: string, episodeId: string) => ['handoffs', slug, episodeId] as const,
+  versionNotes: (slug: string, episodeId: string, version: number) => ['handoffs', slug, episodeId, version, 'notes'] as const,
+  clipNotes: (slug: string, clipId: string) => ['clip-notes', slug, clipId] as const,
+
   cutPlans: () => ['cut-plan'] as const,
   segmentCutPlan: (segmentId: string) => ['cut-plan', 'segment', segmentId] as const,
   episodeCutPlan: (episodeId: string) => ['cut-plan', 'episode', episodeId] as const,

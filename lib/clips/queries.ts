@@ -111,6 +111,8 @@ export type NewClip = {
   mimeType: string;
   sizeBytes: number;
   sha256: string;
+  /** CRC-32 of the bytes, for the clip package; unknown for rows written without it. */
+  crc32?: number | null;
 };
 
 /** Writes the clip row and its media job exactly once per upload, however often the finish is retried. */
@@ -126,6 +128,7 @@ export async function recordClipOnce(clip: NewClip): Promise<{ clipId: string; c
         mime_type: clip.mimeType,
         size_bytes: clip.sizeBytes,
         sha256: clip.sha256,
+        crc32: clip.crc32 ?? null,
       })
       .onConflict('upload_id')
       .ignore()

@@ -1,13 +1,13 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/client';
-import { can } from '@/lib/auth/policy';
 import type { Membership } from '@/lib/channels/queries';
 import { forbidden, invalidInput, notFound } from '@/lib/errors';
 import { parseSnapshot } from '@/lib/handoffs/snapshot';
 import { clipsOfAll } from '@/lib/handoffs/assembly';
 import { frameRates, framesToTimecode, isFrameRateId, TimecodeError, timecodeToFrames } from '@/lib/timecode';
 import type { UserDto } from '@/lib/users/schemas';
+import { CLIP_NOTES_OWN_ONLY, mayReadClipNotes } from './policy';
 import type { CreateNoteInput, EditNoteDto, EditStageEventDto } from './schemas';
 import type { EditStage } from './stages';
 
@@ -104,7 +104,7 @@ export async function listClipNotes(member: Membership, clipId: string): Promise
     .where({ 'c.id': clipId, 'e.channel_id': member.channel.id })
     .first('c.uploaded_by');
   if (!clip) throw notFound('That clip');
-  if (!can(member.role, 'editNotes.edit') && clip.uploaded_by !== member.userId) throw forbidden('A Shop hand reads the notes on clips they uploaded.');
+  if (!mayReadClipNotes(member.role, clip.uploaded_by, member.userId)) throw forbidden(CLIP_NOTES_OWN_ONLY);
   const rows: NoteRow[] = await notesOfChannel(db, member.channel.id)
     .where((q) => q.where('n.clip_id', clipId).orWhereIn('n.parent_id', db('edit_notes').select('id').where('clip_id', clipId)))
     .orderBy([{ column: 'h.version' }, { column: 'n.frame' }, { column: 'n.created_at' }])

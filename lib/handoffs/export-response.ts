@@ -1,5 +1,4 @@
 import 'server-only';
-import { Readable } from 'node:stream';
 import contentDisposition from 'content-disposition';
 import { clipStore } from '@/storage/tus-server';
 import { buildAssembly, clipsOfAll } from './assembly';
@@ -36,11 +35,11 @@ export async function exportResponse(channelId: string, stored: StoredHandoff, f
     const store = clipStore();
     const pkg = await buildClipPackage(snapshot, {
       available: new Set(uploads.keys()),
-      openClip: (clipId) => store.read(uploads.get(clipId)!),
+      openClip: (clipId) => store.read(uploads.get(clipId)!.uploadId),
+      crcOf: (clipId) => uploads.get(clipId)?.crc32 ?? null,
       segmentId,
     });
-    const headers = download(pkg.fileName, 'application/zip', pkg.size === null ? {} : { 'Content-Length': String(pkg.size) });
-    return new Response(Readable.toWeb(pkg.stream) as ReadableStream, { headers });
+    return new Response(pkg.stream, { headers: download(pkg.fileName, 'application/zip', { 'Content-Length': String(pkg.size) }) });
   }
   const body =
     format === 'json' ? stored.content : format === 'csv' ? buildShotsCsv(snapshot) : format === 'otio' ? otioText(snapshot, buildAssembly(snapshot)) : buildEdl(snapshot, buildAssembly(snapshot));

@@ -4,7 +4,6 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Readable } from 'node:stream';
-import { buffer } from 'node:stream/consumers';
 import { describe, expect, it } from 'vitest';
 import { frameRates, timecodeToFrames } from '@/lib/timecode';
 import { buildAssembly, safeName } from './assembly';
@@ -115,6 +114,14 @@ describe('CSV', () => {
   });
 });
 
+/** The whole web stream as one Buffer (rejects with the stream's own error). */
+async function readAll(stream: ReadableStream<Uint8Array>): Promise<Buffer> {
+  const parts: Uint8Array[] = [];
+  const reader = stream.getReader();
+  for (let r = await reader.read(); !r.done; r = await reader.read()) parts.push(r.value);
+  return Buffer.concat(parts);
+}
+
 describe('clip package', () => {
   const bytes: Record<string, Buffer> = { c1: Buffer.alloc(1000, 7), c2: Buffer.alloc(500, 9) };
   const input = sampleInput();
@@ -124,7 +131,7 @@ describe('clip package', () => {
 
   it('is a stored ZIP of the predicted size that unzip -t accepts and whose SHA256SUMS verify', async () => {
     const pkg = await buildClipPackage(snapshot, { openClip, available: new Set(['c1', 'c2']) });
-    const zip = await buffer(pkg.stream);
+    const zip = await readAll(pkg.stream);
     expect(pkg.size).toBe(zip.length);
     const dir = mkdtempSync(join(tmpdir(), 'kerfline-pkg-'));
     try {
@@ -146,7 +153,7 @@ describe('clip package', () => {
 
   it('per segment holds only that folder, and lists a deleted clip as missing', async () => {
     const pkg = await buildClipPackage(snapshot, { openClip, available: new Set(['c2']), segmentId: 's2' });
-    const zip = await buffer(pkg.stream);
+    const zip = await readAll(pkg.stream);
     expect(pkg.size).toBe(zip.length);
     expect(pkg.missing).toEqual(['02 Legs/S01 A001.mov']);
     expect(pkg.fileName).toBe('Walnut step stool v1 - 02 Legs.zip');

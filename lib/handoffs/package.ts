@@ -1,17 +1,17 @@
-import type { Readable } from 'node:stream';
-import { ZipFile } from 'yazl';
 import { buildAssembly, packageClips, safeName, type AssemblyClip } from './assembly';
 import { buildEdl } from './edl';
 import { otioText } from './otio';
 import { hashContent, type HandoffSnapshot } from './snapshot';
+import { createZipArchive, type ZipEntrySource } from './zip-writer';
 
 // The clip package: one stored (uncompressed) ZIP streamed straight from the clip store, with the
-// OTIO, the EDL, manifest.json and SHA256SUMS. yazl writes ZIP64 records for entries over 4 GiB and,
-// as every entry's size is given up front, knows the archive's size before the first byte.
+// OTIO, the EDL, manifest.json and SHA256SUMS. The writer (zip-writer.ts) uses ZIP64 records for
+// entries over 4 GiB and, as every entry's size is known up front, knows the archive's size before
+// the first byte.
 
-export type OpenClip = (clipId: string) => Promise<Readable>;
+export type OpenClip = (clipId: string) => Promise<AsyncIterable<Uint8Array>>;
 
-export type ClipPackage = { stream: Readable; size: number | null; fileName: string; missing: string[] };
+export type ClipPackage = { stream: ReadableStream<Uint8Array>; size: number; fileName: string; missing: string[] };
 
 /** Base name of the package and its timeline files: "Walnut step stool v3". */
 export const packageBaseName = (snapshot: HandoffSnapshot) => safeName(`${snapshot.episode.title} v${snapshot.version}`, 80);
@@ -22,16 +22,15 @@ const sumsLine = (hash: string, path: string) => `${hash}  ${path}\n`;
 /**
  * @param available clip ids whose bytes still exist (a clip deleted after the lock is listed as missing).
  * @param segmentId only this segment's folder (a per-segment download), without the timeline files.
+ * @param crcOf a clip's CRC-32 as ingest recorded it; null makes the writer compute it while streaming.
  */
 export async function buildClipPackage(
   snapshot: HandoffSnapshot,
-  options: { openClip: OpenClip; available: Set<string>; segmentId?: string},
+  options: { openClip: OpenClip; available: Set<string>; segmentId?: string; crcOf?: (clipId: string) => number | null },
 ): Promise<ClipPackage> {
   const assembly = buildAssembly(snapshot);
   const mtime = new Date(snapshot.lockedAt);
-  const zip = new ZipFile();
-  // A clip that cannot be read ends the download with an error rather than a short, valid-looking file.
-  zip.on('error', (err: Error) => (zip.outputStream as unknown as Readable).destroy(err));
+  const entries: ZipEntrySource[] = [];
   const segment = options.segmentId ? snapshot.segments.find((s) => s.id === options.segmentId) : undefined;
   const clips = packageClips(assembly).filter((c) => !options.segmentId || c.segment.id === options.segmentId);
   const present: AssemblyClip[] = clips.filter((c) => options.available.has(c.clip.id));
@@ -40,17 +39,12 @@ export async function buildClipPackage(
   let sums = '';
 
   for (const item of present) {
-    zip.addReadStreamLazy(item.path, { size: item.clip.sizeBytes, compress: false, mtime }, (cb) => {
-      options.openClip(item.clip.id).then(
-        (stream) => cb(null, stream),
-        (err: unknown) => cb(err, undefined as unknown as NodeJS.ReadableStream),
-      );
-    });
+    entries.push({ path: item.path, mtime, size: item.clip.sizeBytes, crc32: options.crcOf?.(item.clip.id) ?? null, open: () => options.openClip(item.clip.id) });
     sums += sumsLine(item.clip.sha256, item.path);
   }
 
   const addText = (path: string, text: string) => {
-    zip.addBuffer(Buffer.from(text, 'utf8'), path, { compress: false, mtime });
+    entries.push({ path, mtime, data: Buffer.from(text, 'utf8') });
     sums += sumsLine(hashContent(text), path);
   };
   if (!segment) {
@@ -77,11 +71,10 @@ export async function buildClipPackage(
     missing,
   };
   addText('manifest.json', `${JSON.stringify(manifest, null, 2)}\n`);
-  zip.addBuffer(Buffer.from(sums, 'utf8'), 'SHA256SUMS', { compress: false, mtime });
+  entries.push({ path: 'SHA256SUMS', mtime, data: Buffer.from(sums, 'utf8') });
 
-  const size = await new Promise<number>((resolve) => {
-    (zip.end as (options: object, cb: (size: number) => void) => void)({}, resolve);
-  });
+  // A clip that cannot be read ends the download with an error rather than a short, valid-looking file.
+  const { stream, size } = createZipArchive(entries);
   const fileName = segment ? `${base} - ${safeName(`${String(segment.number).padStart(2, '0')} ${segment.title}`, 60)}.zip` : `${base}.zip`;
-  return { stream: zip.outputStream as unknown as Readable, size: size >= 0 ? size : null, fileName, missing };
+  return { stream, size, fileName, missing };
 }

@@ -118,13 +118,17 @@ export async function recordHandoffRead(episodeId: string, userId: string, versi
 }
 
 /** Upload ids of the clips that still exist, by clip id, in one statement. */
-export async function findClipUploads(channelId: string, clipIds: string[]): Promise<Map<string, string>> {
+export type ClipUpload = { uploadId: string; crc32: number | null };
+
+/** Where each clip's bytes are, and their CRC-32 when ingest recorded it. */
+export async function findClipUploads(channelId: string, clipIds: string[]): Promise<Map<string, ClipUpload>> {
   if (clipIds.length === 0) return new Map();
-  const rows: { id: string; upload_id: string }[] = await db('clips as c')
+  const rows: { id: string; upload_id: string; crc32: string | number | null }[] = await db('clips as c')
     .join('segments as s', 's.id', 'c.segment_id')
     .join('episodes as e', 'e.id', 's.episode_id')
     .where('e.channel_id', channelId)
     .whereIn('c.id', clipIds)
-    .select('c.id', 'c.upload_id');
-  return new Map(rows.map((r) => [r.id, r.upload_id]));
+    .select('c.id', 'c.upload_id', 'c.crc32');
+  // pg returns bigint as a string.
+  return new Map(rows.map((r) => [r.id, { uploadId: r.upload_id, crc32: r.crc32 === null ? null : Number(r.crc32) }]));
 }

@@ -7,6 +7,7 @@ export {
   framesToSeconds,
   framesToTimecode,
   partsToFrames,
+  playerTimeToTimecode,
   secondsToFrames,
   timecodeToFrames,
   TimecodeError,

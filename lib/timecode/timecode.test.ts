@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { frameRateIds, frameRates, framesPerDay, framesToSeconds, framesToTimecode, nearestFrameRate, secondsToFrames, TimecodeError, timecodeToFrames } from '.';
+import { frameRateIds, frameRates, framesPerDay, framesToSeconds, framesToTimecode, nearestFrameRate, playerTimeToTimecode, secondsToFrames, TimecodeError, timecodeToFrames } from '.';
 
 const df2997 = frameRates['29.97df'];
 const df5994 = frameRates['59.94df'];
@@ -92,6 +92,19 @@ describe('seconds', () => {
     expect(secondsToFrames(1001 / 30000, df2997)).toBe(1);
     expect(secondsToFrames(60, df2997)).toBe(1798);
     expect(framesToSeconds(30000, df2997)).toBeCloseTo(1001, 9);
+  });
+
+  it("turns a player's current time into the timecode of the frame on screen", () => {
+    // Source: SMPTE ST 12-1 worked value, frame 1800 at 29.97 DF = 00:01:00;02; its start is 1800 × 1001 / 30000 s.
+    expect(playerTimeToTimecode((1800 * 1001) / 30000, df2997)).toBe('00:01:00;02');
+    expect(playerTimeToTimecode(60.06 - 1e-9, df2997)).toBe('00:01:00;02');
+    // Half a frame later is still that frame; a whole frame later is the next.
+    expect(playerTimeToTimecode((1800.5 * 1001) / 30000, df2997)).toBe('00:01:00;02');
+    expect(playerTimeToTimecode((1801 * 1001) / 30000, df2997)).toBe('00:01:00;03');
+    expect(playerTimeToTimecode(1.5, frameRates['25'])).toBe('00:00:01:12');
+    expect(playerTimeToTimecode(0, frameRates['24'])).toBe('00:00:00:00');
+    expect(playerTimeToTimecode(Number.NaN, frameRates['24'])).toBe('00:00:00:00');
+    expect(playerTimeToTimecode(-3, frameRates['24'])).toBe('00:00:00:00');
   });
 
   it('maps a probed rate to the nearest listed rate', () => {

@@ -93,3 +93,14 @@ export function timecodeToFrames(text: string, rate: FrameRate): number {
 export const secondsToFrames = (seconds: number, rate: FrameRate): number => Math.floor((seconds * rate.num) / rate.den + 1e-9);
 
 export const framesToSeconds = (frames: number, rate: FrameRate): number => (frames * rate.den) / rate.num;
+
+/**
+ * A media player's current time (HTMLMediaElement.currentTime, seconds as a double) as a timecode.
+ * A player parked on a frame reports that frame's start time, which double arithmetic can put a hair
+ * below the exact value (60.0599999… for frame 1800 at 29.97); a thousandth of a frame of slack keeps
+ * such a time on its frame without ever reaching the next one. Negative or non-finite times read as 0.
+ */
+export function playerTimeToTimecode(seconds: number, rate: FrameRate): string {
+  const time = Number.isFinite(seconds) && seconds > 0 ? seconds : 0;
+  return framesToTimecode(Math.floor((time * rate.num) / rate.den + 1e-3), rate);
+}

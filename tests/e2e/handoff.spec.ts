@@ -38,6 +38,8 @@ test('host locks v1, the editor opens it from the e-mail, previews, notes and se
   await host.getByLabel('Note to the editor').fill('First assembly, please');
   await host.getByRole('button', { name: 'Lock for edit' }).click();
   await expect(host.getByRole('status').filter({ hasText: 'Locked' })).toContainText('v1');
+  // The version list shows the new version without a reload.
+  await expect(host.getByRole('list', { name: 'Locked versions' }).getByRole('link', { name: 'v1' })).toBeVisible();
   await expectAccessible(host);
 
   const editor = await signedIn('editor', { viewport: { width: 1280, height: 900 }, acceptDownloads: true });
@@ -50,19 +52,38 @@ test('host locks v1, the editor opens it from the e-mail, previews, notes and se
   await editor.getByRole('button', { name: `Preview ${name}` }).click();
   const player = editor.getByLabel(`Preview of ${name}`);
   await expect.poll(() => player.evaluate((v: HTMLVideoElement) => v.readyState), { timeout: 15_000 }).toBeGreaterThan(0);
+  // "Use player time": the player parked on frame 45 gives that frame's timecode at 29.97 DF and pins the note to the clip.
+  await player.evaluate((v: HTMLVideoElement) => {
+    v.currentTime = (45 * 1001) / 30000;
+  });
+  await expect(editor.getByText(`Player at 00:00:01;15 in ${name}`)).toBeVisible();
+  await editor.getByRole('button', { name: 'Use player time' }).click();
+  await expect(editor.getByLabel('Timecode')).toHaveValue('00:00:01;15');
+  await expect(editor.getByLabel('Pinned to').locator('option:checked')).toHaveText(new RegExp(`^Clip ${name.replace('.', '\\.')}`));
+  await editor.getByLabel('Note', { exact: true }).fill('Blade guard is out of frame here');
+  await editor.getByRole('button', { name: 'Add note' }).click();
+  await expect(editor.getByRole('list', { name: 'Note threads' })).toContainText('Blade guard is out of frame here');
   await editor.getByRole('button', { name: `Hide preview ${name}` }).click();
 
   await editor.getByLabel('Pinned to').selectOption(`segment:${build.id}`);
   await editor.getByLabel('Timecode').fill('00:01:00;02');
   await editor.getByLabel('Note', { exact: true }).fill('Trim the head of the crosscut');
   await editor.getByRole('button', { name: 'Add note' }).click();
-  const thread = editor.getByRole('list', { name: 'Note threads' }).getByRole('listitem').first();
+  const thread = editor.getByRole('list', { name: 'Note threads' }).getByRole('listitem').filter({ hasText: 'Trim the head of the crosscut' });
   await expect(thread).toContainText('00:01:00;02');
   await expect(thread).toContainText('Trim the head of the crosscut');
 
   await editor.getByLabel('Edit stage').selectOption('rough_cut');
   await expect(editor.getByText('Saved: Rough cut')).toBeVisible();
   await expectAccessible(editor);
+
+  // The clip's notes show on its card for whoever may read them (the uploader, Hosts, Editors).
+  await host.goto(segmentUrl);
+  await host.getByRole('button', { name: `Edit notes on ${name}` }).click();
+  const clipNotes = host.getByRole('list', { name: 'Edit notes on this clip' });
+  await expect(clipNotes).toContainText('00:00:01;15');
+  await expect(clipNotes).toContainText('Blade guard is out of frame here');
+  await expectAccessible(host);
 
   // The host rewrites a script and locks v2.
   const api = `/api/channels/${DEMO_SLUG}`;

@@ -1,9 +1,10 @@
-import { createHash, randomBytes } from 'node:crypto';
+import { randomBytes } from 'node:crypto';
 import { Readable } from 'node:stream';
 import type { Upload } from '@tus/server';
 import { findMembership } from '@/lib/channels/queries';
 import { recordClipOnce } from '@/lib/clips/queries';
 import { lockHandoff } from '@/lib/handoffs/queries';
+import { hashesOf } from '@/storage/ingest';
 import { clipStore } from '@/storage/tus-server';
 import type { Crew } from './route-matrix';
 import { makeShotEpisode } from './shot-fixtures';
@@ -21,8 +22,9 @@ export async function storeClip(segmentId: string, shotId: string | null, upload
   const store = clipStore();
   await store.tus.create({ id: uploadId, size: bytes.length, offset: 0, metadata: {}, creation_date: new Date().toISOString() } as Upload);
   await store.tus.write(Readable.from([bytes]), uploadId, 0);
-  const sha256 = createHash('sha256').update(bytes).digest('hex');
-  const { clipId } = await recordClipOnce({ uploadId, segmentId, shotId, uploadedBy, originalName: name, mimeType: 'video/mp4', sizeBytes: bytes.length, sha256 });
+  // As ingest records a finished upload: SHA-256 and CRC-32 from one read of the bytes.
+  const { sha256, crc32 } = await hashesOf(await store.read(uploadId));
+  const { clipId } = await recordClipOnce({ uploadId, segmentId, shotId, uploadedBy, originalName: name, mimeType: 'video/mp4', sizeBytes: bytes.length, sha256, crc32 });
   return { clipId, uploadId, sha256 };
 }
 

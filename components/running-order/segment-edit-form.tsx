@@ -4,10 +4,8 @@ import { useId, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
-import type { FieldErrors } from '@/lib/errors';
 import { formatDuration } from '@/lib/runtime';
 import {
   kindLabels,
@@ -47,37 +45,37 @@ type Props = {
 };
 
 export function SegmentEditForm({ channelSlug, episode, segment, onDone, onDeleted }: Props) {
-  const update = useUpdateSegment(channelSlug, episode.id);
+  const updateSegment = useUpdateSegment(channelSlug, episode.id);
   const remove = useDeleteSegment(channelSlug, episode.id);
   const [kind, setKind] = useState<SegmentKind>(segment.kind);
-  const [fields, setFields] = useState<FieldErrors>({});
   const [confirm, setConfirm] = useState<'closed' | 'asking' | 'cancelled'>('closed');
   const confirmTextId = useId();
+  const { fields, submit, mutation: update, message } = useSchemaForm({
+    schema: updateSegmentSchema,
+    // An unchanged form sends nothing and just closes.
+    send: (input) => {
+      const patch = changesTo(segment, input);
+      return patch ? updateSegment.mutateAsync({ segmentId: segment.id, patch }) : Promise.resolve(null);
+    },
+    onSuccess: onDone,
+  });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const actionText = String(form.get('actionSeconds') ?? '').trim();
-    const parsed = updateSegmentSchema.safeParse({
+    submit({
       title: String(form.get('title') ?? ''),
       kind,
       level: kind === 'build' ? levelFrom(form.get('level')) : null,
       actionSeconds: actionText === '' ? 0 : actionText,
     });
-    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
-    setFields({});
-    const patch = changesTo(segment, parsed.data);
-    if (!patch) return onDone();
-    update.mutate(
-      { segmentId: segment.id, patch },
-      { onSuccess: onDone, onError: (err) => setFields(err instanceof ApiError ? err.fields : {}) },
-    );
   }
 
   return (
     <div className="space-y-5">
       <form onSubmit={onSubmit} noValidate aria-label={`Edit ${segment.title}`} className="space-y-4">
-        {update.isError ? <Alert tone="attention">{update.error.message}</Alert> : null}
+        {message ? <Alert tone="attention">{message}</Alert> : null}
         <TextField label="Title" name="title" defaultValue={segment.title} autoFocus required maxLength={160} error={fields.title} />
         <div className="grid gap-4 sm:grid-cols-3">
           <SelectField label="Kind" name="kind" value={kind} onChange={(e) => setKind(asKind(e.target.value, kind))} error={fields.kind}>

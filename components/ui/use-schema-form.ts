@@ -37,8 +37,13 @@ export function useFormMutation<I, R>({ send, onSuccess, fieldNames = {}, failur
     if (reset) mutation.reset();
     setFields(local);
   }
+  /** Forgets the last answer and every field message (a closed editor, a later success elsewhere). */
+  function clear() {
+    mutation.reset();
+    setFields({});
+  }
   const message = mutation.isError ? messageOfFailure(mutation.error, failureMessage) : null;
-  return { fields, submit, refuse, mutation, message };
+  return { fields, submit, refuse, clear, mutation, message };
 }
 
 /**

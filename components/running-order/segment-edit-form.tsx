@@ -3,6 +3,7 @@
 import { useId, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
 import { useSchemaForm } from '@/components/ui/use-schema-form';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
@@ -106,14 +107,7 @@ export function SegmentEditForm({ channelSlug, episode, segment, onDone, onDelet
           />
         </div>
         {fields._ ? <p className="text-sm font-bold text-attention-ink">{fields._}</p> : null}
-        <div className="flex flex-wrap gap-2">
-          <Button type="submit" disabled={update.isPending}>
-            {update.isPending ? 'Saving…' : 'Save changes'}
-          </Button>
-          <Button variant="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions pending={update.isPending} label="Save changes" onCancel={onDone} className="flex flex-wrap gap-2" />
       </form>
 
       <div className="border-t border-paper-edge pt-4">

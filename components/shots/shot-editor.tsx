@@ -2,7 +2,7 @@
 
 import { useId, useRef, useState, type FormEvent, type KeyboardEvent, type ReactNode } from 'react';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
 import { useFormMutation } from '@/components/ui/use-schema-form';
 import { cameraLabels, cameras, framingLabels, framings, MAX_DESCRIPTION, type Camera, type Framing } from '@/lib/shots/catalog';
@@ -124,14 +124,7 @@ export function ShotEditor({ channelSlug, shot, crew, canAssign, onClose }: Shot
         <TextField label="Due date" type="date" value={draft.dueDate} error={fields.dueDate} onChange={(e) => set('dueDate', e.currentTarget.value)} />
       </div>
       <TextArea label="Notes" value={draft.notes} error={fields.notes} hint="Shift+Enter starts a new line." onChange={(v) => set('notes', v)} />
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={update.isPending}>
-          {update.isPending ? 'Saving…' : 'Save'}
-        </Button>
-        <Button variant="secondary" onClick={onClose}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions pending={update.isPending} label="Save" onCancel={onClose} cancelVariant="secondary" className="flex flex-wrap gap-2" />
     </form>
   );
 }

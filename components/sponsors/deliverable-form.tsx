@@ -2,7 +2,7 @@
 
 import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
 import { useFormMutation } from '@/components/ui/use-schema-form';
 import { formatDuration } from '@/lib/runtime';
@@ -139,16 +139,7 @@ export function DeliverableForm({ deliverable: d, episodes, crew, pending, submi
             ))}
         </fieldset>
       ) : null}
-      <div className="flex gap-2 sm:col-span-2">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : submitLabel}
-        </Button>
-        {onCancel ? (
-          <Button variant="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <FormActions pending={pending} label={submitLabel} onCancel={onCancel} className="flex gap-2 sm:col-span-2" />
     </form>
   );
 }

@@ -3,11 +3,11 @@
 import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
+import { TextField } from '@/components/ui/field';
 import { useSchemaForm } from '@/components/ui/use-schema-form';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
-import { createSegmentSchema, kindLabels, levels, segmentKinds, type SegmentKind } from '@/lib/segments/schemas';
-import { asKind, levelFrom, levelText } from './segment-edit-form';
+import { createSegmentSchema, type SegmentKind } from '@/lib/segments/schemas';
+import { KindAndLevelFields, levelFrom } from './segment-edit-form';
 import { useAddSegment } from './use-running-order';
 
 /** Adds a segment at the end of the running order. */
@@ -62,23 +62,7 @@ export function AddSegmentForm({ channelSlug, episode }: { channelSlug: string; 
           placeholder="e.g. Cutting the half-laps"
           error={fields.title}
         />
-        <SelectField label="Kind" name="kind" value={kind} onChange={(e) => setKind(asKind(e.target.value, kind))} error={fields.kind}>
-          {segmentKinds.map((k) => (
-            <option key={k} value={k}>
-              {kindLabels[k]}
-            </option>
-          ))}
-        </SelectField>
-        {kind === 'build' ? (
-          <SelectField label="Level" name="level" defaultValue="1" error={fields.level}>
-            {levels.map((l) => (
-              <option key={l} value={String(l)}>
-                {levelText(l, episode.levelLabels)}
-              </option>
-            ))}
-            <option value="">No level</option>
-          </SelectField>
-        ) : null}
+        <KindAndLevelFields kind={kind} onKind={setKind} defaultLevel="1" levelLabels={episode.levelLabels} fields={fields} />
       </div>
       {fields._ ? <p className="text-sm font-bold text-attention-ink">{fields._}</p> : null}
       <Button type="submit" disabled={add.isPending}>

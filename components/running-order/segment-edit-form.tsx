@@ -7,6 +7,7 @@ import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
 import { useSchemaForm } from '@/components/ui/use-schema-form';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
+import type { FieldErrors } from '@/lib/errors';
 import { formatDuration } from '@/lib/runtime';
 import {
   kindLabels,
@@ -35,6 +36,43 @@ export function asKind(value: string, fallback: SegmentKind): SegmentKind {
 export function levelFrom(value: FormDataEntryValue | null): number | null {
   const text = typeof value === 'string' ? value : '';
   return text === '' ? null : Number(text);
+}
+
+/** The kind select and, for a build, its level select: a segment's kind and level travel together. */
+export function KindAndLevelFields({
+  kind,
+  onKind,
+  defaultLevel,
+  levelLabels,
+  fields,
+}: {
+  kind: SegmentKind;
+  onKind: (kind: SegmentKind) => void;
+  defaultLevel: string;
+  levelLabels: EpisodeDto['levelLabels'];
+  fields: FieldErrors;
+}) {
+  return (
+    <>
+      <SelectField label="Kind" name="kind" value={kind} onChange={(e) => onKind(asKind(e.target.value, kind))} error={fields.kind}>
+        {segmentKinds.map((k) => (
+          <option key={k} value={k}>
+            {kindLabels[k]}
+          </option>
+        ))}
+      </SelectField>
+      {kind === 'build' ? (
+        <SelectField label="Level" name="level" defaultValue={defaultLevel} error={fields.level}>
+          {levels.map((l) => (
+            <option key={l} value={String(l)}>
+              {levelText(l, levelLabels)}
+            </option>
+          ))}
+          <option value="">No level</option>
+        </SelectField>
+      ) : null}
+    </>
+  );
 }
 
 type Props = {
@@ -79,23 +117,13 @@ export function SegmentEditForm({ channelSlug, episode, segment, onDone, onDelet
         {message ? <Alert tone="attention">{message}</Alert> : null}
         <TextField label="Title" name="title" defaultValue={segment.title} autoFocus required maxLength={160} error={fields.title} />
         <div className="grid gap-4 sm:grid-cols-3">
-          <SelectField label="Kind" name="kind" value={kind} onChange={(e) => setKind(asKind(e.target.value, kind))} error={fields.kind}>
-            {segmentKinds.map((k) => (
-              <option key={k} value={k}>
-                {kindLabels[k]}
-              </option>
-            ))}
-          </SelectField>
-          {kind === 'build' ? (
-            <SelectField label="Level" name="level" defaultValue={segment.level === null ? '' : String(segment.level)} error={fields.level}>
-              {levels.map((l) => (
-                <option key={l} value={String(l)}>
-                  {levelText(l, episode.levelLabels)}
-                </option>
-              ))}
-              <option value="">No level</option>
-            </SelectField>
-          ) : null}
+          <KindAndLevelFields
+            kind={kind}
+            onKind={setKind}
+            defaultLevel={segment.level === null ? '' : String(segment.level)}
+            levelLabels={episode.levelLabels}
+            fields={fields}
+          />
           <TextField
             label="Action time"
             name="actionSeconds"

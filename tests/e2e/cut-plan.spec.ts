@@ -6,6 +6,8 @@ const EPISODE = 'One Stool, Three Ways';
 const STARTER = 'Starter: pocket-screwed pine stool';
 
 test('the shop hand stocks the rack, lists parts, and ticks off the shopping and the cuts', async ({ signedIn }) => {
+  // Three pages, two cut plans and a reload: on a busy 2-core box (load 20) it reached its last step at 60 s.
+  test.setTimeout(120_000);
   const species = `Fir ${Date.now().toString(36)}`;
   const stockName = `2x4 ${species}`;
   const partName = `Rail ${species}`;

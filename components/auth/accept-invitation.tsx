@@ -6,10 +6,9 @@ import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
 import { ApiError, apiFetch } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
 import { acceptAsNewSchema } from '@/lib/crew/schemas';
-import type { FieldErrors } from '@/lib/errors';
 import { api, channelPage } from '@/lib/api/paths';
 
 type Props = { token: string; email: string; accountExists: boolean; signedInAs: string | null };
@@ -17,18 +16,23 @@ type Accepted = { accepted: { channelSlug: string } };
 
 export function AcceptInvitation({ token, email, accountExists, signedInAs }: Props) {
   const router = useRouter();
-  const [fields, setFields] = useState<FieldErrors>({});
   const [error, setError] = useState<string | null>(null);
   const [pending, setPending] = useState(false);
   const signedInAsInvitee = signedInAs?.toLowerCase() === email.toLowerCase();
-
-  function fail(err: unknown) {
-    setPending(false);
-    if (err instanceof ApiError) {
-      setFields(err.fields);
-      setError(err.message);
-    } else setError('Something went wrong. Try again.');
-  }
+  const newAccount = useSchemaForm({
+    schema: acceptAsNewSchema,
+    send: async (input) => {
+      const { accepted } = await apiFetch<Accepted>(api('invitations', token, 'accept'), { method: 'POST', body: input });
+      await signIn('credentials', { redirect: false, email, password: input.password });
+      return accepted;
+    },
+    onSuccess: (accepted) => {
+      router.push(channelPage(accepted.channelSlug));
+      router.refresh();
+    },
+  });
+  // Joined: the button stays pending while the channel page loads.
+  const creating = newAccount.mutation.isPending || newAccount.mutation.isSuccess;
 
   async function join(afterSignIn?: { password: string }) {
     setPending(true);
@@ -45,25 +49,14 @@ export function AcceptInvitation({ token, email, accountExists, signedInAs }: Pr
       router.push(channelPage(accepted.channelSlug));
       router.refresh();
     } catch (err) {
-      fail(err);
+      setPending(false);
+      setError(err instanceof ApiError ? err.message : 'Something went wrong. Try again.');
     }
   }
 
-  async function createAccount(event: FormEvent<HTMLFormElement>) {
+  function createAccount(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
-    const parsed = acceptAsNewSchema.safeParse(Object.fromEntries(new FormData(event.currentTarget)));
-    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
-    setFields({});
-    setPending(true);
-    setError(null);
-    try {
-      const { accepted } = await apiFetch<Accepted>(api('invitations', token, 'accept'), { method: 'POST', body: parsed.data });
-      await signIn('credentials', { redirect: false, email, password: parsed.data.password });
-      router.push(channelPage(accepted.channelSlug));
-      router.refresh();
-    } catch (err) {
-      fail(err);
-    }
+    newAccount.submit(Object.fromEntries(new FormData(event.currentTarget)));
   }
 
   if (signedInAs && !signedInAsInvitee) {
@@ -113,8 +106,8 @@ export function AcceptInvitation({ token, email, accountExists, signedInAs }: Pr
 
   return (
     <form onSubmit={createAccount} className="mt-6 space-y-4" noValidate>
-      {error ? <Alert tone="attention">{error}</Alert> : null}
-      <TextField label="Your name" name="name" autoComplete="name" required error={fields.name} />
+      {newAccount.message ? <Alert tone="attention">{newAccount.message}</Alert> : null}
+      <TextField label="Your name" name="name" autoComplete="name" required error={newAccount.fields.name} />
       <TextField
         label="Choose a password"
         name="password"
@@ -122,10 +115,10 @@ export function AcceptInvitation({ token, email, accountExists, signedInAs }: Pr
         autoComplete="new-password"
         required
         hint="At least 10 characters."
-        error={fields.password}
+        error={newAccount.fields.password}
       />
-      <Button type="submit" className="w-full" disabled={pending}>
-        {pending ? 'Joining…' : 'Create account and join'}
+      <Button type="submit" className="w-full" disabled={creating}>
+        {creating ? 'Joining…' : 'Create account and join'}
       </Button>
     </form>
   );

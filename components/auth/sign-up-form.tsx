@@ -2,58 +2,45 @@
 
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
-import { ApiError, apiFetch } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
-import type { FieldErrors } from '@/lib/errors';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
+import { apiFetch } from '@/lib/api/client';
 import { signUpSchema } from '@/lib/users/schemas';
 
 export function SignUpForm() {
   const router = useRouter();
-  const [fields, setFields] = useState<FieldErrors>({});
-  const [error, setError] = useState<string | null>(null);
-  const [notice, setNotice] = useState<string | null>(null);
-  const [pending, setPending] = useState(false);
+  const { fields, submit, mutation, message } = useSchemaForm({
+    schema: signUpSchema,
+    // The server answers the same whether or not the address had an account; signing in tells.
+    send: async (input) => {
+      await apiFetch<{ message: string }>('/api/sign-up', { method: 'POST', body: input });
+      const result = await signIn('credentials', { redirect: false, email: input.email, password: input.password });
+      return Boolean(result && !result.error);
+    },
+    onSuccess: (signedIn) => {
+      if (!signedIn) return;
+      router.push('/');
+      router.refresh();
+    },
+    failureMessage: 'Could not create the channel. Try again.',
+  });
+  // Signed in: the button stays pending while the channel page loads.
+  const pending = mutation.isPending || mutation.data === true;
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+  function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
-    const form = Object.fromEntries(new FormData(event.currentTarget)) as Record<string, string>;
-    const parsed = signUpSchema.safeParse(form);
-    if (!parsed.success) {
-      setFields(fieldErrorsFrom(parsed.error));
-      return;
-    }
-    setFields({});
-    setError(null);
-    setNotice(null);
-    setPending(true);
-    try {
-      // The server answers the same whether or not the address had an account; signing in tells.
-      await apiFetch<{ message: string }>('/api/sign-up', { method: 'POST', body: parsed.data });
-      const result = await signIn('credentials', { redirect: false, email: parsed.data.email, password: parsed.data.password });
-      if (result && !result.error) {
-        router.push('/');
-        router.refresh();
-        return;
-      }
-      setPending(false);
-      setNotice('We sent a message to that address. If you already have a Kerfline account, sign in with it instead.');
-    } catch (err) {
-      setPending(false);
-      if (err instanceof ApiError) {
-        setFields(err.fields);
-        setError(err.message);
-      } else setError('Could not create the channel. Try again.');
-    }
+    submit(Object.fromEntries(new FormData(event.currentTarget)));
   }
 
   return (
     <form onSubmit={onSubmit} className="mt-6 space-y-4" noValidate>
-      {error ? <Alert tone="attention">{error}</Alert> : null}
-      {notice ? <Alert tone="info">{notice}</Alert> : null}
+      {message ? <Alert tone="attention">{message}</Alert> : null}
+      {mutation.data === false ? (
+        <Alert tone="info">We sent a message to that address. If you already have a Kerfline account, sign in with it instead.</Alert>
+      ) : null}
       <TextField label="Your name" name="name" autoComplete="name" required error={fields.name} />
       <TextField label="E-mail" name="email" type="email" autoComplete="email" required error={fields.email} />
       <TextField

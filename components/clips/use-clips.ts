@@ -6,7 +6,8 @@ import { can } from '@/lib/auth/policy';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { Viewer } from '@/components/providers/viewer-provider';
 import { channelApi } from '@/lib/api/paths';
-import { queryKeys } from '@/lib/api/query-keys';
+import { optimisticReorder } from '@/lib/api/optimistic';
+import { mutationKeys, queryKeys } from '@/lib/api/query-keys';
 
 
 
@@ -32,20 +33,16 @@ export function useDeleteClip(slug: string, segmentId: string) {
   const key = queryKeys.segmentClips(slug, segmentId);
   return useMutation({
     mutationFn: (clip: ClipDto) => apiFetch<void>(channelApi(slug, 'clips', clip.id), { method: 'DELETE' }),
-    onMutate: async (clip) => {
-      await qc.cancelQueries({ queryKey: key, exact: true });
-      const previous = qc.getQueryData<ClipDto[]>(key);
-      if (previous) qc.setQueryData<ClipDto[]>(key, previous.filter((c) => c.id !== clip.id));
-      return { previous };
-    },
-    onError: (_err, _clip, context) => {
-      if (context?.previous) qc.setQueryData(key, context.previous);
-    },
-    onSettled: () =>
-      Promise.all([
-        qc.invalidateQueries({ queryKey: key }),
-        // Shot cards say "Has footage" from their clip count.
-        qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
-      ]),
+    ...optimisticReorder<ClipDto[], ClipDto>(qc, {
+      key,
+      mutationKey: mutationKeys.deleteClip(slug, segmentId),
+      reorder: (current, clip) => current.filter((c) => c.id !== clip.id),
+      refresh: () =>
+        Promise.all([
+          qc.invalidateQueries({ queryKey: key }),
+          // Shot cards say "Has footage" from their clip count.
+          qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
+        ]),
+    }),
   });
 }

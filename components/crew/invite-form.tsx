@@ -1,29 +1,22 @@
 'use client';
 
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
 import { roleLabels, roles } from '@/lib/auth/policy';
 import { inviteSchema } from '@/lib/crew/schemas';
-import type { FieldErrors } from '@/lib/errors';
 import type { useCrewMutations } from './use-crew';
 
-export function InviteForm({ invite }: { invite: ReturnType<typeof useCrewMutations>['invite'] }) {
-  const [fields, setFields] = useState<FieldErrors>({});
+export function InviteForm({ invite: crewInvite }: { invite: ReturnType<typeof useCrewMutations>['invite'] }) {
+  // The crew's own mutation refreshes the lists; this one holds the form's answer.
+  const { fields, submit, mutation: invite, message } = useSchemaForm({ schema: inviteSchema, send: (input) => crewInvite.mutateAsync(input) });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const formEl = event.currentTarget;
-    const parsed = inviteSchema.safeParse(Object.fromEntries(new FormData(formEl)));
-    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
-    setFields({});
-    invite.mutate(parsed.data, {
-      onSuccess: () => formEl.reset(),
-      onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
-    });
+    submit(Object.fromEntries(new FormData(formEl)), { onSuccess: () => formEl.reset() });
   }
 
   return (
@@ -31,7 +24,7 @@ export function InviteForm({ invite }: { invite: ReturnType<typeof useCrewMutati
       <h2 id="invite-heading" className="text-lg font-bold">
         Invite someone
       </h2>
-      {invite.isError ? <Alert tone="attention">{invite.error.message}</Alert> : null}
+      {message ? <Alert tone="attention">{message}</Alert> : null}
       {invite.data ? (
         invite.data.delivered ? (
           <Alert tone="ok">Invitation sent to {invite.data.invitation.email}.</Alert>

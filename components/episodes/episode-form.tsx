@@ -1,15 +1,13 @@
 'use client';
 
-import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
+import type { FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
 import { frameRateIds, frameRates } from '@/lib/timecode';
-import { ApiError, apiFetch } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
-import type { FieldErrors } from '@/lib/errors';
+import { apiFetch } from '@/lib/api/client';
 import { createEpisodeSchema, episodeStages, stageLabels, updateEpisodeSchema, type EpisodeDto } from '@/lib/episodes/schemas';
 import { formatDuration } from '@/lib/runtime';
 import { channelApi, channelPage } from '@/lib/api/paths';
@@ -33,32 +31,28 @@ function readForm(form: HTMLFormElement, withLevels: boolean) {
 
 export function EpisodeForm({ channelSlug, episode }: Props) {
   const router = useRouter();
-  const [fields, setFields] = useState<FieldErrors>({});
   const base = channelApi(channelSlug, 'episodes');
-  const save = useMutation({
-    mutationFn: (body: unknown) =>
+  const { fields, submit, mutation: save, message } = useSchemaForm({
+    schema: episode ? updateEpisodeSchema : createEpisodeSchema,
+    // The values go as typed ("15:00", "" dates): the route parses them with the same schema.
+    send: (_input, raw) =>
       episode
-        ? apiFetch<{ episode: EpisodeDto }>(channelApi(channelSlug, 'episodes', episode.id), { method: 'PATCH', body })
-        : apiFetch<{ episode: EpisodeDto }>(base, { method: 'POST', body }),
+        ? apiFetch<{ episode: EpisodeDto }>(channelApi(channelSlug, 'episodes', episode.id), { method: 'PATCH', body: raw })
+        : apiFetch<{ episode: EpisodeDto }>(base, { method: 'POST', body: raw }),
     onSuccess: ({ episode: saved }) => {
       router.push(channelPage(channelSlug, 'episodes', saved.id));
       router.refresh();
     },
-    onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
   });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
-    const raw = readForm(event.currentTarget, Boolean(episode));
-    const parsed = (episode ? updateEpisodeSchema : createEpisodeSchema).safeParse(raw);
-    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
-    setFields({});
-    save.mutate(raw);
+    submit(readForm(event.currentTarget, Boolean(episode)));
   }
 
   return (
     <form onSubmit={onSubmit} noValidate className="max-w-2xl space-y-5">
-      {save.isError ? <Alert tone="attention">{save.error.message}</Alert> : null}
+      {message ? <Alert tone="attention">{message}</Alert> : null}
       <TextField label="Title" name="title" required defaultValue={episode?.title} error={fields.title} />
       <TextField label="Premise (one line)" name="premise" defaultValue={episode?.premise} error={fields.premise} />
       <div className="grid gap-5 sm:grid-cols-2">

@@ -3,13 +3,14 @@
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { EmptyState } from '@/components/ui/empty-state';
+import { SortableHead, type Sort, type SortColumn } from '@/components/ui/sortable-head';
 import { editStageLabels } from '@/lib/edit/stages';
 import { episodeStages, stageLabels, type EpisodeStage, type EpisodeSummaryDto } from '@/lib/episodes/schemas';
 import { formatDuration } from '@/lib/runtime';
 import { channelPage } from '@/lib/api/paths';
 
 type SortKey = 'title' | 'stage' | 'shootDate' | 'publishDate' | 'forecastSeconds' | 'segmentCount';
-const columns: { key: SortKey; label: string }[] = [
+const columns: SortColumn<SortKey>[] = [
   { key: 'title', label: 'Title' },
   { key: 'stage', label: 'Stage' },
   { key: 'shootDate', label: 'Shoot date' },
@@ -31,7 +32,7 @@ function compare(a: EpisodeSummaryDto, b: EpisodeSummaryDto, key: SortKey): numb
 }
 
 export function EpisodesTable({ episodes, channelSlug }: { episodes: EpisodeSummaryDto[]; channelSlug: string }) {
-  const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: 'publishDate', dir: 1 });
+  const [sort, setSort] = useState<Sort<SortKey>>({ key: 'publishDate', dir: 1 });
   const [stage, setStage] = useState<EpisodeStage | 'all'>('all');
   const [showArchived, setShowArchived] = useState(false);
 
@@ -76,24 +77,7 @@ export function EpisodesTable({ episodes, channelSlug }: { episodes: EpisodeSumm
         <div className="overflow-x-auto rounded-card border border-paper-edge bg-white/60">
           <table className="w-full min-w-[44rem] text-left text-sm">
             <caption className="sr-only">Episodes, sorted by {columns.find((c) => c.key === sort.key)?.label}</caption>
-            <thead className="border-b border-paper-edge bg-paper-deep/60">
-              <tr>
-                {columns.map((c) => (
-                  <th key={c.key} scope="col" aria-sort={sort.key === c.key ? (sort.dir === 1 ? 'ascending' : 'descending') : 'none'} className="p-0">
-                    <button
-                      type="button"
-                      onClick={() => setSort((s) => ({ key: c.key, dir: s.key === c.key ? ((-s.dir) as 1 | -1) : 1 }))}
-                      className="flex min-h-touch w-full items-center gap-1 px-3 font-bold hover:bg-paper"
-                    >
-                      {c.label}
-                      <span aria-hidden="true" className="text-ink-faint">
-                        {sort.key === c.key ? (sort.dir === 1 ? '▲' : '▼') : ''}
-                      </span>
-                    </button>
-                  </th>
-                ))}
-              </tr>
-            </thead>
+            <SortableHead columns={columns} sort={sort} onSort={setSort} />
             <tbody className="divide-y divide-paper-edge">
               {rows.map((e) => (
                 <EpisodeRow key={e.id} episode={e} channelSlug={channelSlug} />

@@ -4,8 +4,9 @@ import { useState } from 'react';
 import { LocalTime } from '@/components/shop-board/dates';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
+import { useFormMutation } from '@/components/ui/use-schema-form';
 import { ApiError } from '@/lib/api/client';
-import type { EditNoteDto } from '@/lib/edit/schemas';
+import type { CreateNoteInput, EditNoteDto } from '@/lib/edit/schemas';
 import { frameRates, playerTimeToTimecode, type FrameRateId } from '@/lib/timecode';
 import { usePlayerTime } from './player-time';
 import { useNoteMutations, useVersionNotes } from './use-handoff';
@@ -26,11 +27,11 @@ type Props = {
 /** Edit notes of one version: threads pinned to a timecode on a segment or a clip. */
 export function NotesPanel({ slug, episodeId, version, frameRate, targets, targetLabels, initial, canWrite }: Props) {
   const { data: notes } = useVersionNotes(slug, episodeId, version, initial);
-  const { create, reply, resolve } = useNoteMutations(slug, episodeId, version);
+  const { create: createNote, reply, resolve } = useNoteMutations(slug, episodeId, version);
+  const { fields, submit, mutation: create, message } = useFormMutation({ send: (input: CreateNoteInput) => createNote.mutateAsync(input) });
   const [target, setTarget] = useState(targets[0]?.value ?? '');
   const [timecode, setTimecode] = useState('');
   const [body, setBody] = useState('');
-  const fields = create.error instanceof ApiError ? create.error.fields : {};
   const rate = frameRates[frameRate];
   const example = rate.dropFrame ? '00:01:00;02' : '00:01:00:00';
   const player = usePlayerTime().current;
@@ -59,7 +60,7 @@ export function NotesPanel({ slug, episodeId, version, frameRate, targets, targe
           onSubmit={(e) => {
             e.preventDefault();
             const [kind, id] = target.split(':');
-            create.mutate(
+            submit(
               { ...(kind === 'clip' ? { clipId: id } : { segmentId: id }), timecode, body },
               {
                 onSuccess: () => {
@@ -135,9 +136,9 @@ export function NotesPanel({ slug, episodeId, version, frameRate, targets, targe
               </p>
             ) : null}
           </div>
-          {create.error && !Object.keys(fields).length ? (
+          {message && !Object.keys(fields).length ? (
             <p role="alert" className="text-sm text-attention-ink">
-              {create.error.message}
+              {message}
             </p>
           ) : null}
           <Button type="submit" disabled={create.isPending} className="justify-self-start">

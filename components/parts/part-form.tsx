@@ -1,7 +1,7 @@
 'use client';
 
 import { useState, type FormEvent, type KeyboardEvent } from 'react';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
 import type { FieldErrors } from '@/lib/errors';
 import type { PartDto } from '@/lib/parts/schemas';
@@ -74,16 +74,7 @@ export function PartForm({ stock, unit, part, errors, pending, submitLabel, onSu
         <option value="length">Along the length</option>
       </SelectField>
       <TextField label="Grain note" name="note" defaultValue={part?.note} error={errors.note} className="col-span-2 sm:col-span-3" maxLength={200} />
-      <div className="col-span-2 flex items-end gap-2 sm:col-span-1">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : submitLabel}
-        </Button>
-        {onCancel ? (
-          <Button variant="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <FormActions pending={pending} label={submitLabel} onCancel={onCancel} className="col-span-2 flex items-end gap-2 sm:col-span-1" />
     </form>
   );
 }

@@ -1,15 +1,14 @@
 'use client';
 
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import Link from 'next/link';
-import { useState } from 'react';
 import { CutPlanView } from '@/components/cut-plans/cut-plan-view';
 import { SafetyNote } from '@/components/cut-plans/safety-note';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { ApiError, apiFetch } from '@/lib/api/client';
+import { useListEdits } from '@/components/ui/use-list-edits';
+import { apiFetch } from '@/lib/api/client';
 import type { CutPlan } from '@/lib/cut-plans/build';
-import type { FieldErrors } from '@/lib/errors';
 import type { PartDto } from '@/lib/parts/schemas';
 import type { StockItemDto } from '@/lib/stock/schemas';
 import { formatLength } from '@/lib/units';
@@ -33,10 +32,6 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
   const partsKey = queryKeys.parts(segmentId);
   const parts = useQuery({ queryKey: partsKey, queryFn: () => apiFetch<{ parts: PartDto[] }>(channelApi(channelSlug, 'segments', segmentId, 'parts')).then((r) => r.parts), initialData: initialParts });
   const plan = useQuery({ queryKey: queryKeys.segmentCutPlan(segmentId), queryFn: () => apiFetch<SegmentPlan>(channelApi(channelSlug, 'segments', segmentId, 'cut-plan')), initialData: initialPlan });
-  const [editing, setEditing] = useState<string | null>(null);
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | undefined>();
-  const [formKey, setFormKey] = useState(0);
   const unit = plan.data.lengthUnit;
   // A part the plan could not cut is flagged on its own row, in the plan's plain words.
   const problems = new Map<string, string>();
@@ -44,30 +39,12 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
     problems.set(u.partId, u.quantity < (parts.data.find((p) => p.id === u.partId)?.quantity ?? 0) ? `${u.quantity} cannot be cut: ${u.reason}` : `Cannot be cut: ${u.reason}`);
   }
   const fmt = (n: number | null) => (n === null ? '—' : formatLength(n, { unit }));
-  const onError = (e: unknown) => {
-    setErrors(e instanceof ApiError ? e.fields : {});
-    setMessage(e instanceof ApiError ? e.message : 'Could not save the part.');
-  };
-  const refresh = () => Promise.all([client.invalidateQueries({ queryKey: partsKey }), client.invalidateQueries({ queryKey: queryKeys.cutPlans() })]);
-  const done = () => {
-    setErrors({});
-    setMessage(undefined);
-    return refresh();
-  };
-  const add = useMutation({
-    mutationFn: (v: PartFormValues) => apiFetch(channelApi(channelSlug, 'segments', segmentId, 'parts'), { method: 'POST', body: v }),
-    onSuccess: () => done().then(() => setFormKey((k) => k + 1)),
-    onError,
-  });
-  const save = useMutation({
-    mutationFn: ({ id, v }: { id: string; v: PartFormValues }) => apiFetch(channelApi(channelSlug, 'parts', id), { method: 'PATCH', body: v }),
-    onSuccess: () => done().then(() => setEditing(null)),
-    onError,
-  });
-  const remove = useMutation({
-    mutationFn: (id: string) => apiFetch(channelApi(channelSlug, 'parts', id), { method: 'DELETE' }),
-    onSuccess: () => done(),
-    onError,
+  const { editing, startEditing, stopEditing, addFormKey, adding, saving, removing, message } = useListEdits<PartFormValues, PartFormValues>({
+    add: (v) => apiFetch(channelApi(channelSlug, 'segments', segmentId, 'parts'), { method: 'POST', body: v }),
+    save: (id, v) => apiFetch(channelApi(channelSlug, 'parts', id), { method: 'PATCH', body: v }),
+    remove: (id) => apiFetch(channelApi(channelSlug, 'parts', id), { method: 'DELETE' }),
+    refresh: () => Promise.all([client.invalidateQueries({ queryKey: partsKey }), client.invalidateQueries({ queryKey: queryKeys.cutPlans() })]),
+    failureMessage: 'Could not save the part.',
   });
   const stockName = (id: string | null) => stock.find((s) => s.id === id)?.name ?? 'Not chosen';
 
@@ -111,14 +88,11 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
                         stock={stock}
                         unit={unit}
                         part={p}
-                        errors={errors}
-                        pending={save.isPending}
+                        errors={saving.fields}
+                        pending={saving.mutation.isPending}
                         submitLabel="Save part"
-                        onSubmit={(v) => save.mutate({ id: p.id, v })}
-                        onCancel={() => {
-                          setEditing(null);
-                          setErrors({});
-                        }}
+                        onSubmit={(v) => saving.submit({ id: p.id, body: v })}
+                        onCancel={stopEditing}
                       />
                     </td>
                   </tr>
@@ -143,10 +117,10 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
                     {canEdit ? (
                       <td className="py-1">
                         <div className="flex gap-1">
-                          <Button variant="quiet" aria-label={`Edit ${p.name}`} onClick={() => setEditing(p.id)}>
+                          <Button variant="quiet" aria-label={`Edit ${p.name}`} onClick={() => startEditing(p.id)}>
                             Edit
                           </Button>
-                          <Button variant="quiet" aria-label={`Delete ${p.name}`} disabled={remove.isPending} onClick={() => remove.mutate(p.id)}>
+                          <Button variant="quiet" aria-label={`Delete ${p.name}`} disabled={removing.mutation.isPending} onClick={() => removing.submit(p.id)}>
                             Delete
                           </Button>
                         </div>
@@ -164,7 +138,7 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
           <h3 id="add-part-heading" className="mb-2 font-bold">
             Add a part
           </h3>
-          <PartForm key={formKey} stock={stock} unit={unit} errors={errors} pending={add.isPending} submitLabel="Add part" onSubmit={(v) => add.mutate(v)} />
+          <PartForm key={addFormKey} stock={stock} unit={unit} errors={adding.fields} pending={adding.mutation.isPending} submitLabel="Add part" onSubmit={(v) => adding.submit(v)} />
         </section>
       ) : null}
       <section aria-labelledby="segment-plan-heading" className="space-y-3">

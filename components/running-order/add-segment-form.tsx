@@ -3,45 +3,39 @@
 import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
+import { TextField } from '@/components/ui/field';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
-import type { FieldErrors } from '@/lib/errors';
-import { createSegmentSchema, kindLabels, levels, segmentKinds, type SegmentKind } from '@/lib/segments/schemas';
-import { asKind, levelFrom, levelText } from './segment-edit-form';
+import { createSegmentSchema, type SegmentKind } from '@/lib/segments/schemas';
+import { KindAndLevelFields, levelFrom } from './segment-edit-form';
 import { useAddSegment } from './use-running-order';
 
 /** Adds a segment at the end of the running order. */
 export function AddSegmentForm({ channelSlug, episode }: { channelSlug: string; episode: EpisodeDto }) {
-  const add = useAddSegment(channelSlug, episode.id);
+  const addSegment = useAddSegment(channelSlug, episode.id);
   const [title, setTitle] = useState('');
   const [kind, setKind] = useState<SegmentKind>('build');
-  const [fields, setFields] = useState<FieldErrors>({});
+  const { fields, submit, mutation: add, message } = useSchemaForm({
+    schema: createSegmentSchema,
+    send: (input) => addSegment.mutateAsync(input),
+    resetOnInvalid: true,
+  });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const formEl = event.currentTarget;
     const form = new FormData(formEl);
-    const parsed = createSegmentSchema.safeParse({
-      title,
-      kind,
-      level: kind === 'build' ? levelFrom(form.get('level')) : null,
-    });
-    if (!parsed.success) {
-      add.reset();
-      return setFields(fieldErrorsFrom(parsed.error));
-    }
-    setFields({});
-    add.mutate(parsed.data, {
-      onSuccess: () => {
-        setTitle('');
-        // Ready for the next one: most running orders are typed in one after another.
-        const input = formEl.elements.namedItem('title');
-        if (input instanceof HTMLInputElement) input.focus();
+    submit(
+      { title, kind, level: kind === 'build' ? levelFrom(form.get('level')) : null },
+      {
+        onSuccess: () => {
+          setTitle('');
+          // Ready for the next one: most running orders are typed in one after another.
+          const input = formEl.elements.namedItem('title');
+          if (input instanceof HTMLInputElement) input.focus();
+        },
       },
-      onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
-    });
+    );
   }
 
   return (
@@ -54,7 +48,7 @@ export function AddSegmentForm({ channelSlug, episode }: { channelSlug: string; 
       <h2 id="add-segment-heading" className="text-lg font-bold">
         Add a segment
       </h2>
-      {add.isError ? <Alert tone="attention">{add.error.message}</Alert> : null}
+      {message ? <Alert tone="attention">{message}</Alert> : null}
       {add.isSuccess ? <Alert tone="ok">Added {add.data.segment.title} at the end of the running order.</Alert> : null}
       <div className="grid gap-4 sm:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_minmax(0,1fr)] sm:items-start">
         <TextField
@@ -68,23 +62,7 @@ export function AddSegmentForm({ channelSlug, episode }: { channelSlug: string; 
           placeholder="e.g. Cutting the half-laps"
           error={fields.title}
         />
-        <SelectField label="Kind" name="kind" value={kind} onChange={(e) => setKind(asKind(e.target.value, kind))} error={fields.kind}>
-          {segmentKinds.map((k) => (
-            <option key={k} value={k}>
-              {kindLabels[k]}
-            </option>
-          ))}
-        </SelectField>
-        {kind === 'build' ? (
-          <SelectField label="Level" name="level" defaultValue="1" error={fields.level}>
-            {levels.map((l) => (
-              <option key={l} value={String(l)}>
-                {levelText(l, episode.levelLabels)}
-              </option>
-            ))}
-            <option value="">No level</option>
-          </SelectField>
-        ) : null}
+        <KindAndLevelFields kind={kind} onKind={setKind} defaultLevel="1" levelLabels={episode.levelLabels} fields={fields} />
       </div>
       {fields._ ? <p className="text-sm font-bold text-attention-ink">{fields._}</p> : null}
       <Button type="submit" disabled={add.isPending}>

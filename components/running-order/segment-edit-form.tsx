@@ -3,9 +3,9 @@
 import { useId, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
-import { fieldErrorsFrom } from '@/lib/api/validation';
+import { useSchemaForm } from '@/components/ui/use-schema-form';
 import type { EpisodeDto } from '@/lib/episodes/schemas';
 import type { FieldErrors } from '@/lib/errors';
 import { formatDuration } from '@/lib/runtime';
@@ -38,6 +38,43 @@ export function levelFrom(value: FormDataEntryValue | null): number | null {
   return text === '' ? null : Number(text);
 }
 
+/** The kind select and, for a build, its level select: a segment's kind and level travel together. */
+export function KindAndLevelFields({
+  kind,
+  onKind,
+  defaultLevel,
+  levelLabels,
+  fields,
+}: {
+  kind: SegmentKind;
+  onKind: (kind: SegmentKind) => void;
+  defaultLevel: string;
+  levelLabels: EpisodeDto['levelLabels'];
+  fields: FieldErrors;
+}) {
+  return (
+    <>
+      <SelectField label="Kind" name="kind" value={kind} onChange={(e) => onKind(asKind(e.target.value, kind))} error={fields.kind}>
+        {segmentKinds.map((k) => (
+          <option key={k} value={k}>
+            {kindLabels[k]}
+          </option>
+        ))}
+      </SelectField>
+      {kind === 'build' ? (
+        <SelectField label="Level" name="level" defaultValue={defaultLevel} error={fields.level}>
+          {levels.map((l) => (
+            <option key={l} value={String(l)}>
+              {levelText(l, levelLabels)}
+            </option>
+          ))}
+          <option value="">No level</option>
+        </SelectField>
+      ) : null}
+    </>
+  );
+}
+
 type Props = {
   channelSlug: string;
   episode: EpisodeDto;
@@ -47,56 +84,46 @@ type Props = {
 };
 
 export function SegmentEditForm({ channelSlug, episode, segment, onDone, onDeleted }: Props) {
-  const update = useUpdateSegment(channelSlug, episode.id);
+  const updateSegment = useUpdateSegment(channelSlug, episode.id);
   const remove = useDeleteSegment(channelSlug, episode.id);
   const [kind, setKind] = useState<SegmentKind>(segment.kind);
-  const [fields, setFields] = useState<FieldErrors>({});
   const [confirm, setConfirm] = useState<'closed' | 'asking' | 'cancelled'>('closed');
   const confirmTextId = useId();
+  const { fields, submit, mutation: update, message } = useSchemaForm({
+    schema: updateSegmentSchema,
+    // An unchanged form sends nothing and just closes.
+    send: (input) => {
+      const patch = changesTo(segment, input);
+      return patch ? updateSegment.mutateAsync({ segmentId: segment.id, patch }) : Promise.resolve(null);
+    },
+    onSuccess: onDone,
+  });
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const actionText = String(form.get('actionSeconds') ?? '').trim();
-    const parsed = updateSegmentSchema.safeParse({
+    submit({
       title: String(form.get('title') ?? ''),
       kind,
       level: kind === 'build' ? levelFrom(form.get('level')) : null,
       actionSeconds: actionText === '' ? 0 : actionText,
     });
-    if (!parsed.success) return setFields(fieldErrorsFrom(parsed.error));
-    setFields({});
-    const patch = changesTo(segment, parsed.data);
-    if (!patch) return onDone();
-    update.mutate(
-      { segmentId: segment.id, patch },
-      { onSuccess: onDone, onError: (err) => setFields(err instanceof ApiError ? err.fields : {}) },
-    );
   }
 
   return (
     <div className="space-y-5">
       <form onSubmit={onSubmit} noValidate aria-label={`Edit ${segment.title}`} className="space-y-4">
-        {update.isError ? <Alert tone="attention">{update.error.message}</Alert> : null}
+        {message ? <Alert tone="attention">{message}</Alert> : null}
         <TextField label="Title" name="title" defaultValue={segment.title} autoFocus required maxLength={160} error={fields.title} />
         <div className="grid gap-4 sm:grid-cols-3">
-          <SelectField label="Kind" name="kind" value={kind} onChange={(e) => setKind(asKind(e.target.value, kind))} error={fields.kind}>
-            {segmentKinds.map((k) => (
-              <option key={k} value={k}>
-                {kindLabels[k]}
-              </option>
-            ))}
-          </SelectField>
-          {kind === 'build' ? (
-            <SelectField label="Level" name="level" defaultValue={segment.level === null ? '' : String(segment.level)} error={fields.level}>
-              {levels.map((l) => (
-                <option key={l} value={String(l)}>
-                  {levelText(l, episode.levelLabels)}
-                </option>
-              ))}
-              <option value="">No level</option>
-            </SelectField>
-          ) : null}
+          <KindAndLevelFields
+            kind={kind}
+            onKind={setKind}
+            defaultLevel={segment.level === null ? '' : String(segment.level)}
+            levelLabels={episode.levelLabels}
+            fields={fields}
+          />
           <TextField
             label="Action time"
             name="actionSeconds"
@@ -108,14 +135,7 @@ export function SegmentEditForm({ channelSlug, episode, segment, onDone, onDelet
           />
         </div>
         {fields._ ? <p className="text-sm font-bold text-attention-ink">{fields._}</p> : null}
-        <div className="flex flex-wrap gap-2">
-          <Button type="submit" disabled={update.isPending}>
-            {update.isPending ? 'Saving…' : 'Save changes'}
-          </Button>
-          <Button variant="quiet" onClick={onDone}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions pending={update.isPending} label="Save changes" onCancel={onDone} className="flex flex-wrap gap-2" />
       </form>
 
       <div className="border-t border-paper-edge pt-4">

@@ -1,7 +1,8 @@
 'use client';
 
-import { useMutation, useQuery, useQueryClient, type QueryKey } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
+import { cachedView, optimisticMove } from '@/lib/api/optimistic';
 import { moveAfter } from '@/lib/segments/order';
 import type { RunningOrderDto } from '@/lib/segments/schemas';
 import type { ShotState } from '@/lib/shots/catalog';
@@ -72,8 +73,22 @@ const replaceShot = (shots: BoardShotDto[], shot: BoardShotDto) => shots.map((s)
  */
 export function useChangeShotState(slug: string, viewerName: string) {
   const qc = useQueryClient();
-  const { mutateAsync } = useMutation({
+  const stamp = () => new Date().toISOString();
+  const move = optimisticMove<StateChange>(qc, {
+    views: [
+      cachedView<BoardData, StateChange>(queryKeys.shopBoards(slug), (data, v) => ({ ...data, shots: applyChange(data.shots, v, viewerName, stamp(), true) }), { exact: false }),
+      cachedView<BoardShotDto[], StateChange>(queryKeys.myShots(slug), (mine, v) => applyChange(mine, v, viewerName, stamp(), false)),
+    ],
     mutationKey: mutationKeys.setShotState(slug),
+    refresh: () =>
+      Promise.all([
+        qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
+        // Running orders show shot progress per segment.
+        qc.invalidateQueries({ queryKey: queryKeys.runningOrders(slug) }),
+      ]),
+  });
+  const { mutateAsync } = useMutation({
+    mutationKey: move.handlers.mutationKey,
     mutationFn: ({ shot, state, reason, afterId }: StateChange) =>
       apiFetch<{ shot: BoardShotDto }>(channelApi(slug, 'shots', shot.id, 'state'), {
         method: 'PUT',
@@ -86,33 +101,15 @@ export function useChangeShotState(slug: string, viewerName: string) {
       const mine = qc.getQueryData<BoardShotDto[]>(queryKeys.myShots(slug));
       if (mine) qc.setQueryData(queryKeys.myShots(slug), replaceShot(mine, shot));
     },
-    onSettled: () => {
-      // With several changes in flight only the last refetches, so an early answer cannot undo a later move.
-      if (qc.isMutating({ mutationKey: mutationKeys.setShotState(slug) }) > 1) return;
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
-        // Running orders show shot progress per segment.
-        qc.invalidateQueries({ queryKey: queryKeys.runningOrders(slug) }),
-      ]);
-    },
+    onSettled: move.handlers.onSettled,
   });
 
   return (v: StateChange): Promise<BoardShotDto> => {
     // Written here rather than in onMutate, which TanStack runs a tick later: the cache must hold the new
     // column in the same render as the drop, or the card is drawn back in its old column for a frame.
-    // Cancelling first (it reverts at once) stops a refetch in flight from overwriting the move.
-    void qc.cancelQueries({ queryKey: queryKeys.shopBoards(slug) });
-    void qc.cancelQueries({ queryKey: queryKeys.myShots(slug) });
-    const now = new Date().toISOString();
-    const boards = qc.getQueriesData<BoardData>({ queryKey: queryKeys.shopBoards(slug) });
-    const mine = qc.getQueryData<BoardShotDto[]>(queryKeys.myShots(slug));
-    for (const [key, data] of boards) {
-      if (data) qc.setQueryData<BoardData>(key, { ...data, shots: applyChange(data.shots, v, viewerName, now, true) });
-    }
-    if (mine) qc.setQueryData<BoardShotDto[]>(queryKeys.myShots(slug), applyChange(mine, v, viewerName, now, false));
+    const snapshot = move.apply(v);
     return mutateAsync(v).catch((err: unknown) => {
-      for (const [key, data] of boards as [QueryKey, BoardData | undefined][]) qc.setQueryData(key, data);
-      if (mine) qc.setQueryData(queryKeys.myShots(slug), mine);
+      move.restore(snapshot);
       throw err;
     });
   };

@@ -4,8 +4,8 @@ import { useId, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
+import { useFormMutation } from '@/components/ui/use-schema-form';
 import { ApiError } from '@/lib/api/client';
-import type { FieldErrors } from '@/lib/errors';
 import { needsSafetyReview, toolInfo, tools, type Tool } from '@/lib/safety/tools';
 import type { SegmentSafetyDto } from '@/lib/safety/schemas';
 import { CautionsList } from './cautions-list';
@@ -26,9 +26,11 @@ export function SafetyPanel({ channelSlug, segmentId, initialSafety, canEditTool
   const { data: safety } = useSegmentSafety(channelSlug, segmentId, initialSafety);
   const [chosen, setChosen] = useState<Tool[]>(safety.tools);
   const [otherTool, setOtherTool] = useState(safety.otherTool);
-  const [fields, setFields] = useState<FieldErrors>({});
   const [saved, setSaved] = useState(false);
-  const saveTools = useSaveTools(channelSlug, segmentId);
+  const toolsMutation = useSaveTools(channelSlug, segmentId);
+  const { fields, submit, mutation: saveTools, message } = useFormMutation({
+    send: (body: { tools: Tool[]; otherTool: string }) => toolsMutation.mutateAsync(body),
+  });
   const review = useSafetyReview(channelSlug, segmentId);
   const legendId = useId();
 
@@ -44,16 +46,14 @@ export function SafetyPanel({ channelSlug, segmentId, initialSafety, canEditTool
   function onSave(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     setSaved(false);
-    saveTools.mutate(
+    submit(
       { tools: chosen, otherTool: chosen.includes('other') ? otherTool : '' },
       {
         onSuccess: (next) => {
-          setFields({});
           setChosen(next.tools);
           setOtherTool(next.otherTool);
           setSaved(true);
         },
-        onError: (err) => setFields(err instanceof ApiError ? err.fields : {}),
       },
     );
   }
@@ -98,7 +98,7 @@ export function SafetyPanel({ channelSlug, segmentId, initialSafety, canEditTool
               }}
             />
           ) : null}
-          {saveTools.isError && !Object.keys(fields).length ? <Alert tone="attention">{saveTools.error.message}</Alert> : null}
+          {message && !Object.keys(fields).length ? <Alert tone="attention">{message}</Alert> : null}
           <div className="flex flex-wrap items-center gap-3">
             <Button type="submit" variant="secondary" disabled={saveTools.isPending}>
               {saveTools.isPending ? 'Saving…' : 'Save tools'}

@@ -2,10 +2,9 @@
 
 import { useId, useRef, useState, type FormEvent, type KeyboardEvent, type ReactNode } from 'react';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
-import type { FieldErrors } from '@/lib/errors';
+import { useFormMutation } from '@/components/ui/use-schema-form';
 import { cameraLabels, cameras, framingLabels, framings, MAX_DESCRIPTION, type Camera, type Framing } from '@/lib/shots/catalog';
 import type { ShotDto, UpdateShotInput } from '@/lib/shots/schemas';
 import { useUpdateShot } from './use-shots';
@@ -39,9 +38,12 @@ type ShotEditorProps = { channelSlug: string; shot: ShotDto; crew: CrewOption[];
 
 /** A shot's fields as a form in place of its row; sends only what changed. */
 export function ShotEditor({ channelSlug, shot, crew, canAssign, onClose }: ShotEditorProps) {
-  const update = useUpdateShot(channelSlug, shot.segmentId);
+  const updateShot = useUpdateShot(channelSlug, shot.segmentId);
   const [draft, setDraft] = useState<Draft>(() => draftOf(shot));
-  const [fields, setFields] = useState<FieldErrors>({});
+  const { fields, submit, mutation: update, message } = useFormMutation({
+    send: (patch: UpdateShotInput) => updateShot.mutateAsync({ shotId: shot.id, patch }),
+    onSuccess: () => onClose(),
+  });
   const formRef = useRef<HTMLFormElement>(null);
   const set = <K extends keyof Draft>(key: K, value: Draft[K]) => setDraft((d) => ({ ...d, [key]: value }));
   // Someone who left the crew keeps their name here until the shot is reassigned.
@@ -52,10 +54,7 @@ export function ShotEditor({ channelSlug, shot, crew, canAssign, onClose }: Shot
     if (update.isPending) return;
     const patch = changesFrom(shot, draft, canAssign);
     if (Object.keys(patch).length === 0) return onClose();
-    update.mutate(
-      { shotId: shot.id, patch },
-      { onSuccess: () => onClose(), onError: (err) => setFields(err instanceof ApiError ? err.fields : {}) },
-    );
+    submit(patch);
   }
 
   function onKeyDown(event: KeyboardEvent<HTMLFormElement>) {
@@ -73,7 +72,7 @@ export function ShotEditor({ channelSlug, shot, crew, canAssign, onClose }: Shot
   }
 
   const known = ['description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes'];
-  const unplaced = update.isError && !Object.keys(fields).some((k) => known.includes(k));
+  const unplaced = message !== null && !Object.keys(fields).some((k) => known.includes(k));
 
   return (
     <form ref={formRef} onSubmit={onSubmit} onKeyDown={onKeyDown} noValidate aria-label={`Editing shot ${shot.number}`} className="space-y-3">
@@ -81,7 +80,7 @@ export function ShotEditor({ channelSlug, shot, crew, canAssign, onClose }: Shot
         Editing shot <span className="font-mono">{shot.number}</span>
         <span className="ml-2 text-xs font-normal text-ink-faint">Enter saves, Escape cancels.</span>
       </p>
-      {unplaced ? <Alert tone="attention">{update.error.message}</Alert> : null}
+      {unplaced ? <Alert tone="attention">{message}</Alert> : null}
       <TextField
         label="Description"
         value={draft.description}
@@ -125,14 +124,7 @@ export function ShotEditor({ channelSlug, shot, crew, canAssign, onClose }: Shot
         <TextField label="Due date" type="date" value={draft.dueDate} error={fields.dueDate} onChange={(e) => set('dueDate', e.currentTarget.value)} />
       </div>
       <TextArea label="Notes" value={draft.notes} error={fields.notes} hint="Shift+Enter starts a new line." onChange={(v) => set('notes', v)} />
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={update.isPending}>
-          {update.isPending ? 'Saving…' : 'Save'}
-        </Button>
-        <Button variant="secondary" onClick={onClose}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions pending={update.isPending} label="Save" onCancel={onClose} cancelVariant="secondary" className="flex flex-wrap gap-2" />
     </form>
   );
 }

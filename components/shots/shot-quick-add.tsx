@@ -4,7 +4,7 @@ import { useId, type FormEvent, type KeyboardEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
+import { useFormMutation } from '@/components/ui/use-schema-form';
 import { cameraLabels, framingLabels, MAX_QUICK_ADD_LINES } from '@/lib/shots/catalog';
 import { parseShotLines, type QuickAddResult } from '@/lib/shots/quick-add';
 import { TextArea, type CrewOption } from './shot-editor';
@@ -26,17 +26,17 @@ type Props = {
 const plural = (n: number) => `${n} ${n === 1 ? 'shot' : 'shots'}`;
 
 export function ShotQuickAdd({ channelSlug, segmentId, crew, draft, onDraft, onAdded }: Props) {
-  const add = useBulkAddShots(channelSlug, segmentId);
+  const bulkAdd = useBulkAddShots(channelSlug, segmentId);
+  const { fields, submit: send, mutation: add, message } = useFormMutation({ send: (body: BulkVariables) => bulkAdd.mutateAsync(body) });
   const headingId = useId();
   const preview = parseShotLines(draft.text);
   const count = preview.shots.length;
-  const fields = add.error instanceof ApiError ? add.error.fields : {};
   const set = (patch: Partial<QuickAddDraft>) => onDraft({ ...draft, ...patch });
 
   function submit() {
     if (add.isPending) return;
     const body: BulkVariables = { text: draft.text, assigneeId: draft.assigneeId || null, dueDate: draft.dueDate || null };
-    add.mutate(body, {
+    send(body, {
       onSuccess: (shots) => {
         onDraft(emptyQuickAdd);
         onAdded(shots.length);
@@ -88,7 +88,7 @@ export function ShotQuickAdd({ channelSlug, segmentId, crew, draft, onDraft, onA
           </SelectField>
           <TextField label="Due date" type="date" value={draft.dueDate} error={fields.dueDate} onChange={(e) => set({ dueDate: e.currentTarget.value })} />
         </div>
-        {add.isError && !fields.text && !fields.assigneeId && !fields.dueDate ? <Alert tone="attention">{add.error.message}</Alert> : null}
+        {message && !fields.text && !fields.assigneeId && !fields.dueDate ? <Alert tone="attention">{message}</Alert> : null}
         <Button type="submit" disabled={add.isPending}>
           {add.isPending ? 'Adding…' : 'Add shots'}
         </Button>

@@ -50,16 +50,12 @@ export function useDeleteShot(slug: string, segmentId: string) {
   const refresh = useRefreshShots(slug);
   return useMutation({
     mutationFn: ({ shotId }: DeleteVariables) => apiFetch<void>(channelApi(slug, 'shots', shotId), { method: 'DELETE' }),
-    onMutate: ({ shotId }: DeleteVariables) => {
-      void qc.cancelQueries({ queryKey: key, exact: true });
-      const previous = qc.getQueryData<ShotDto[]>(key);
-      if (previous) qc.setQueryData<ShotDto[]>(key, renumber(previous.filter((s) => s.id !== shotId)));
-      return { previous };
-    },
-    onError: (_err, _vars, context) => {
-      if (context?.previous) qc.setQueryData<ShotDto[]>(key, context.previous);
-    },
-    onSettled: refresh,
+    ...optimisticReorder<ShotDto[], DeleteVariables>(qc, {
+      key,
+      mutationKey: mutationKeys.deleteShot(slug, segmentId),
+      reorder: (current, { shotId }) => renumber(current.filter((s) => s.id !== shotId)),
+      refresh,
+    }),
   });
 }
 

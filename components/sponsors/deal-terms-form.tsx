@@ -4,8 +4,7 @@ import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
-import type { FieldErrors } from '@/lib/errors';
+import { useFormMutation } from '@/components/ui/use-schema-form';
 import { isCurrency, minorToInput, parseMoney } from '@/lib/sponsors/money';
 import { invoiceStateLabels, invoiceStates, type DealDto, type InvoiceState } from '@/lib/sponsors/schemas';
 import { useSponsorMutations } from './use-sponsor-mutations';
@@ -14,9 +13,9 @@ import { useSponsorMutations } from './use-sponsor-mutations';
 export function DealTermsForm({ channelSlug, deal }: { channelSlug: string; deal: DealDto }) {
   const m = useSponsorMutations(channelSlug);
   const [state, setState] = useState<InvoiceState>(deal.invoiceState);
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [saved, setSaved] = useState(false);
+  const { fields: errors, submit: send, refuse, mutation: save, message } = useFormMutation({
+    send: (body: Record<string, unknown>) => m.updateDeal.mutateAsync({ dealId: deal.id, body }),
+  });
 
   function submit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -24,8 +23,8 @@ export function DealTermsForm({ channelSlug, deal }: { channelSlug: string; deal
     const text = (k: string) => String(form.get(k) ?? '').trim();
     const currency = text('currency').toUpperCase();
     const feeMinor = isCurrency(currency) ? parseMoney(text('fee'), currency) : null;
-    if (!isCurrency(currency)) return setErrors({ currency: 'Use an ISO 4217 currency code, like USD or EUR.' });
-    if (feeMinor === null) return setErrors({ feeMinor: 'Enter the fee as an amount, like 2500 or 2500.00.' });
+    if (!isCurrency(currency)) return refuse({ currency: 'Use an ISO 4217 currency code, like USD or EUR.' });
+    if (feeMinor === null) return refuse({ feeMinor: 'Enter the fee as an amount, like 2500 or 2500.00.' });
     const body = {
       title: text('title'),
       feeMinor,
@@ -37,21 +36,7 @@ export function DealTermsForm({ channelSlug, deal }: { channelSlug: string; deal
       paidOn: state === 'paid' ? text('paidOn') || null : null,
       notes: text('notes'),
     };
-    setSaved(false);
-    m.updateDeal.mutate(
-      { dealId: deal.id, body },
-      {
-        onSuccess: () => {
-          setErrors({});
-          setMessage(null);
-          setSaved(true);
-        },
-        onError: (err) => {
-          setErrors(err instanceof ApiError ? err.fields : {});
-          setMessage(err.message);
-        },
-      },
-    );
+    send(body);
   }
 
   return (
@@ -76,10 +61,10 @@ export function DealTermsForm({ channelSlug, deal }: { channelSlug: string; deal
       {state === 'paid' ? <TextField label="Paid on" name="paidOn" type="date" defaultValue={deal.paidOn ?? ''} error={errors.paidOn} /> : null}
       <TextField label="Notes" name="notes" defaultValue={deal.notes} error={errors.notes} className="sm:col-span-2 lg:col-span-3" />
       <div className="flex items-center gap-3 sm:col-span-2 lg:col-span-3">
-        <Button type="submit" disabled={m.updateDeal.isPending}>
-          {m.updateDeal.isPending ? 'Saving…' : 'Save terms'}
+        <Button type="submit" disabled={save.isPending}>
+          {save.isPending ? 'Saving…' : 'Save terms'}
         </Button>
-        {saved ? (
+        {save.isSuccess ? (
           <span role="status" className="text-sm text-ok">
             Saved.
           </span>

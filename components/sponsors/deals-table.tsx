@@ -3,12 +3,13 @@
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { EmptyState } from '@/components/ui/empty-state';
+import { SortableHead, type Sort, type SortColumn } from '@/components/ui/sortable-head';
 import { formatMoney } from '@/lib/sponsors/money';
 import { dueDateLabels, invoiceStateLabels, invoiceStates, type DealRowDto, type InvoiceState } from '@/lib/sponsors/schemas';
 import { DueText } from './due-text';
 
 type SortKey = 'sponsor' | 'episode' | 'fee' | 'nextDue' | 'state';
-const columns: { key: SortKey; label: string }[] = [
+const columns: SortColumn<SortKey>[] = [
   { key: 'sponsor', label: 'Sponsor' },
   { key: 'episode', label: 'Episode' },
   { key: 'fee', label: 'Fee' },
@@ -37,7 +38,7 @@ function compare(a: DealRowDto, b: DealRowDto, key: SortKey): number {
 }
 
 export function DealsTable({ deals, channelSlug, today }: { deals: DealRowDto[]; channelSlug: string; today: string }) {
-  const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: 'nextDue', dir: 1 });
+  const [sort, setSort] = useState<Sort<SortKey>>({ key: 'nextDue', dir: 1 });
   const [sponsor, setSponsor] = useState('all');
   const [state, setState] = useState<InvoiceState | 'all'>('all');
   const sponsors = useMemo(() => [...new Map(deals.map((d) => [d.sponsorId, d.sponsorName])).entries()].sort((a, b) => a[1].localeCompare(b[1])), [deals]);
@@ -84,24 +85,7 @@ export function DealsTable({ deals, channelSlug, today }: { deals: DealRowDto[];
         <div className="overflow-x-auto rounded-card border border-paper-edge bg-white/60">
           <table className="w-full min-w-[44rem] text-left text-sm">
             <caption className="sr-only">Sponsor deals, sorted by {columns.find((c) => c.key === sort.key)?.label}</caption>
-            <thead className="border-b border-paper-edge bg-paper-deep/60">
-              <tr>
-                {columns.map((c) => (
-                  <th key={c.key} scope="col" aria-sort={sort.key === c.key ? (sort.dir === 1 ? 'ascending' : 'descending') : 'none'} className="p-0">
-                    <button
-                      type="button"
-                      onClick={() => setSort((s) => ({ key: c.key, dir: s.key === c.key ? ((-s.dir) as 1 | -1) : 1 }))}
-                      className="flex min-h-touch w-full items-center gap-1 px-3 font-bold hover:bg-paper"
-                    >
-                      {c.label}
-                      <span aria-hidden="true" className="text-ink-faint">
-                        {sort.key === c.key ? (sort.dir === 1 ? '▲' : '▼') : ''}
-                      </span>
-                    </button>
-                  </th>
-                ))}
-              </tr>
-            </thead>
+            <SortableHead columns={columns} sort={sort} onSort={setSort} />
             <tbody className="divide-y divide-paper-edge">
               {rows.map((d) => (
                 <tr key={d.id} className="hover:bg-paper/60">

@@ -2,10 +2,9 @@
 
 import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
-import type { FieldErrors } from '@/lib/errors';
+import { useFormMutation } from '@/components/ui/use-schema-form';
 import { formatDuration } from '@/lib/runtime';
 import { deliverableKindLabels, deliverableKinds, dueDateKinds, dueDateLabels, type DeliverableDto, type DeliverableKind } from '@/lib/sponsors/schemas';
 
@@ -27,12 +26,11 @@ export function DeliverableForm({ deliverable: d, episodes, crew, pending, submi
   const [episodeId, setEpisodeId] = useState(d?.episodeId ?? episodes[0]?.id ?? '');
   const [kind, setKind] = useState<DeliverableKind>(d?.kind ?? 'segment_read');
   const [placementKind, setPlacementKind] = useState<'none' | 'starts_before' | 'within_percent'>(d?.placement?.kind ?? 'starts_before');
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
+  const { fields: errors, submit: send, message } = useFormMutation({ send: onSubmit });
   const segments = episodes.find((e) => e.id === episodeId)?.segments ?? [];
   const defaultSegment = d?.segmentId ?? segments.find((s) => s.kind === 'sponsor_read')?.id ?? '';
 
-  async function submit(event: FormEvent<HTMLFormElement>) {
+  function submit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const text = (k: string) => String(form.get(k) ?? '').trim();
@@ -58,15 +56,7 @@ export function DeliverableForm({ deliverable: d, episodes, crew, pending, submi
             : { kind: 'within_percent', percent: Number(text('placementPercent')) },
     };
     if (!d) body.dueDates = Object.fromEntries(dueDateKinds.filter((k) => k !== 'payment_due').map((k) => [k, orNull(`due-${k}`)]));
-    try {
-      await onSubmit(body);
-      setErrors({});
-      setMessage(null);
-    } catch (err) {
-      if (!(err instanceof ApiError)) throw err;
-      setErrors(err.fields);
-      setMessage(err.message);
-    }
+    send(body);
   }
 
   const placementError = Object.entries(errors).find(([k]) => k.startsWith('placement'))?.[1];
@@ -149,16 +139,7 @@ export function DeliverableForm({ deliverable: d, episodes, crew, pending, submi
             ))}
         </fieldset>
       ) : null}
-      <div className="flex gap-2 sm:col-span-2">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : submitLabel}
-        </Button>
-        {onCancel ? (
-          <Button variant="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <FormActions pending={pending} label={submitLabel} onCancel={onCancel} className="flex gap-2 sm:col-span-2" />
     </form>
   );
 }

@@ -5,7 +5,7 @@ import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
+import { useFormMutation } from '@/components/ui/use-schema-form';
 import type { FieldErrors } from '@/lib/errors';
 import { isCurrency, parseMoney } from '@/lib/sponsors/money';
 import type { SponsorDto } from '@/lib/sponsors/schemas';
@@ -13,16 +13,31 @@ import { useSponsorMutations } from './use-sponsor-mutations';
 
 const NEW = 'new';
 
+type NewSponsor = { name: string; contacts: { name: string; email: string }[] };
+type NewDeal = { sponsorId: string; title: string; feeMinor: number; currency: string; paymentTermsDays: number };
+
 /** A deal for an existing sponsor, or for a new one entered here; opens the deal page when saved. */
 export function NewDealForm({ channelSlug, sponsors }: { channelSlug: string; sponsors: SponsorDto[] }) {
   const router = useRouter();
   const m = useSponsorMutations(channelSlug);
   const [sponsorId, setSponsorId] = useState(sponsors[0]?.id ?? NEW);
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const pending = m.createSponsor.isPending || m.createDeal.isPending;
+  const { fields: errors, submit: send, refuse, mutation, message } = useFormMutation({
+    send: async ({ newSponsor, deal }: { newSponsor: NewSponsor | null; deal: Omit<NewDeal, 'sponsorId'> }) => {
+      let id = sponsorId;
+      if (newSponsor) {
+        id = (await m.createSponsor.mutateAsync(newSponsor)).sponsor.id;
+        // Saved even if the deal is refused, so a second try does not make the sponsor twice.
+        setSponsorId(id);
+      }
+      return (await m.createDeal.mutateAsync({ ...deal, sponsorId: id })).deal;
+    },
+    onSuccess: (deal) => router.push(`/c/${channelSlug}/sponsors/${deal.id}`),
+    // The contact's errors come back as contacts.0.name / contacts.0.email.
+    fieldNames: { 'contacts.0.name': 'contactName', 'contacts.0.email': 'contactEmail', name: 'sponsorName' },
+  });
+  const pending = mutation.isPending;
 
-  async function submit(event: FormEvent<HTMLFormElement>) {
+  function submit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const text = (k: string) => String(form.get(k) ?? '').trim();
@@ -32,28 +47,12 @@ export function NewDealForm({ channelSlug, sponsors }: { channelSlug: string; sp
     const feeMinor = isCurrency(currency) ? parseMoney(text('fee'), currency) : null;
     if (feeMinor === null) local.feeMinor = 'Enter the fee as an amount, like 2500 or 2500.00.';
     const terms = Number(text('paymentTermsDays'));
-    if (Object.keys(local).length > 0) return setErrors(local);
-    setErrors({});
-    setMessage(null);
-    try {
-      let id = sponsorId;
-      if (id === NEW) {
-        const contact = text('contactName') || text('contactEmail') ? [{ name: text('contactName'), email: text('contactEmail') }] : [];
-        id = (await m.createSponsor.mutateAsync({ name: text('sponsorName'), contacts: contact })).sponsor.id;
-        setSponsorId(id);
-      }
-      const { deal } = await m.createDeal.mutateAsync({ sponsorId: id, title: text('title'), feeMinor, currency, paymentTermsDays: Number.isFinite(terms) ? terms : -1 });
-      router.push(`/c/${channelSlug}/sponsors/${deal.id}`);
-    } catch (err) {
-      if (!(err instanceof ApiError)) throw err;
-      const fields = { ...err.fields };
-      // The contact's errors come back as contacts.0.name / contacts.0.email.
-      if (fields['contacts.0.name']) fields.contactName = fields['contacts.0.name'];
-      if (fields['contacts.0.email']) fields.contactEmail = fields['contacts.0.email'];
-      if (fields.name) fields.sponsorName = fields.name;
-      setErrors(fields);
-      setMessage(err.message);
-    }
+    if (Object.keys(local).length > 0 || feeMinor === null) return refuse(local);
+    const contact = text('contactName') || text('contactEmail') ? [{ name: text('contactName'), email: text('contactEmail') }] : [];
+    send({
+      newSponsor: sponsorId === NEW ? { name: text('sponsorName'), contacts: contact } : null,
+      deal: { title: text('title'), feeMinor, currency, paymentTermsDays: Number.isFinite(terms) ? terms : -1 },
+    });
   }
 
   return (

@@ -1,7 +1,7 @@
 'use client';
 
 import { useState, type FormEvent } from 'react';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField, TextField } from '@/components/ui/field';
 import type { FieldErrors } from '@/lib/errors';
 import { offersToText, parseOffersText } from '@/lib/stock/offers-text';
@@ -62,16 +62,7 @@ export function StockForm({ item, errors, pending, onSubmit, onCancel }: Props) 
         </label>
       ) : null}
       <TextField label="Sizes on sale" name="offers" defaultValue={item ? offersToText(item) : ''} error={offersError ?? serverOffersError} hint={hints[kind].offers} className="sm:col-span-2" />
-      <div className="flex gap-2">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : item ? 'Save stock' : 'Add to rack'}
-        </Button>
-        {onCancel ? (
-          <Button variant="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        ) : null}
-      </div>
+      <FormActions pending={pending} label={item ? 'Save stock' : 'Add to rack'} onCancel={onCancel} />
     </form>
   );
 }

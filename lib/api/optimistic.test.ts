@@ -1,6 +1,6 @@
 import { QueryClient } from '@tanstack/react-query';
 import { describe, expect, it, vi } from 'vitest';
-import { optimisticReorder } from './optimistic';
+import { cachedView, optimisticMove, optimisticReorder } from './optimistic';
 
 const key = ['list'];
 const moveToFront = (list: string[], id: string) => [id, ...list.filter((x) => x !== id)];
@@ -18,7 +18,7 @@ describe('optimisticReorder', () => {
     const { qc, handlers } = setUp();
     const context = handlers.onMutate('c');
     expect(qc.getQueryData(key)).toEqual(['c', 'a', 'b']);
-    expect(context.previous).toEqual(['a', 'b', 'c']);
+    expect(context.previous).toEqual([[key, ['a', 'b', 'c']]]);
   });
 
   it('puts the old order back when the server refuses', () => {
@@ -31,7 +31,7 @@ describe('optimisticReorder', () => {
   it('leaves an empty cache alone', () => {
     const qc = new QueryClient();
     const { onMutate } = optimisticReorder<string[], string>(qc, { key, mutationKey: ['move'], reorder: moveToFront, refresh: async () => undefined });
-    expect(onMutate('a').previous).toBeUndefined();
+    expect(onMutate('a').previous).toEqual([]);
     expect(qc.getQueryData(key)).toBeUndefined();
   });
 
@@ -44,5 +44,37 @@ describe('optimisticReorder', () => {
     await handlers.onSettled();
     expect(refresh).toHaveBeenCalledTimes(1);
     expect(spy).toHaveBeenCalledWith({ mutationKey: ['move'] });
+  });
+});
+
+describe('optimisticMove', () => {
+  const boardKey = ['board'];
+  const byCase = (list: string[], id: string) => list.map((x) => (x === id ? x.toUpperCase() : x));
+
+  it('changes every cached view at once, the prefix ones included, and puts each back on refusal', () => {
+    const qc = new QueryClient();
+    qc.setQueryData([...boardKey, 'all'], ['a', 'b']);
+    qc.setQueryData([...boardKey, 'mine'], ['b']);
+    qc.setQueryData(['mine'], ['c', 'b']);
+    const move = optimisticMove<string>(qc, {
+      views: [cachedView<string[], string>(boardKey, byCase, { exact: false }), cachedView<string[], string>(['mine'], moveToFront)],
+      mutationKey: ['state'],
+      refresh: async () => undefined,
+    });
+    const snapshot = move.apply('b');
+    expect(qc.getQueryData([...boardKey, 'all'])).toEqual(['a', 'B']);
+    expect(qc.getQueryData([...boardKey, 'mine'])).toEqual(['B']);
+    expect(qc.getQueryData(['mine'])).toEqual(['b', 'c']);
+    move.restore(snapshot);
+    expect(qc.getQueryData([...boardKey, 'all'])).toEqual(['a', 'b']);
+    expect(qc.getQueryData([...boardKey, 'mine'])).toEqual(['b']);
+    expect(qc.getQueryData(['mine'])).toEqual(['c', 'b']);
+  });
+
+  it('leaves views it does not name alone', () => {
+    const qc = new QueryClient();
+    qc.setQueryData(['other'], ['b']);
+    optimisticMove<string>(qc, { views: [cachedView<string[], string>(boardKey, byCase, { exact: false })], mutationKey: ['state'], refresh: async () => undefined }).apply('b');
+    expect(qc.getQueryData(['other'])).toEqual(['b']);
   });
 });

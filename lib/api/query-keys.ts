@@ -36,4 +36,6 @@ export const mutationKeys = {
   moveSegment: (slug: string, episodeId: string) => ['running-order', slug, episodeId, 'move'] as const,
   moveShot: (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId, 'move'] as const,
   setShotState: (slug: string) => ['shot-state', slug] as const,
+  deleteShot: (slug: string, segmentId: string) => ['shots', slug, 'segment', segmentId, 'delete'] as const,
+  deleteClip: (slug: string, segmentId: string) => ['clips', slug, segmentId, 'delete'] as const,
 };

@@ -1,16 +1,15 @@
 import { randomUUID } from 'node:crypto';
 import { DEMO_SLUG, expect, expectAccessible, test, waitForMail } from './fixtures';
+import { CrewSettingsPage } from './pages/crew-settings-page';
 
 test('a host invites a new address; the invitee sets a password and lands in the channel as Editor', async ({ signedIn, browser }) => {
   const email = `new-editor-${randomUUID().slice(0, 8)}@e2e.kerfline.test`;
   const page = await signedIn('host');
-  await page.goto(`/c/${DEMO_SLUG}/settings/crew`);
+  const crew = new CrewSettingsPage(page);
+  await crew.goto();
   await expectAccessible(page);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Role', { exact: true }).selectOption('editor');
-  await page.getByRole('button', { name: 'Send invitation' }).click();
-  await expect(page.getByText(`Invitation sent to ${email}.`)).toBeVisible();
-  await expect(page.getByText(email, { exact: true })).toBeVisible();
+  await crew.invite(email, 'editor');
+  await expect(crew.entry(email)).toBeVisible();
 
   const [mail] = await waitForMail(email);
   if (!mail) throw new Error('no mail');
@@ -38,7 +37,7 @@ test('a host invites a new address; the invitee sets a password and lands in the
   await invitee.close();
 
   await page.reload();
-  await expect(page.getByText('Tam Newcomer', { exact: true })).toBeVisible();
+  await expect(crew.entry('Tam Newcomer')).toBeVisible();
 });
 
 test('a broken invitation link gets a clear page', async ({ page }) => {

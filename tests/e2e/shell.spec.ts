@@ -1,4 +1,5 @@
 import { DEMO_SLUG, demo, expect, expectAccessible, sameOrigin, test } from './fixtures';
+import { CrewSettingsPage } from './pages/crew-settings-page';
 import { SignInPage } from './pages/sign-in-page';
 
 test('the sign-in page is accessible and signed-out pages redirect to it', async ({ page }) => {
@@ -35,7 +36,7 @@ for (const [label, account, roleLabel] of [
 
 test('a shop hand opening crew settings is refused, on the page and by the API', async ({ signedIn }) => {
   const page = await signedIn('shopHand');
-  const res = await page.goto(`/c/${DEMO_SLUG}/settings/crew`);
+  const res = await new CrewSettingsPage(page).goto();
   expect(res?.status()).toBe(403);
   await expect(page.getByRole('heading', { name: 'Not for your role' })).toBeVisible();
   await expectAccessible(page);

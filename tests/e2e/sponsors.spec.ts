@@ -2,6 +2,7 @@ import type { Page } from '@playwright/test';
 import type { EpisodeSummaryDto } from '@/lib/episodes/schemas';
 import type { RunningOrderDto } from '@/lib/segments/schemas';
 import { DEMO_SLUG, expect, expectAccessible, sameOrigin, test, waitForMail } from './fixtures';
+import { SponsorsPage } from './pages/sponsors-page';
 
 const api = `/api/channels/${DEMO_SLUG}`;
 
@@ -24,18 +25,10 @@ test('a host books a read on the demo episode, sees placement follow the running
   const stamp = Date.now();
   const sponsorName = `Larchmoor Clamps ${stamp}`;
   const contact = `pell.${stamp}@larchmoor.test`;
-  await page.goto(`/c/${DEMO_SLUG}/sponsors`);
+  const sponsors = new SponsorsPage(page);
+  await sponsors.goto();
   await expectAccessible(page);
-  const newDeal = page.getByRole('form', { name: 'New deal' });
-  await newDeal.getByLabel('Sponsor', { exact: true }).selectOption({ label: 'New sponsor…' });
-  await newDeal.getByLabel('Sponsor name').fill(sponsorName);
-  await newDeal.getByLabel('Contact name').fill('Pell Andrade');
-  await newDeal.getByLabel('Contact e-mail').fill(contact);
-  await newDeal.getByLabel('Deal title').fill('Bar clamp read');
-  await newDeal.getByLabel('Fee').fill('1250.00');
-  await newDeal.getByLabel('Currency').fill('EUR');
-  await newDeal.getByRole('button', { name: 'Create deal' }).click();
-  await expect(page.getByRole('heading', { level: 1, name: 'Bar clamp read' })).toBeVisible({ timeout: 30_000 });
+  await sponsors.createDealForNewSponsor({ sponsorName, contactName: 'Pell Andrade', contactEmail: contact, title: 'Bar clamp read', fee: '1250.00', currency: 'EUR' });
   await expect(page.getByText('€1,250.00')).toBeVisible();
 
   const form = page.getByRole('form', { name: 'Add deliverable' });
@@ -101,15 +94,15 @@ test('a host books a read on the demo episode, sees placement follow the running
   await expect(page.getByRole('heading', { name: 'Changed since approval' })).toBeVisible();
   await expectAccessible(page);
 
-  await page.goto(`/c/${DEMO_SLUG}/sponsors`);
-  await expect(page.getByRole('link', { name: sponsorName })).toBeVisible();
+  await sponsors.goto();
+  await expect(sponsors.sponsorLink(sponsorName)).toBeVisible();
   await page.setViewportSize({ width: 375, height: 800 });
   await expectAccessible(page);
 });
 
 test('the editor reads talking points and disclosure without fees; the shop hand is refused', async ({ signedIn }) => {
   const editorPage = await signedIn('editor');
-  await editorPage.goto(`/c/${DEMO_SLUG}/sponsors`);
+  await new SponsorsPage(editorPage).goto();
   await expect(editorPage.getByRole('heading', { level: 1, name: 'Sponsor reads' })).toBeVisible();
   await expect(editorPage.getByText('Mesh discs let dust through to the extractor', { exact: false }).first()).toBeVisible();
   await expect(editorPage.getByText('This video is sponsored by Brightgrain Abrasives').first()).toBeVisible();

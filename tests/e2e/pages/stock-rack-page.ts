@@ -1,0 +1,39 @@
+import { expect, type Page } from '@playwright/test';
+import { DEMO_SLUG } from '../fixtures';
+
+/** The stock rack: the channel's lumber and sheet goods, the shop settings, and the add-stock form. */
+export class StockRackPage {
+  constructor(readonly page: Page) {}
+
+  async goto() {
+    await this.page.goto(`/c/${DEMO_SLUG}/stock`);
+  }
+
+  /** Reaches the rack the way a person does, through the main navigation. */
+  async openFromNav() {
+    await this.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Stock rack' }).click();
+    await expect(this.page.getByRole('heading', { level: 1, name: 'Stock rack' })).toBeVisible();
+  }
+
+  addForm() {
+    return this.page.getByRole('region', { name: 'Add stock' });
+  }
+
+  addButton() {
+    return this.page.getByRole('button', { name: 'Add to rack' });
+  }
+
+  /** Fills the add form for softwood (the default kind) and submits it. */
+  async addSoftwood({ species, profile, sizes }: { species: string; profile: string; sizes: string }) {
+    const form = this.addForm();
+    await form.getByLabel('Species').fill(species);
+    await form.getByLabel('Profile').fill(profile);
+    await form.getByLabel('Sizes on sale').fill(sizes);
+    await form.getByRole('button', { name: 'Add to rack' }).click();
+  }
+
+  /** A rack item's name as its card shows it, e.g. "2x4 SPF". */
+  item(name: string) {
+    return this.page.getByText(name, { exact: true });
+  }
+}

@@ -20,7 +20,9 @@ export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ 
   // A retried finish finds its row and does not hash the bytes again.
   const existing = await findClipIdByUpload(upload.id);
   if (existing) return { clipId: existing, created: false };
-  const sha256 = await sha256Of(await store.read(upload.id));
+  const size = upload.size ?? upload.offset;
+  // The digest the store verified while the bytes came in, or else the stored bytes read back: either way the hash of what is stored.
+  const sha256 = (await store.verifiedSha256(upload.id, size)) ?? (await sha256Of(await store.read(upload.id)));
   try {
     return await recordClipOnce({
       uploadId: upload.id,
@@ -29,7 +31,7 @@ export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ 
       uploadedBy: uploaderId,
       originalName: filename,
       mimeType: filetype,
-      sizeBytes: upload.size ?? upload.offset,
+      sizeBytes: size,
       sha256,
     });
   } catch (err) {

@@ -4,11 +4,12 @@
 // The S3 server: S3_ENDPOINT, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY (and S3_REGION) when set; otherwise a
 // Swift with s3api started here (scripts/lib/swift.mjs) under .data/bench-swift on KERFLINE_SWIFT_PORT.
 // It makes its own bucket, and measures on one file of --mib MiB:
-//   1. tus-js-client (64 MiB chunks, as the browser sends) into one app process with STORAGE=s3 (the time includes the SHA-256
-//      the app reads back from S3 at finish), and that app's peak RSS growth;
+//   1. tus-js-client (64 MiB chunks, as the browser sends) into one app process with STORAGE=s3 (the time includes the clip's
+//      SHA-256: hashed on the way in, or read back from S3 when the store has no verified digest; it says which), and that
+//      app's peak RSS growth;
 //   2. the same file as a plain multipart upload with the AWS SDK (@aws-sdk/lib-storage, 8 MiB parts)
 //      to the same server, four parts at a time (the SDK default) and one at a time;
-//   3. reading the SDK's copy back from S3 with its SHA-256 (the part of the tus time spent at finish);
+//   3. reading the SDK's copy back from S3 with its SHA-256 (what a finish without a verified digest adds);
 //   4. two simultaneous tus uploads into one process, then one into each of two processes: aggregate MiB/s.
 // --runs N repeats 1 and 2 N times, interleaved so a change in the machine's load hits both alike, and prints
 // each run's ratios with the load average, then the median and the spread; --no-pairs skips 4.
@@ -23,6 +24,7 @@ import { Upload as SdkUpload } from '@aws-sdk/lib-storage';
 import type { S3Settings } from '@/storage/config';
 import { sha256Of } from '@/storage/ingest';
 import { makeS3Client } from '@/storage/s3-client';
+import { S3ClipStore } from '@/storage/s3-store';
 import { benchChannel, makeSource, mibps, peakRssGrowth, startApp, tusUpload } from './lib';
 
 const argMib = process.argv.indexOf('--mib');
@@ -118,6 +120,11 @@ async function main() {
         console.log(`  run ${i + 1}/${RUNS} (load ${load.toFixed(1)}): tus ${tus.toFixed(1)}, SDK(4) ${sdk4.toFixed(1)}, SDK(1) ${sdk1.toFixed(1)} MiB/s; tus/SDK(4) ${(tus / sdk4).toFixed(2)}, tus/SDK(1) ${(tus / sdk1).toFixed(2)}; RSS growth ${(rss.growth / 1048576).toFixed(1)} MiB`);
       }
     }
+    // Whether the app hashed the last tus upload on the way in (storage/upload-digest.ts) or had to read it back.
+    const { db } = await import('@/db/client');
+    const last = await db('clips').orderBy('created_at', 'desc').first<{ upload_id: string; sha256: string } | undefined>('upload_id', 'sha256');
+    const streamed = last ? await new S3ClipStore(settings).verifiedSha256(last.upload_id, SIZE) : null;
+    const digestNote = streamed === null ? 'read back (no verified digest)' : streamed === last?.sha256 ? 'hashed on the way in, no read-back' : 'MISMATCH';
     const t2 = performance.now();
     const readBack = await client.send(new GetObjectCommand({ Bucket: settings.bucket, Key: 'sdk-1.bin' }));
     await sha256Of(readBack.Body as Readable);
@@ -154,11 +161,11 @@ async function main() {
     const sdk4 = mibps(SIZE, sdk4Ms);
     const sdk1 = mibps(SIZE, sdk1Ms);
     console.log(`${MIB} MiB into S3 (${settings.endpoint}), loopback, ${new Date().toISOString()}, load average now ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}${RUNS > 1 ? '; medians' : ''}:`);
-    console.log(`  tus into one app (browser chunks, SHA-256 read back at finish): ${tus.toFixed(0)} MiB/s (${(tusMs / 1000).toFixed(2)} s)`);
+    console.log(`  tus into one app (browser chunks, clip SHA-256 included): ${tus.toFixed(0)} MiB/s (${(tusMs / 1000).toFixed(2)} s); the SHA-256: ${digestNote}`);
     console.log(`  AWS SDK multipart, 8 MiB parts, 4 at a time (SDK default):  ${sdk4.toFixed(0)} MiB/s (${(sdk4Ms / 1000).toFixed(2)} s)`);
     console.log(`  AWS SDK multipart, 8 MiB parts, 1 at a time:                ${sdk1.toFixed(0)} MiB/s (${(sdk1Ms / 1000).toFixed(2)} s)`);
     console.log(`  tus/SDK(4) ${median(ratio4).toFixed(2)}${spread(ratio4, 2)}   tus/SDK(1) ${median(ratio1).toFixed(2)}${spread(ratio1, 2)}   (goal >= 0.80)`);
-    console.log(`  read back from S3 with SHA-256 (done by tus at finish):      ${mibps(SIZE, readMs).toFixed(0)} MiB/s (${(readMs / 1000).toFixed(2)} s)`);
+    console.log(`  read back from S3 with SHA-256 (what a finish without a verified digest adds): ${mibps(SIZE, readMs).toFixed(0)} MiB/s (${(readMs / 1000).toFixed(2)} s)`);
     console.log(`  app RSS: ${(base / 1048576).toFixed(0)} MiB before, peak growth ${(growth / 1048576).toFixed(1)} MiB during the upload${RUNS > 1 ? 's (largest)' : ''} (goal <= 64 MiB)`);
     if (PAIRS) {
       console.log(`  two uploads at once, one process:   ${mibps(2 * SIZE, oneProcMs).toFixed(0)} MiB/s aggregate (${(oneProcMs / 1000).toFixed(2)} s)`);

@@ -15,8 +15,9 @@ import { z } from 'zod';
  * object back instead.
  *
  * The running SHA-256 is node:crypto's, which cannot be saved and resumed elsewhere, so a chain lives in
- * the memory of the process that writes the upload. A resumable one (hash-wasm) was tried first: on this
- * 2-core machine its SHA-256 ran at a fifth of node:crypto's and held tus back to 0.63 of the SDK.
+ * the memory of the process that writes the upload. A resumable one (hash-wasm 4.13, state saved in S3
+ * after every PATCH) was tried first: on this loaded 2-core machine its SHA-256 ran at 18-49 MiB/s against
+ * node:crypto's 200-330 MiB/s (SHA extensions), as slow as the upload itself.
  */
 
 const hex32 = /^[0-9a-f]{32}$/;

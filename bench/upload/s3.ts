@@ -98,6 +98,13 @@ async function main() {
   await client.send(new CreateBucketCommand({ Bucket: settings.bucket }));
   const { cookie, metadata, remove } = await benchChannel();
   const apps = [await startApp(PORT_A, appEnv(settings))];
+  // Stopped by hand (Ctrl-C, kill): the app processes and Swift go too, rather than hold their ports.
+  const onSignal = () => {
+    for (const app of apps) app.kill('SIGKILL');
+    void server.stop().finally(() => process.exit(1));
+  };
+  process.once('SIGINT', onSignal);
+  process.once('SIGTERM', onSignal);
   try {
     const warm = path.join(WORK, 'warm.bin');
     fs.writeFileSync(warm, randomBytes(1024 * 1024));

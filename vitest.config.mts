@@ -11,7 +11,7 @@ export default defineConfig({
       {
         resolve: { alias },
         // Property tests share two cores with the planners' own searches, so 5 s is too tight.
-        test: { name: 'unit', include: ['lib/**/*.test.ts', 'db/**/*.test.ts', 'scripts/**/*.test.mjs'], environment: 'node', testTimeout: 30_000 },
+        test: { name: 'unit', include: ['lib/**/*.test.ts', 'db/**/*.test.ts', 'storage/**/*.test.ts', 'scripts/**/*.test.mjs'], environment: 'node', testTimeout: 30_000 },
       },
       {
         resolve: { alias },

@@ -20,6 +20,11 @@ export interface ClipStore {
   listFinished(): Promise<{ uploadId: string; touchedAt: Date }[]>;
   /** What ffprobe and ffmpeg open: a local path, or a URL that reads the bytes for `ttlSeconds`. */
   mediaSource(uploadId: string, ttlSeconds?: number): Promise<string>;
+  /**
+   * The SHA-256 of a finished upload of `size` bytes that the store computed as the bytes went in and
+   * checked against what it stored; null when it has none, and the caller reads the bytes back instead.
+   */
+  verifiedSha256(uploadId: string, size: number): Promise<string | null>;
   /** Forgets what this process cached about an upload; called once the cross-process upload lock is held. */
   forget(uploadId: string): Promise<void>;
   savePoster(clipId: string, jpegPath: string): Promise<void>;

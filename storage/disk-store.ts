@@ -75,6 +75,11 @@ export class DiskClipStore implements ClipStore {
   // Nothing is cached: every request reads the upload's .json file.
   async forget(): Promise<void> {}
 
+  // Reading a local file back is cheap next to the upload itself, so the disk store keeps no digest.
+  async verifiedSha256(): Promise<string | null> {
+    return null;
+  }
+
   async savePoster(clipId: string, jpegPath: string): Promise<void> {
     await mkdir(this.posterDir, { recursive: true });
     await copyFile(jpegPath, this.poster(clipId));

@@ -32,7 +32,11 @@ export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ 
   // A retried finish finds its row and does not hash the bytes again.
   const existing = await findClipIdByUpload(upload.id);
   if (existing) return { clipId: existing, created: false };
-  const { sha256, crc32: crc } = await hashesOf(await store.read(upload.id));
+  const size = upload.size ?? upload.offset;
+  // The digest the store verified while the bytes came in (then the package computes the CRC-32 as it
+  // streams), or else the stored bytes read back once for both: either way the hash of what is stored.
+  const verified = await store.verifiedSha256(upload.id, size);
+  const { sha256, crc32: crc } = verified ? { sha256: verified, crc32: null } : await hashesOf(await store.read(upload.id));
   try {
     return await recordClipOnce({
       uploadId: upload.id,
@@ -41,7 +45,7 @@ export async function ingestUpload(store: ClipStore, upload: Upload): Promise<{ 
       uploadedBy: uploaderId,
       originalName: filename,
       mimeType: filetype,
-      sizeBytes: upload.size ?? upload.offset,
+      sizeBytes: size,
       sha256,
       crc32: crc,
     });

@@ -14,32 +14,11 @@ import {
 } from '@aws-sdk/client-s3';
 import { Upload as MultipartUpload } from '@aws-sdk/lib-storage';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
-import { S3Store } from '@tus/s3-store';
 import { checkClipId, checkUploadId, isClipId, isUploadId, type ClipStore } from './clip-store';
 import type { S3Settings } from './config';
-import { addDeleteObjectsMd5, makeS3Client, s3ClientConfig } from './s3-client';
-
-/** @tus/s3-store with the Content-MD5 fix on its own client and a way to drop one upload from its cache. */
-class TusS3Store extends S3Store {
-  constructor(s: S3Settings) {
-    super({
-      partSize: s.partSize,
-      maxMultipartParts: s.maxParts,
-      s3ClientConfig: { ...s3ClientConfig(s), bucket: s.bucket },
-    });
-    addDeleteObjectsMd5(this.client.middlewareStack);
-  }
-
-  forget(id: string): Promise<void> {
-    return this.clearCache(id);
-  }
-
-  // @tus/s3-store 2.0.7 leaves the trailing short part (`<id>.part`) behind when tus DELETE cancels an upload.
-  override async remove(id: string): Promise<void> {
-    await super.remove(id);
-    await this.client.deleteObject({ Bucket: this.bucket, Key: this.partKey(id, true) });
-  }
-}
+import { makeS3Client } from './s3-client';
+import { TusS3Store } from './tus-s3-store';
+import { digestKey } from './upload-digest';
 
 const notFound = (err: unknown): boolean => {
   const e = err as { name?: string; $metadata?: { httpStatusCode?: number } };
@@ -48,7 +27,7 @@ const notFound = (err: unknown): boolean => {
 
 /**
  * Clips in an S3-compatible bucket. tus writes each upload as a multipart upload under its id (plus
- * `<id>.info` and, between PATCHes, `<id>.part`); posters live under `posters/`. Reads stream from the
+ * `<id>.info`, between PATCHes `<id>.part`, and `<id>.sha256`, its digest so far); posters live under `posters/`. Reads stream from the
  * bucket with ranged GetObject, never through a local copy; ffprobe/ffmpeg get a presigned URL.
  */
 export class S3ClipStore implements ClipStore {
@@ -97,7 +76,7 @@ export class S3ClipStore implements ClipStore {
     await this.client.send(
       new DeleteObjectsCommand({
         Bucket: this.bucket,
-        Delete: { Objects: [uploadId, `${uploadId}.info`, `${uploadId}.part`].map((Key) => ({ Key })), Quiet: true },
+        Delete: { Objects: [uploadId, `${uploadId}.info`, `${uploadId}.part`, digestKey(uploadId)].map((Key) => ({ Key })), Quiet: true },
       }),
     );
     await this.tus.forget(uploadId);
@@ -162,6 +141,10 @@ export class S3ClipStore implements ClipStore {
 
   forget(uploadId: string): Promise<void> {
     return this.tus.forget(uploadId);
+  }
+
+  verifiedSha256(uploadId: string, size: number): Promise<string | null> {
+    return this.tus.finishedSha256(checkUploadId(uploadId), size);
   }
 
   async savePoster(clipId: string, jpegPath: string): Promise<void> {

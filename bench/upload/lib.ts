@@ -72,7 +72,8 @@ export function tusUpload(port: number, file: string, cookie: string, metadata: 
       endpoint: `http://127.0.0.1:${port}/api/uploads`,
       chunkSize: process.env.BENCH_CHUNK_MIB ? Number(process.env.BENCH_CHUNK_MIB) * 1024 * 1024 : UPLOAD_CHUNK_BYTES,
       uploadSize: fs.statSync(file).size,
-      headers: { cookie },
+      // The app refuses state-changing requests without its own Origin (issue 12), as a browser sends it.
+      headers: { cookie, origin: `http://127.0.0.1:${port}` },
       metadata,
       retryDelays: [],
       onError: reject,

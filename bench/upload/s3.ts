@@ -4,14 +4,19 @@
 // The S3 server: S3_ENDPOINT, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY (and S3_REGION) when set; otherwise a
 // Swift with s3api started here (scripts/lib/swift.mjs) under .data/bench-swift on KERFLINE_SWIFT_PORT.
 // It makes its own bucket, and measures on one file of --mib MiB:
-//   1. tus-js-client (64 MiB chunks, as the browser sends) into one app process with STORAGE=s3 (the time includes the SHA-256
-//      the app reads back from S3 at finish), and that app's peak RSS growth;
+//   1. tus-js-client (64 MiB chunks, as the browser sends) into one app process with STORAGE=s3 (the time includes the clip's
+//      SHA-256: hashed on the way in, or read back from S3 when the store has no verified digest; it says which), and that
+//      app's peak RSS growth;
 //   2. the same file as a plain multipart upload with the AWS SDK (@aws-sdk/lib-storage, 8 MiB parts)
 //      to the same server, four parts at a time (the SDK default) and one at a time;
-//   3. reading the SDK's copy back from S3 with its SHA-256 (the part of the tus time spent at finish);
+//   3. reading the SDK's copy back from S3 with its SHA-256 (what a finish without a verified digest adds);
 //   4. two simultaneous tus uploads into one process, then one into each of two processes: aggregate MiB/s.
+// --runs N repeats 1 and 2 N times, interleaved so a change in the machine's load hits both alike, and prints
+// each run's ratios with the load average, then the median and the spread; --no-pairs skips 4.
+import './bench-env';
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { CreateBucketCommand, DeleteBucketCommand, DeleteObjectsCommand, GetObjectCommand, ListObjectsV2Command, type S3Client } from '@aws-sdk/client-s3';
 import type { Readable } from 'node:stream';
@@ -19,15 +24,15 @@ import { Upload as SdkUpload } from '@aws-sdk/lib-storage';
 import type { S3Settings } from '@/storage/config';
 import { sha256Of } from '@/storage/ingest';
 import { makeS3Client } from '@/storage/s3-client';
+import { S3ClipStore } from '@/storage/s3-store';
 import { benchChannel, makeSource, mibps, peakRssGrowth, startApp, tusUpload } from './lib';
 
-const PG_PORT = process.env.KERFLINE_PG_PORT ?? '54329';
-process.env.DATABASE_URL ??= `postgres://postgres@127.0.0.1:${PG_PORT}/kerfline`;
-process.env.NEXTAUTH_SECRET ??= fs.readFileSync('.data/session-secret', 'utf8').trim();
-process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true';
 const argMib = process.argv.indexOf('--mib');
 const MIB = argMib > 0 ? Number(process.argv[argMib + 1]) : 1024;
 const SIZE = MIB * 1024 * 1024;
+const argRuns = process.argv.indexOf('--runs');
+const RUNS = argRuns > 0 ? Math.max(1, Number(process.argv[argRuns + 1])) : 1;
+const PAIRS = !process.argv.includes('--no-pairs');
 const PORT_A = Number(process.env.BENCH_APP_PORT ?? 3198);
 const PORT_B = Number(process.env.BENCH_APP_PORT_B ?? PORT_A + 1);
 const WORK = path.resolve('.data/bench-upload-s3');
@@ -93,43 +98,86 @@ async function main() {
   await client.send(new CreateBucketCommand({ Bucket: settings.bucket }));
   const { cookie, metadata, remove } = await benchChannel();
   const apps = [await startApp(PORT_A, appEnv(settings))];
+  // Stopped by hand (Ctrl-C, kill): the app processes and Swift go too, rather than hold their ports.
+  const onSignal = () => {
+    for (const app of apps) app.kill('SIGKILL');
+    void server.stop().finally(() => process.exit(1));
+  };
+  process.once('SIGINT', onSignal);
+  process.once('SIGTERM', onSignal);
   try {
     const warm = path.join(WORK, 'warm.bin');
     fs.writeFileSync(warm, randomBytes(1024 * 1024));
     await tusUpload(PORT_A, warm, cookie, metadata);
 
-    const t0 = performance.now();
-    const { base, growth } = await peakRssGrowth(apps[0]!.pid!, () => tusUpload(PORT_A, src, cookie, metadata));
-    const tusMs = performance.now() - t0;
-    const sdk4Ms = await sdkMultipart(client, settings.bucket, src, 4);
-    const sdk1Ms = await sdkMultipart(client, settings.bucket, src, 1);
+    type Run = { tusMs: number; sdk4Ms: number; sdk1Ms: number; growth: number; load: number };
+    const runs: Run[] = [];
+    let base = 0;
+    for (let i = 0; i < RUNS; i++) {
+      const load = os.loadavg()[0] ?? 0;
+      const t0 = performance.now();
+      const rss = await peakRssGrowth(apps[0]!.pid!, () => tusUpload(PORT_A, src, cookie, metadata));
+      const tusMs = performance.now() - t0;
+      base = rss.base;
+      const sdk4Ms = await sdkMultipart(client, settings.bucket, src, 4);
+      const sdk1Ms = await sdkMultipart(client, settings.bucket, src, 1);
+      runs.push({ tusMs, sdk4Ms, sdk1Ms, growth: rss.growth, load });
+      if (RUNS > 1) {
+        const [tus, sdk4, sdk1] = [tusMs, sdk4Ms, sdk1Ms].map((ms) => mibps(SIZE, ms)) as [number, number, number];
+        console.log(`  run ${i + 1}/${RUNS} (load ${load.toFixed(1)}): tus ${tus.toFixed(1)}, SDK(4) ${sdk4.toFixed(1)}, SDK(1) ${sdk1.toFixed(1)} MiB/s; tus/SDK(4) ${(tus / sdk4).toFixed(2)}, tus/SDK(1) ${(tus / sdk1).toFixed(2)}; RSS growth ${(rss.growth / 1048576).toFixed(1)} MiB`);
+      }
+    }
+    // Whether the app hashed the last tus upload on the way in (storage/upload-digest.ts) or had to read it back.
+    const { db } = await import('@/db/client');
+    const last = await db('clips').orderBy('created_at', 'desc').first<{ upload_id: string; sha256: string } | undefined>('upload_id', 'sha256');
+    const streamed = last ? await new S3ClipStore(settings).verifiedSha256(last.upload_id, SIZE) : null;
+    const digestNote = streamed === null ? 'read back (no verified digest)' : streamed === last?.sha256 ? 'hashed on the way in, no read-back' : 'MISMATCH';
     const t2 = performance.now();
     const readBack = await client.send(new GetObjectCommand({ Bucket: settings.bucket, Key: 'sdk-1.bin' }));
     await sha256Of(readBack.Body as Readable);
     const readMs = performance.now() - t2;
+
+    const median = (xs: number[]) => {
+      const s = [...xs].sort((x, y) => x - y);
+      const m = Math.floor(s.length / 2);
+      return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+    };
+    const spread = (xs: number[], digits: number) => (xs.length > 1 ? ` (${Math.min(...xs).toFixed(digits)}–${Math.max(...xs).toFixed(digits)} over ${xs.length} runs)` : '');
+    const tusMs = median(runs.map((r) => r.tusMs));
+    const sdk4Ms = median(runs.map((r) => r.sdk4Ms));
+    const sdk1Ms = median(runs.map((r) => r.sdk1Ms));
+    const ratio4 = runs.map((r) => r.sdk4Ms / r.tusMs);
+    const ratio1 = runs.map((r) => r.sdk1Ms / r.tusMs);
+    const growth = Math.max(...runs.map((r) => r.growth));
 
     const pair = async (ports: [number, number]) => {
       const t = performance.now();
       await Promise.all(ports.map((p) => tusUpload(p, src, cookie, metadata)));
       return performance.now() - t;
     };
-    const oneProcMs = await pair([PORT_A, PORT_A]);
-    apps.push(await startApp(PORT_B, appEnv(settings)));
-    await tusUpload(PORT_B, warm, cookie, metadata);
-    const twoProcMs = await pair([PORT_A, PORT_B]);
+    let oneProcMs = 0;
+    let twoProcMs = 0;
+    if (PAIRS) {
+      oneProcMs = await pair([PORT_A, PORT_A]);
+      apps.push(await startApp(PORT_B, appEnv(settings)));
+      await tusUpload(PORT_B, warm, cookie, metadata);
+      twoProcMs = await pair([PORT_A, PORT_B]);
+    }
 
     const tus = mibps(SIZE, tusMs);
     const sdk4 = mibps(SIZE, sdk4Ms);
     const sdk1 = mibps(SIZE, sdk1Ms);
-    console.log(`${MIB} MiB into S3 (${settings.endpoint}), loopback, ${new Date().toISOString()}:`);
-    console.log(`  tus into one app (browser chunks, SHA-256 read back at finish): ${tus.toFixed(0)} MiB/s (${(tusMs / 1000).toFixed(2)} s)`);
+    console.log(`${MIB} MiB into S3 (${settings.endpoint}), loopback, ${new Date().toISOString()}, load average now ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}${RUNS > 1 ? '; medians' : ''}:`);
+    console.log(`  tus into one app (browser chunks, clip SHA-256 included): ${tus.toFixed(0)} MiB/s (${(tusMs / 1000).toFixed(2)} s); the SHA-256: ${digestNote}`);
     console.log(`  AWS SDK multipart, 8 MiB parts, 4 at a time (SDK default):  ${sdk4.toFixed(0)} MiB/s (${(sdk4Ms / 1000).toFixed(2)} s)`);
     console.log(`  AWS SDK multipart, 8 MiB parts, 1 at a time:                ${sdk1.toFixed(0)} MiB/s (${(sdk1Ms / 1000).toFixed(2)} s)`);
-    console.log(`  tus/SDK(4) ${(tus / sdk4).toFixed(2)}   tus/SDK(1) ${(tus / sdk1).toFixed(2)}   (goal >= 0.80)`);
-    console.log(`  read back from S3 with SHA-256 (done by tus at finish):      ${mibps(SIZE, readMs).toFixed(0)} MiB/s (${(readMs / 1000).toFixed(2)} s)`);
-    console.log(`  app RSS: ${(base / 1048576).toFixed(0)} MiB before, peak growth ${(growth / 1048576).toFixed(1)} MiB during the upload (goal <= 64 MiB)`);
-    console.log(`  two uploads at once, one process:   ${mibps(2 * SIZE, oneProcMs).toFixed(0)} MiB/s aggregate (${(oneProcMs / 1000).toFixed(2)} s)`);
-    console.log(`  two uploads at once, two processes: ${mibps(2 * SIZE, twoProcMs).toFixed(0)} MiB/s aggregate (${(twoProcMs / 1000).toFixed(2)} s)`);
+    console.log(`  tus/SDK(4) ${median(ratio4).toFixed(2)}${spread(ratio4, 2)}   tus/SDK(1) ${median(ratio1).toFixed(2)}${spread(ratio1, 2)}   (goal >= 0.80)`);
+    console.log(`  read back from S3 with SHA-256 (what a finish without a verified digest adds): ${mibps(SIZE, readMs).toFixed(0)} MiB/s (${(readMs / 1000).toFixed(2)} s)`);
+    console.log(`  app RSS: ${(base / 1048576).toFixed(0)} MiB before, peak growth ${(growth / 1048576).toFixed(1)} MiB during the upload${RUNS > 1 ? 's (largest)' : ''} (goal <= 64 MiB)`);
+    if (PAIRS) {
+      console.log(`  two uploads at once, one process:   ${mibps(2 * SIZE, oneProcMs).toFixed(0)} MiB/s aggregate (${(oneProcMs / 1000).toFixed(2)} s)`);
+      console.log(`  two uploads at once, two processes: ${mibps(2 * SIZE, twoProcMs).toFixed(0)} MiB/s aggregate (${(twoProcMs / 1000).toFixed(2)} s)`);
+    }
   } finally {
     for (const app of apps) app.kill('SIGTERM');
     await remove();

@@ -1,5 +1,5 @@
 import { execFile } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -73,6 +73,18 @@ describe.each(stores)('ClipStore contract: $name', ({ make }) => {
     const from = 8 * MiB - 100;
     expect((await bytesOf(await store.read(id, { start: from, end: from + 199 }))).equals(bytes.subarray(from, from + 200))).toBe(true);
     expect((await bytesOf(await store.read(id))).equals(bytes)).toBe(true);
+  });
+
+  it('hashes a finished upload as stored, or leaves the hash to reading the bytes back', async () => {
+    const store = await make();
+    const bytes = randomBytes(9 * MiB);
+    const id = await newUpload(store, bytes.length);
+    await store.tus.write(Readable.from([bytes.subarray(0, 4 * MiB)]), id, 0);
+    await store.forget(id);
+    await store.tus.write(Readable.from([bytes.subarray(4 * MiB)]), id, 4 * MiB);
+    const sha = createHash('sha256').update(bytes).digest('hex');
+    expect([null, sha]).toContain(await store.verifiedSha256(id, bytes.length));
+    expect(createHash('sha256').update(await bytesOf(await store.read(id))).digest('hex')).toBe(sha);
   });
 
   it('gives ffprobe a source it can open', async () => {

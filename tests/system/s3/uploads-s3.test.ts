@@ -146,9 +146,10 @@ describe('clip files from S3', () => {
     clipId = (await clipsOf(idOf(run.url!)))[0]!.id as string;
   });
 
-  it('reads media details through a presigned URL and keeps the poster in the bucket', async () => {
+  // ffprobe and ffmpeg share two busy cores with Swift and the app: minutes, not seconds, under load.
+  it('reads media details through a presigned URL and keeps the poster in the bucket', { timeout: 180_000 }, async () => {
     await expect
-      .poll(async () => (await db('clips').where({ id: clipId }).first('probe_state')).probe_state, { timeout: 30_000, interval: 300 })
+      .poll(async () => (await db('clips').where({ id: clipId }).first('probe_state')).probe_state, { timeout: 120_000, interval: 300 })
       .toBe('done');
     const clip = await db('clips').where({ id: clipId }).first();
     expect(clip).toMatchObject({ width: 1280, height: 720, codec: 'mjpeg', has_poster: true });

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { EpisodeCutPlan } from '@/components/cut-plans/episode-cut-plan';
 import { can } from '@/lib/auth/policy';
+import { pageAccess } from '@/lib/auth/page-access';
 import { requireMember } from '@/lib/auth/session';
 import { planEpisode } from '@/lib/cut-plans/queries';
 import { findEpisode } from '@/lib/episodes/queries';
@@ -12,7 +13,7 @@ export const metadata: Metadata = { title: 'Cut plan' };
 
 export default async function EpisodeCutPlanPage({ params }: { params: Promise<{ channel: string; episodeId: string }> }) {
   const { channel, episodeId } = await params;
-  const member = await requireMember(channel, 'cutlist.read');
+  const member = await requireMember(channel, pageAccess.cutPlan.capability);
   const id = uuidOr404(episodeId);
   const [episode, plan] = await orNotFound(Promise.all([findEpisode(member.channel.id, id), planEpisode(member.channel.id, id)]));
   return (

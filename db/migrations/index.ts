@@ -9,6 +9,7 @@ import * as byteRemovals from './20261212000001_byte_removals';
 import * as sessionsAndLimits from './20261213000000_sessions_and_limits';
 import * as sponsors from './20261214000000_sponsors';
 import * as handoffs from './20261215000000_handoffs';
+import * as clipsSha256Index from './20261219000000_clips_sha256_index';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -25,6 +26,7 @@ const migrations: Record<string, Migration> = {
   '20261213000000_sessions_and_limits': sessionsAndLimits,
   '20261214000000_sponsors': sponsors,
   '20261215000000_handoffs': handoffs,
+  '20261219000000_clips_sha256_index': clipsSha256Index,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

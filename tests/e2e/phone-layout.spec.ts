@@ -1,3 +1,4 @@
+import type { Page } from '@playwright/test';
 import { DEMO_SLUG, expect, expectAccessible, test, type DemoRole } from './fixtures';
 import { channelLinks, measureOverflow, routeShape } from './pages/overflow';
 
@@ -9,7 +10,7 @@ const start = `/c/${DEMO_SLUG}`;
 const PHONE = { viewport: { width: 375, height: 800 }, hasTouch: true, isMobile: true };
 const DESKTOP = { viewport: { width: 1280, height: 900 } };
 
-async function crawl(page: import('@playwright/test').Page): Promise<string[]> {
+async function crawl(page: Page): Promise<string[]> {
   const seen = new Map<string, string>();
   const queue = [start];
   while (queue.length > 0) {
@@ -28,7 +29,7 @@ async function crawl(page: import('@playwright/test').Page): Promise<string[]> {
 
 // Found once per worker; a worker restarted after a failure crawls again.
 let found: string[] = [];
-async function appPages(signedIn: (role: DemoRole, o?: object) => Promise<import('@playwright/test').Page>): Promise<string[]> {
+async function appPages(signedIn: (role: DemoRole, o?: object) => Promise<Page>): Promise<string[]> {
   if (found.length === 0) found = await crawl(await signedIn('host', DESKTOP));
   return found;
 }

@@ -39,7 +39,13 @@ describe('pages answer real 404 and 403 statuses (issue 12 item 15)', () => {
 
   it('an Editor gets 403 on the new-episode page; a Host gets it', async () => {
     const crew = await makeCrew();
-    expect((await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.editor))).status).toBe(403);
+    const refused = await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.editor));
+    expect(refused.status).toBe(403);
+    // Issue 15: the refusal sits in the app shell, with its navigation, and names the role the page is for.
+    const html = await refused.text();
+    expect(html).toContain('Not for your role');
+    expect(html).toContain('This page is for the Host.');
+    expect(html).toMatch(/<nav aria-label="Main"/);
     expect((await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.host))).status).toBe(200);
   });
 

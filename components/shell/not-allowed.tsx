@@ -29,8 +29,9 @@ export function NotAllowed() {
         Not for your role
       </h1>
       <p className="mt-3 text-ink-soft">
-        {capability ? <>This page is for {joinRoles(rolesWith(capability))}. </> : null}
-        You are signed in as {roleLabels[viewer.role]} on this channel. A Host of the channel can change your role under Settings, Crew.
+        {/* One string each, so the server's HTML carries the sentence whole (no React text separators). */}
+        {capability ? `This page is for ${joinRoles(rolesWith(capability))}. ` : null}
+        {`You are signed in as ${roleLabels[viewer.role]} on this channel. A Host of the channel can change your role under Settings, Crew.`}
       </p>
       <Link href={channelPage(slug)} className={buttonClasses('secondary', 'mt-6')}>
         Back to the dashboard

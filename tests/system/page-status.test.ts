@@ -46,8 +46,8 @@ describe('pages answer real 404 and 403 statuses (issue 12 item 15)', () => {
     // rendered words are checked in the browser (tests/e2e/first-hour.spec.ts).
     const html = await refused.text();
     expect(html).toContain('NEXT_HTTP_ERROR_FALLBACK;403');
-    expect(html).toContain('"NavLinks"');
-    expect(html).toContain('"NotAllowed"');
+    expect(html).toContain('NavLinks');
+    expect(html).toContain('NotAllowed');
     expect((await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.host))).status).toBe(200);
   });
 

@@ -66,7 +66,9 @@ test.describe('every page fits the screen', () => {
         await expect(page.locator('main h1').first()).toBeVisible();
         const o = await measureOverflow(page);
         if (o.scrollWidth > o.innerWidth || o.offenders.length > 0) problems.push(`${routeShape(path)}: ${o.scrollWidth}px wide; ${o.offenders.join('; ')}`);
-        if (viewport === PHONE) await expectAccessible(page);
+        // axe on every page as the Host; the other roles see the same pages with less on them, so they run
+        // it where their page differs in kind (a refusal), which keeps this check inside npm test's budget.
+        if (viewport === PHONE && (role === 'host' || res?.status() === 403)) await expectAccessible(page);
       }
       expect(problems).toEqual([]);
     });

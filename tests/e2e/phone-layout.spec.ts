@@ -18,7 +18,6 @@ async function crawl(page: Page): Promise<string[]> {
     const shape = routeShape(path);
     if (seen.has(shape)) continue;
     seen.set(shape, path);
-    if (process.env.KERFLINE_CRAWL_LOG) console.log(`crawl ${path}`);
     const res = await page.goto(path);
     expect(res?.status(), path).toBe(200);
     await page.waitForLoadState('networkidle');

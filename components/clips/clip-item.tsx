@@ -6,6 +6,9 @@ import { LocalTime } from '@/components/shop-board/dates';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { formatBytes } from '@/lib/clips/names';
 import type { ClipDto } from '@/lib/clips/schemas';
+import Link from 'next/link';
+import { channelPage } from '@/lib/api/paths';
+import { ClipFiling, type Choice } from './clip-filing';
 import { clipFileUrl, clipPosterUrl } from './use-clips';
 
 type Props = {
@@ -19,6 +22,8 @@ type Props = {
   shotLabel?: string | undefined;
   /** Inside a shop board card, whose own title is an h3. */
   nested?: boolean;
+  /** On the segment page, for who may file this clip: the shots and segments it can be tied or moved to. */
+  filing?: { shots: Choice[]; segments: Choice[]; onFiled: (text: string) => void } | undefined;
 };
 
 /** 3 -> "0:03", 3723 -> "1:02:03": the way an editor's timeline writes it. */
@@ -63,7 +68,7 @@ async function copyText(text: string): Promise<boolean> {
   }
 }
 
-export function ClipItem({ slug, clip, mayDelete, mayReadNotes = false, onDelete, shotLabel, nested = false }: Props) {
+export function ClipItem({ slug, clip, mayDelete, mayReadNotes = false, onDelete, shotLabel, nested = false, filing }: Props) {
   const name = clip.originalName;
   const kind = kindOf(clip.mimeType);
   const [previewing, setPreviewing] = useState(false);
@@ -91,7 +96,7 @@ export function ClipItem({ slug, clip, mayDelete, mayReadNotes = false, onDelete
   }
 
   return (
-    <article aria-label={name} className="space-y-3 rounded-card border border-paper-edge bg-white/80 p-3 shadow-card">
+    <article id={`clip-${clip.id}`} aria-label={name} className="scroll-mt-4 space-y-3 rounded-card border border-paper-edge bg-white/80 p-3 shadow-card">
       <div className="flex gap-3">
         {clip.hasPoster ? (
           // eslint-disable-next-line @next/next/no-img-element -- a private, per-clip JPEG behind the session, not a static asset
@@ -110,6 +115,15 @@ export function ClipItem({ slug, clip, mayDelete, mayReadNotes = false, onDelete
           {nested ? null : <MediaDetails clip={clip} />}
         </div>
       </div>
+      {clip.duplicateOf ? (
+        <p className="rounded-md border-l-4 border-attention bg-attention-soft px-3 py-2 text-sm text-attention-ink">
+          <span className="font-bold">Same bytes as an earlier clip:</span>{' '}
+          <Link href={`${channelPage(slug, 'episodes', clip.duplicateOf.episodeId, 'segments', clip.duplicateOf.segmentId)}#clip-${clip.duplicateOf.clipId}`} className="font-bold underline">
+            {clip.duplicateOf.originalName}
+          </Link>{' '}
+          in {clip.duplicateOf.segmentTitle}. Delete this copy unless you need it twice.
+        </p>
+      ) : null}
       {/* A board column is too narrow to set the facts beside the poster. */}
       {nested ? <MediaDetails clip={clip} /> : null}
 
@@ -178,6 +192,8 @@ export function ClipItem({ slug, clip, mayDelete, mayReadNotes = false, onDelete
           </div>
         ) : null}
       </div>
+
+      {filing ? <ClipFiling slug={slug} clip={clip} shots={filing.shots} segments={filing.segments} onFiled={filing.onFiled} /> : null}
 
       <div id={previewId} hidden={!previewing}>
         {previewing ? <Preview slug={slug} clip={clip} kind={kind} /> : null}

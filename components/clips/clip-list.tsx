@@ -6,9 +6,10 @@ import { Alert } from '@/components/ui/alert';
 import type { ClipDto } from '@/lib/clips/schemas';
 import type { ShotDto } from '@/lib/shots/schemas';
 import { mayReadClipNotes } from '@/lib/edit/policy';
+import type { Choice } from './clip-filing';
 import { ClipItem } from './clip-item';
 import { useViewer } from '@/components/providers/viewer-provider';
-import { mayDeleteClip, useDeleteClip, useSegmentClips } from './use-clips';
+import { mayDeleteClip, mayFileClip, useDeleteClip, useSegmentClips } from './use-clips';
 import { RetryAlert } from '@/components/ui/retry-alert';
 
 type Props = {
@@ -19,6 +20,8 @@ type Props = {
   initialClips?: ClipDto[] | undefined;
   /** On the segment page: each clip then says which shot it belongs to. */
   initialShots?: ShotDto[] | undefined;
+  /** On the segment page: the episode's segments a clip can be moved to. */
+  segments?: Choice[] | undefined;
   nested?: boolean;
 };
 
@@ -30,10 +33,11 @@ function WithShotLabels(props: Props & { initialShots: ShotDto[] }) {
   // The segment's shot list cache, so a renumbered shot reads the same here as in the table above.
   const shots = useSegmentShots(props.slug, props.segmentId, props.initialShots);
   const labels = useMemo(() => new Map(shots.data.map((s) => [s.id, `Shot ${s.number}: ${s.description}`])), [shots.data]);
-  return <ClipListBody {...props} labels={labels} />;
+  const shotChoices = useMemo(() => shots.data.map((s) => ({ id: s.id, label: `Shot ${s.number}: ${s.description}` })), [shots.data]);
+  return <ClipListBody {...props} labels={labels} shotChoices={shotChoices} />;
 }
 
-function ClipListBody({ slug, segmentId, shotId, initialClips, nested = false, labels }: Props & { labels?: Map<string, string> }) {
+function ClipListBody({ slug, segmentId, shotId, initialClips, nested = false, labels, segments, shotChoices }: Props & { labels?: Map<string, string>; shotChoices?: Choice[] }) {
   const clips = useSegmentClips(slug, segmentId, initialClips);
   const who = useViewer();
   const remove = useDeleteClip(slug, segmentId);
@@ -84,6 +88,11 @@ function ClipListBody({ slug, segmentId, shotId, initialClips, nested = false, l
               onDelete={onDelete}
               shotLabel={clip.shotId ? labels?.get(clip.shotId) : undefined}
               nested={nested}
+              filing={
+                segments && shotChoices && mayFileClip(who, clip)
+                  ? { shots: shotChoices, segments, onFiled: (text) => setNotice({ tone: 'ok', text }) }
+                  : undefined
+              }
             />
           </li>
         ))}

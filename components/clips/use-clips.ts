@@ -46,3 +46,21 @@ export function useDeleteClip(slug: string, segmentId: string) {
     }),
   });
 }
+
+/** Host any clip, its uploader their own (lib/clips/policy.ts mayFileClip); this only shows the form. */
+export const mayFileClip = (viewer: Viewer, clip: ClipDto) =>
+  can(viewer.role, 'clips.delete') || (can(viewer.role, 'clips.upload') && clip.uploadedBy === viewer.userId);
+
+export function useFileClip(slug: string, segmentId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ clip, body }: { clip: ClipDto; body: { segmentId?: string; shotId?: string | null } }) =>
+      apiFetch<{ clip: ClipDto }>(channelApi(slug, 'clips', clip.id), { method: 'PATCH', body }).then((r) => r.clip),
+    onSettled: (clip) =>
+      Promise.all([
+        qc.invalidateQueries({ queryKey: queryKeys.segmentClips(slug, segmentId) }),
+        clip && clip.segmentId !== segmentId ? qc.invalidateQueries({ queryKey: queryKeys.segmentClips(slug, clip.segmentId) }) : null,
+        qc.invalidateQueries({ queryKey: queryKeys.shots(slug) }),
+      ]),
+  });
+}

@@ -1,5 +1,9 @@
 import type { PlanBoard } from '@/lib/cut-plans/build';
+import { fitPieceLabel } from '@/lib/cut-plans/piece-label';
 import { formatLength } from '@/lib/units';
+
+/** Smallest label in viewBox units (the drawing is 1000 wide): about 5 px on a phone, 11 px on a desktop. */
+const MIN_LABEL = 12;
 
 type Props = { board: PlanBoard; sheet: boolean; unit: 'in' | 'mm'; title: string; cutCounts?: Map<string, number> | undefined };
 
@@ -34,20 +38,18 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
           const pw = p.lengthIn * scale;
           const ph = sheet ? p.widthIn * scale : strips ? p.widthIn * scaleY : h;
           const cut = (cutCounts?.get(p.partId) ?? 0) > p.pieceIndex;
-          const label = `${p.name} ${fmt(p.lengthIn)}${sheet ? ` × ${fmt(p.widthIn)}` : ''}`;
+          const size = `${fmt(p.lengthIn)}${sheet ? ` × ${fmt(p.widthIn)}` : ''}`;
+          // Shortened to stay inside its piece (issue 15); the tooltip keeps the whole label.
+          const label = fitPieceLabel(p.name, size, { width: pw, height: ph }, labelSize, MIN_LABEL);
           return (
             <g key={`${p.partId}-${p.pieceIndex}`}>
+              <title>{`${p.name} ${size}`}</title>
               <rect x={x} y={y} width={pw} height={ph} className={cut ? 'fill-ok-soft stroke-ok' : 'fill-blueprint-soft stroke-blueprint'} strokeWidth="2" />
-              <text
-                x={x + pw / 2}
-                y={y + ph / 2}
-                textAnchor="middle"
-                dominantBaseline="middle"
-                fontSize={Math.min(labelSize, (pw / Math.max(label.length, 1)) * 1.8)}
-                className="fill-ink font-mono"
-              >
-                {label}
-              </text>
+              {label ? (
+                <text x={x + pw / 2} y={y + ph / 2} textAnchor="middle" dominantBaseline="middle" fontSize={label.fontSize} className="fill-ink font-mono">
+                  {label.text}
+                </text>
+              ) : null}
             </g>
           );
         })}

@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { CalendarDay } from '@/components/ui/calendar-day';
 import { buttonClasses } from '@/components/ui/button';
 import { DueText } from '@/components/sponsors/due-text';
 import type { DashboardDto, DashboardEpisode } from '@/lib/dashboard/queries';
@@ -67,6 +68,24 @@ export function DashboardView({ data, slug, canEditEpisodes }: { data: Dashboard
           <Link href={`${base}/shots`} className="mt-3 inline-block text-sm font-bold text-blueprint underline">
             Open the shop board
           </Link>
+        </Panel>
+      ) : null}
+      {data.safetyReviews && data.safetyReviews.length > 0 ? (
+        <Panel id="safety-heading" title="Safety reviews before the shoot">
+          <p className="text-sm text-ink-soft">
+            {canEditEpisodes ? 'Review the tool cautions on each segment page' : 'A Host reviews the tool cautions'} before shoot day; until then their shots cannot be marked Captured.
+          </p>
+          <ul className="mt-2 divide-y divide-paper-edge">
+            {data.safetyReviews.map((r) => (
+              <li key={r.segmentId} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <Link href={`${base}/episodes/${r.episodeId}/segments/${r.segmentId}`} className="min-h-touch content-center text-blueprint underline-offset-2 hover:underline">
+                  <span className="font-bold">{r.segmentTitle}</span>
+                  <span className="block text-xs text-ink-soft">{r.episodeTitle}</span>
+                </Link>
+                <span className="text-sm font-bold text-attention-ink">{r.shootDate ? <>Shoot <CalendarDay day={r.shootDate} /></> : 'No shoot date'}</span>
+              </li>
+            ))}
+          </ul>
         </Panel>
       ) : null}
       {data.changedSinceApproval && data.changedSinceApproval.length > 0 ? (

@@ -2,6 +2,7 @@
 
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
+import { CalendarDay } from '@/components/ui/calendar-day';
 import { EmptyState } from '@/components/ui/empty-state';
 import { SortableHead, type Sort, type SortColumn } from '@/components/ui/sortable-head';
 import { editStageLabels } from '@/lib/edit/stages';
@@ -66,6 +67,24 @@ export function EpisodesTable({ episodes, channelSlug }: { episodes: EpisodeSumm
             ))}
           </select>
         </div>
+        {/* The table's headers sort on wider screens; the phone's cards have this instead. */}
+        <div className="sm:hidden">
+          <label htmlFor="episode-sort" className="mb-1 block text-sm font-bold">
+            Sort by
+          </label>
+          <select
+            id="episode-sort"
+            value={sort.key}
+            onChange={(e) => setSort({ key: e.target.value as SortKey, dir: 1 })}
+            className="min-h-touch rounded-md border border-ink/30 bg-white px-3"
+          >
+            {columns.map((c) => (
+              <option key={c.key} value={c.key}>
+                {c.label}
+              </option>
+            ))}
+          </select>
+        </div>
         <label className="flex min-h-touch items-center gap-2 text-sm">
           <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} className="h-5 w-5" />
           Show archived
@@ -74,24 +93,87 @@ export function EpisodesTable({ episodes, channelSlug }: { episodes: EpisodeSumm
       {rows.length === 0 ? (
         <EmptyState title="No episodes match">Try another stage, or show archived episodes.</EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded-card border border-paper-edge bg-white/60">
-          <table className="w-full min-w-[44rem] text-left text-sm">
-            <caption className="sr-only">Episodes, sorted by {columns.find((c) => c.key === sort.key)?.label}</caption>
-            <SortableHead columns={columns} sort={sort} onSort={setSort} />
-            <tbody className="divide-y divide-paper-edge">
-              {rows.map((e) => (
-                <EpisodeRow key={e.id} episode={e} channelSlug={channelSlug} />
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <>
+          {/* A phone gets stacked cards: a seven-column table does not fit 375 px (issue 15). */}
+          <ul aria-label="Episodes" className="space-y-3 sm:hidden">
+            {rows.map((e) => (
+              <EpisodeCard key={e.id} episode={e} channelSlug={channelSlug} />
+            ))}
+          </ul>
+          <div className="relative hidden overflow-x-auto rounded-card border border-paper-edge bg-white/60 sm:block">
+            <table className="w-full min-w-[44rem] text-left text-sm">
+              <caption className="sr-only">Episodes, sorted by {columns.find((c) => c.key === sort.key)?.label}</caption>
+              <SortableHead columns={columns} sort={sort} onSort={setSort} />
+              <tbody className="divide-y divide-paper-edge">
+                {rows.map((e) => (
+                  <EpisodeRow key={e.id} episode={e} channelSlug={channelSlug} />
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </>
       )}
     </div>
   );
 }
 
-function EpisodeRow({ episode: e, channelSlug }: { episode: EpisodeSummaryDto; channelSlug: string }) {
+const Day = ({ day }: { day: string | null }) => (day ? <CalendarDay day={day} /> : <span className="text-ink-faint">—</span>);
+
+function Runtime({ episode: e }: { episode: EpisodeSummaryDto }) {
   const over = e.targetSeconds !== null && e.forecastSeconds > e.targetSeconds;
+  return (
+    <>
+      <span className={over ? 'font-bold text-attention-ink' : ''}>{formatDuration(e.forecastSeconds)}</span>
+      {e.targetSeconds !== null ? <span className="text-ink-faint"> / {formatDuration(e.targetSeconds)}</span> : null}
+      {over ? <span className="sr-only"> (over target)</span> : null}
+    </>
+  );
+}
+
+function EpisodeCard({ episode: e, channelSlug }: { episode: EpisodeSummaryDto; channelSlug: string }) {
+  return (
+    <li className="relative rounded-card border border-paper-edge bg-white/60 p-3">
+      <Link href={channelPage(channelSlug, 'episodes', e.id)} className="font-bold text-blueprint underline-offset-2 hover:underline">
+        {e.title}
+      </Link>
+      {e.archived ? <span className="ml-2 text-xs text-ink-faint">(archived)</span> : null}
+      {e.premise ? <p className="text-xs text-ink-soft">{e.premise}</p> : null}
+      <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
+        <div>
+          <dt className="text-xs text-ink-faint">Stage</dt>
+          <dd>
+            {stageLabels[e.stage]}
+            {e.editStage ? <span className="block text-xs text-ink-soft">Edit: {editStageLabels[e.editStage]}</span> : null}
+          </dd>
+        </div>
+        <div>
+          <dt className="text-xs text-ink-faint">Runtime forecast</dt>
+          <dd className="whitespace-nowrap font-mono">
+            <Runtime episode={e} />
+          </dd>
+        </div>
+        <div>
+          <dt className="text-xs text-ink-faint">Shoot date</dt>
+          <dd>
+            <Day day={e.shootDate} />
+          </dd>
+        </div>
+        <div>
+          <dt className="text-xs text-ink-faint">Publish date</dt>
+          <dd>
+            <Day day={e.publishDate} />
+          </dd>
+        </div>
+        <div>
+          <dt className="text-xs text-ink-faint">Segments</dt>
+          <dd className="font-mono">{e.segmentCount}</dd>
+        </div>
+      </dl>
+    </li>
+  );
+}
+
+function EpisodeRow({ episode: e, channelSlug }: { episode: EpisodeSummaryDto; channelSlug: string }) {
   return (
     <tr className="hover:bg-paper/60">
       <td className="px-3 py-2">
@@ -105,12 +187,14 @@ function EpisodeRow({ episode: e, channelSlug }: { episode: EpisodeSummaryDto; c
         {stageLabels[e.stage]}
         {e.editStage ? <span className="block text-xs text-ink-soft">Edit: {editStageLabels[e.editStage]}</span> : null}
       </td>
-      <td className="px-3 py-2 font-mono">{e.shootDate ?? '—'}</td>
-      <td className="px-3 py-2 font-mono">{e.publishDate ?? '—'}</td>
-      <td className="px-3 py-2 font-mono">
-        <span className={over ? 'font-bold text-attention-ink' : ''}>{formatDuration(e.forecastSeconds)}</span>
-        {e.targetSeconds !== null ? <span className="text-ink-faint"> / {formatDuration(e.targetSeconds)}</span> : null}
-        {over ? <span className="sr-only"> (over target)</span> : null}
+      <td className="px-3 py-2">
+        <Day day={e.shootDate} />
+      </td>
+      <td className="px-3 py-2">
+        <Day day={e.publishDate} />
+      </td>
+      <td className="whitespace-nowrap px-3 py-2 font-mono">
+        <Runtime episode={e} />
       </td>
       <td className="px-3 py-2 font-mono">{e.segmentCount}</td>
     </tr>

@@ -63,8 +63,8 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
       {parts.data.length === 0 ? (
         <p className="text-sm text-ink-faint">No parts yet.{canEdit ? ' Add the finished pieces this build needs below.' : ''}</p>
       ) : (
-        <div className="overflow-x-auto">
-          <table className="w-full min-w-[40rem] text-left text-sm">
+        <div className="sm:overflow-x-auto">
+          <table className="stack-on-phone w-full text-left text-sm sm:min-w-[40rem]">
             <caption className="sr-only">Parts list</caption>
             <thead>
               <tr className="border-b border-paper-edge text-xs text-ink-faint">
@@ -105,13 +105,13 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
                         <span className="mt-1 block rounded-sm bg-attention-soft px-2 py-1 text-xs font-normal text-attention-ink">{problems.get(p.id)}</span>
                       ) : null}
                     </td>
-                    <td className="py-1 pr-2 text-right font-mono">{p.quantity}</td>
-                    <td className="py-1 pr-2 font-mono">{fmt(p.lengthIn)}</td>
-                    <td className="py-1 pr-2 font-mono">{fmt(p.widthIn)}</td>
-                    <td className="py-1 pr-2 font-mono">{fmt(p.thicknessIn)}</td>
-                    <td className="py-1 pr-2">{stockName(p.stockItemId)}</td>
-                    <td className="py-1 pr-2">{p.grain === 'length' ? 'Along length' : 'Any'}</td>
-                    <td className="py-1 pr-2 font-mono">
+                    <td data-label="Qty" className="py-1 pr-2 text-right font-mono">{p.quantity}</td>
+                    <td data-label="Length" className="py-1 pr-2 font-mono">{fmt(p.lengthIn)}</td>
+                    <td data-label="Width" className="py-1 pr-2 font-mono">{fmt(p.widthIn)}</td>
+                    <td data-label="Thick" className="py-1 pr-2 font-mono">{fmt(p.thicknessIn)}</td>
+                    <td data-label="Stock" className="py-1 pr-2">{stockName(p.stockItemId)}</td>
+                    <td data-label="Grain" className="py-1 pr-2">{p.grain === 'length' ? 'Along length' : 'Any'}</td>
+                    <td data-label="Cut" className="py-1 pr-2 font-mono">
                       {p.cutCount}/{p.quantity}
                     </td>
                     {canEdit ? (

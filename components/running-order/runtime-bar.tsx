@@ -107,6 +107,8 @@ function statusSentence(status: TargetStatus): string {
   switch (status.kind) {
     case 'no_target':
       return 'No target runtime set.';
+    case 'empty':
+      return 'Nothing forecast yet.';
     case 'on_target':
       return 'On target.';
     case 'over':
@@ -120,6 +122,8 @@ function TargetMessage({ status }: { status: TargetStatus }) {
   switch (status.kind) {
     case 'no_target':
       return <p className="text-sm text-ink-soft">No target runtime set</p>;
+    case 'empty':
+      return <p className="text-sm text-ink-soft">Nothing forecast yet</p>;
     case 'on_target':
       return <p className="text-sm font-bold text-ok">On target</p>;
     case 'under':

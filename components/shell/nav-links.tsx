@@ -18,7 +18,7 @@ export function NavLinks({ channelSlug }: { channelSlug: string }) {
   const base = channelPage(channelSlug);
   return (
     <nav aria-label="Main" className="px-2 pb-2 md:px-3">
-      <ul className="grid grid-cols-5 gap-1 md:flex md:flex-col">
+      <ul className="grid grid-cols-3 gap-1 md:flex md:flex-col">
         {sections.map((s) => {
           const href = `${base}${s.href}`;
           const active = s.href === '' ? pathname === base : pathname === href || pathname.startsWith(`${href}/`);

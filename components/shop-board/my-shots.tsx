@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { EmptyState } from '@/components/ui/empty-state';
 import { cameraLabels, framingLabels, shotStates } from '@/lib/shots/catalog';
-import type { BoardShotDto } from '@/lib/shots/schemas';
+import { shotLabel, type BoardShotDto } from '@/lib/shots/schemas';
 import { shotHref } from './board-query';
 import { formatLongDay } from './dates';
 import { StateButtons, useShotActions, type ShotActions } from './shot-actions';
@@ -83,7 +83,7 @@ function MyShotItem({ slug, shot, actions }: { slug: string; shot: BoardShotDto;
     >
       <p className="text-sm">
         <Link href={shotHref(slug, shot)} className="underline decoration-ink/25 underline-offset-2 hover:decoration-ink">
-          {shot.segmentTitle} · Shot {shot.number}
+          {shot.segmentTitle} · Shot {shotLabel(shot)}
         </Link>
       </p>
       <p className="break-words font-bold leading-snug">{shot.description}</p>

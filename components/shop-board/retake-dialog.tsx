@@ -2,7 +2,7 @@
 
 import { useEffect, useId, useRef, useState, type FormEvent, type KeyboardEvent } from 'react';
 import { Button } from '@/components/ui/button';
-import type { BoardShotDto } from '@/lib/shots/schemas';
+import { shotLabel, type BoardShotDto } from '@/lib/shots/schemas';
 
 const MAX_REASON = 300;
 const focusable = 'button:not([disabled]), textarea:not([disabled]), input:not([disabled]), select:not([disabled]), a[href], [tabindex]:not([tabindex="-1"])';
@@ -96,7 +96,7 @@ export function RetakeDialog({ shot, onSubmit, onCancel }: Props) {
             Mark Retake
           </h2>
           <p className="mt-1 text-sm text-ink-soft">
-            Shot {shot.number}: {shot.description}
+            Shot {shotLabel(shot)}: {shot.description}
             <span className="block text-xs text-ink-faint">
               {shot.episodeTitle} / {shot.segmentTitle}
             </span>

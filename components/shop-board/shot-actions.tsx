@@ -1,6 +1,6 @@
 'use client';
 
-import { useRef, useState, type ReactNode } from 'react';
+import { useId, useRef, useState, type ReactNode } from 'react';
 import { ApiError } from '@/lib/api/client';
 import { shotStateLabels, type ShotState } from '@/lib/shots/catalog';
 import type { BoardShotDto } from '@/lib/shots/schemas';
@@ -75,7 +75,10 @@ const pressedStyles: Record<ShotState, string> = {
 /** Large buttons for a phone in a dusty shop: Captured, Retake, and back to Planned once it is one of those. */
 export function StateButtons({ shot, actions }: { shot: BoardShotDto; actions: ShotActions }) {
   const capturedRef = useRef<HTMLButtonElement>(null);
+  const reasonId = useId();
   const error = actions.failure?.shotId === shot.id ? actions.failure.message : null;
+  // The server refuses Captured until the review (lib/shots/queries.ts); say so before anyone presses (issue 15).
+  const waitsForReview = shot.safetyPending && shot.state !== 'captured';
   return (
     <div className="space-y-2 pt-1">
       <div className="flex gap-2">
@@ -84,10 +87,12 @@ export function StateButtons({ shot, actions }: { shot: BoardShotDto; actions: S
           ref={capturedRef}
           aria-label={`Mark captured: ${shot.description}`}
           aria-pressed={shot.state === 'captured'}
+          disabled={waitsForReview}
+          aria-describedby={waitsForReview ? reasonId : undefined}
           onClick={() => {
             if (shot.state !== 'captured') actions.move({ shot, state: 'captured' });
           }}
-          className={`${bigButton} border border-ok/60 bg-white text-ok hover:bg-ok-soft ${pressedStyles.captured}`}
+          className={`${bigButton} border border-ok/60 bg-white text-ok hover:bg-ok-soft disabled:border-ink/20 disabled:bg-paper-deep disabled:text-ink-faint disabled:hover:bg-paper-deep ${pressedStyles.captured}`}
         >
           <CheckIcon />
           Captured
@@ -103,6 +108,11 @@ export function StateButtons({ shot, actions }: { shot: BoardShotDto; actions: S
           Retake
         </button>
       </div>
+      {waitsForReview ? (
+        <p id={reasonId} className="text-sm text-ink-soft">
+          Captured waits for the safety review of this segment’s tools. A Host can review it on the segment page.
+        </p>
+      ) : null}
       {shot.state !== 'planned' ? (
         <button
           type="button"

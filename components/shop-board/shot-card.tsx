@@ -10,7 +10,7 @@ import { useViewer } from '@/components/providers/viewer-provider';
 import { CautionsList } from '@/components/shots/cautions-list';
 import { can } from '@/lib/auth/policy';
 import { cameraLabels, framingLabels, shotStateLabels, type ShotState } from '@/lib/shots/catalog';
-import type { BoardShotDto } from '@/lib/shots/schemas';
+import { shotLabel, type BoardShotDto } from '@/lib/shots/schemas';
 import { shotHref } from './board-query';
 import { formatDay, LocalTime } from './dates';
 import { DragHandle, DragHandlePreview } from '@/components/ui/drag-handle';
@@ -62,7 +62,7 @@ export function ShotCardBody({ slug, shot, handle, footer, showState = false, ov
       <div className="min-w-0 flex-1 space-y-1.5 px-3 py-2.5">
         <p className="flex flex-wrap items-center gap-x-2 gap-y-1 text-xs text-ink-soft">
           {showState ? <StatePill state={shot.state} /> : null}
-          <span className="font-mono font-bold text-ink">Shot {shot.number}</span>
+          <span className="font-mono font-bold text-ink">Shot {shotLabel(shot)}</span>
           <span>{framingLabels[shot.framing]}</span>
           <span aria-hidden="true">·</span>
           <span>{cameraLabels[shot.camera]}</span>

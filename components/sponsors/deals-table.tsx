@@ -82,8 +82,8 @@ export function DealsTable({ deals, channelSlug, today }: { deals: DealRowDto[];
       {rows.length === 0 ? (
         <EmptyState title="No deals match">Try another sponsor or state.</EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded-card border border-paper-edge bg-white/60">
-          <table className="w-full min-w-[44rem] text-left text-sm">
+        <div className="rounded-card border border-paper-edge bg-white/60 sm:overflow-x-auto">
+          <table className="stack-on-phone w-full text-left text-sm sm:min-w-[44rem]">
             <caption className="sr-only">Sponsor deals, sorted by {columns.find((c) => c.key === sort.key)?.label}</caption>
             <SortableHead columns={columns} sort={sort} onSort={setSort} />
             <tbody className="divide-y divide-paper-edge">
@@ -95,19 +95,19 @@ export function DealsTable({ deals, channelSlug, today }: { deals: DealRowDto[];
                     </Link>
                     <p className="text-xs text-ink-soft">{d.title}</p>
                   </td>
-                  <td className="px-3 py-2">{d.episodes.length ? episodeTitles(d) : <span className="text-ink-faint">No deliverable yet</span>}</td>
-                  <td className="px-3 py-2 font-mono">{formatMoney(d.feeMinor, d.currency)}</td>
-                  <td className="px-3 py-2">
+                  <td data-label="Episode" className="px-3 py-2">{d.episodes.length ? episodeTitles(d) : <span className="text-ink-faint">No deliverable yet</span>}</td>
+                  <td data-label="Fee" className="px-3 py-2 font-mono">{formatMoney(d.feeMinor, d.currency)}</td>
+                  <td data-label="Next due date" className="px-3 py-2">
                     {d.nextDue ? (
-                      <>
+                      <span>
                         <span className="block text-xs text-ink-soft">{dueDateLabels[d.nextDue.kind]}</span>
                         <DueText dueOn={d.nextDue.dueOn} today={today} />
-                      </>
+                      </span>
                     ) : (
                       <span className="text-ink-faint">—</span>
                     )}
                   </td>
-                  <td className="px-3 py-2">{invoiceStateLabels[d.invoiceState]}</td>
+                  <td data-label="State" className="px-3 py-2">{invoiceStateLabels[d.invoiceState]}</td>
                 </tr>
               ))}
             </tbody>

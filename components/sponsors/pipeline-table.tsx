@@ -11,7 +11,7 @@ export function PipelineTable({ rows }: { rows: PipelineMonth[] }) {
       </h2>
       {/* Focusable so a keyboard can scroll it on a narrow screen (axe: scrollable-region-focusable). */}
       <div tabIndex={0} role="region" aria-label="Pipeline per month, scrollable" className="overflow-x-auto rounded-card border border-paper-edge bg-white/60">
-        <table className="w-full min-w-[32rem] text-left text-sm">
+        <table className="stack-on-phone w-full text-left text-sm sm:min-w-[32rem]">
           <thead className="border-b border-paper-edge bg-paper-deep/60">
             <tr>
               {['Month', 'Currency', 'Booked', 'Invoiced', 'Paid'].map((h) => (
@@ -24,11 +24,11 @@ export function PipelineTable({ rows }: { rows: PipelineMonth[] }) {
           <tbody className="divide-y divide-paper-edge">
             {rows.map((r) => (
               <tr key={`${r.month}-${r.currency}`}>
-                <td className="px-3 py-2 font-mono">{r.month}</td>
-                <td className="px-3 py-2 font-mono">{r.currency}</td>
-                <td className="px-3 py-2 font-mono">{formatMoney(r.bookedMinor, r.currency)}</td>
-                <td className="px-3 py-2 font-mono">{formatMoney(r.invoicedMinor, r.currency)}</td>
-                <td className="px-3 py-2 font-mono">{formatMoney(r.paidMinor, r.currency)}</td>
+                <td data-label="Month" className="px-3 py-2 font-mono">{r.month}</td>
+                <td data-label="Currency" className="px-3 py-2 font-mono">{r.currency}</td>
+                <td data-label="Booked" className="px-3 py-2 font-mono">{formatMoney(r.bookedMinor, r.currency)}</td>
+                <td data-label="Invoiced" className="px-3 py-2 font-mono">{formatMoney(r.invoicedMinor, r.currency)}</td>
+                <td data-label="Paid" className="px-3 py-2 font-mono">{formatMoney(r.paidMinor, r.currency)}</td>
               </tr>
             ))}
           </tbody>

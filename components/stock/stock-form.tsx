@@ -2,7 +2,7 @@
 
 import { useState, type FormEvent } from 'react';
 import { FormActions } from '@/components/ui/form-actions';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import type { FieldErrors } from '@/lib/errors';
 import { offersToText, parseOffersText } from '@/lib/stock/offers-text';
 import { stockKindLabels, stockKinds, type StockItemDto, type StockKind } from '@/lib/stock/schemas';
@@ -17,9 +17,9 @@ type Props = {
 };
 
 const hints: Record<StockKind, { nominal: string; offers: string }> = {
-  softwood: { nominal: 'Nominal size, like 2x4 or 1x6.', offers: 'Length and price each, like 8ft 4.50; 10ft 6.20' },
-  hardwood: { nominal: 'Thickness in quarters, like 4/4 or 8/4.', offers: 'Lengths on sale, like 8ft; 10ft' },
-  sheet: { nominal: 'Nominal thickness, like 3/4.', offers: 'Sheet size and price, like 48 x 96 68.00' },
+  softwood: { nominal: 'Nominal size, like 2x4 or 1x6.', offers: "Length and price each, like 8 ft 4.50, 10' 6.20, or one per line" },
+  hardwood: { nominal: 'Thickness in quarters, like 4/4 or 8/4.', offers: "Lengths on sale, like 8 ft, 10 ft or 8', 10', or one per line" },
+  sheet: { nominal: 'Nominal thickness, like 3/4.', offers: 'Sheet size and price, like 48 x 96 68.00, one per line' },
 };
 
 export function StockForm({ item, errors, pending, onSubmit, onCancel }: Props) {
@@ -61,7 +61,7 @@ export function StockForm({ item, errors, pending, onSubmit, onCancel }: Props) 
           Plywood (actual thickness under nominal)
         </label>
       ) : null}
-      <TextField label="Sizes on sale" name="offers" defaultValue={item ? offersToText(item) : ''} error={offersError ?? serverOffersError} hint={hints[kind].offers} className="sm:col-span-2" />
+      <TextAreaField label="Sizes on sale" name="offers" rows={3} defaultValue={item ? offersToText(item) : ''} error={offersError ?? serverOffersError} hint={hints[kind].offers} className="sm:col-span-2" />
       <FormActions pending={pending} label={item ? 'Save stock' : 'Add to rack'} onCancel={onCancel} />
     </form>
   );

@@ -1,4 +1,4 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
 const controlClasses =
   'block w-full min-h-touch rounded-md border bg-white px-3 text-base text-ink placeholder:text-ink-faint aria-[invalid=true]:border-attention';
@@ -18,6 +18,31 @@ export function TextField({ label, error, hint, className = '', inputClassName =
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
         className={`${controlClasses} border-ink/30 ${inputClassName}`}
+        {...props}
+      />
+      {hint && !error ? (
+        <p id={`${id}-hint`} className="mt-1 text-sm text-ink-faint">
+          {hint}
+        </p>
+      ) : null}
+      <FieldError id={`${id}-error`} error={error} />
+    </div>
+  );
+}
+
+/** A text field for lists people type one per line. */
+export function TextAreaField({ label, error, hint, className = '', ...props }: FieldProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+  const id = useId();
+  return (
+    <div className={className}>
+      <label htmlFor={id} className="mb-1 block text-sm font-bold">
+        {label}
+      </label>
+      <textarea
+        id={id}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
+        className={`${controlClasses} border-ink/30 py-2`}
         {...props}
       />
       {hint && !error ? (

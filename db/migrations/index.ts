@@ -11,6 +11,7 @@ import * as sponsors from './20261214000000_sponsors';
 import * as handoffs from './20261215000000_handoffs';
 import * as jointAllowance from './20261216000000_joint_allowance';
 import * as clipCrc32 from './20261218000000_clip_crc32';
+import * as clipsSha256Index from './20261219000000_clips_sha256_index';
 import * as shoppingBoardTicks from './20261220000000_shopping_board_ticks';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
@@ -30,6 +31,7 @@ const migrations: Record<string, Migration> = {
   '20261215000000_handoffs': handoffs,
   '20261216000000_joint_allowance': jointAllowance,
   '20261218000000_clip_crc32': clipCrc32,
+  '20261219000000_clips_sha256_index': clipsSha256Index,
   '20261220000000_shopping_board_ticks': shoppingBoardTicks,
 };
 

@@ -65,3 +65,8 @@ export function can(role: Role, capability: Capability): boolean {
 export function isRole(value: unknown): value is Role {
   return typeof value === 'string' && (roles as readonly string[]).includes(value);
 }
+
+/** The roles that hold a capability, in the matrix's order (for "this page is for the Host"). */
+export function rolesWith(capability: Capability): readonly Role[] {
+  return roles.filter((r) => matrix[capability].includes(r));
+}

@@ -3,11 +3,11 @@ import type { Knex } from 'knex';
 import { db } from '@/db/client';
 import type { Role } from '@/lib/auth/policy';
 import type { Membership } from '@/lib/channels/queries';
-import { forbidden, notFound } from '@/lib/errors';
+import { forbidden, invalidInput, notFound } from '@/lib/errors';
 import { findSegment } from '@/lib/segments/queries';
-import { DELETE_OWN_ONLY, mayDeleteClip } from './policy';
+import { DELETE_OWN_ONLY, FILE_OWN_ONLY, mayDeleteClip, mayFileClip } from './policy';
 import type { MediaInfo } from './probe';
-import type { ClipDto, ProbeState } from './schemas';
+import type { ClipDto, DuplicateOfDto, FileClipInput, ProbeState } from './schemas';
 
 type ClipRow = {
   id: string;
@@ -29,6 +29,7 @@ type ClipRow = {
   codec: string | null;
   has_poster: boolean;
   created_at: Date;
+  duplicate_of: DuplicateOfDto | null;
 };
 
 const clipColumns = [
@@ -51,6 +52,14 @@ const clipColumns = [
   'c.codec',
   'c.has_poster',
   'c.created_at',
+  // The channel's earliest clip with the same bytes, so the later upload warns and links it (issue 15).
+  // clips_sha256_index keeps this an index lookup per clip.
+  db.raw(`(
+    select json_build_object('clipId', d.id, 'segmentId', d.segment_id, 'episodeId', ds.episode_id, 'segmentTitle', ds.title, 'originalName', d.original_name)
+    from clips as d join segments as ds on ds.id = d.segment_id join episodes as de on de.id = ds.episode_id
+    where d.sha256 = c.sha256 and de.channel_id = e.channel_id and (d.created_at, d.id) < (c.created_at, c.id)
+    order by d.created_at, d.id limit 1
+  ) as duplicate_of`),
 ];
 
 const toClipDto = (r: ClipRow): ClipDto => ({
@@ -72,6 +81,7 @@ const toClipDto = (r: ClipRow): ClipDto => ({
   codec: r.codec,
   hasPoster: r.has_poster,
   createdAt: r.created_at.toISOString(),
+  duplicateOf: r.duplicate_of,
 });
 
 const channelClips = (trx: Knex | Knex.Transaction, channelId: string) =>
@@ -167,6 +177,35 @@ export async function deleteClipRow(member: Membership, clipId: string): Promise
     await trx('clips').where({ id: clipId }).delete();
     return { uploadId: row.upload_id };
   });
+}
+
+/**
+ * Ties a clip to a shot of its segment, or moves it to another segment of the channel (untied unless a
+ * shot of that segment is named). Host any clip, the uploader their own (mayFileClip); the row is locked
+ * so a delete or another move in between is seen.
+ */
+export async function fileClip(member: Membership, clipId: string, input: FileClipInput): Promise<ClipDto> {
+  await db.transaction(async (trx) => {
+    const row: { segment_id: string; shot_id: string | null; uploaded_by: string | null } | undefined = await channelClips(trx, member.channel.id)
+      .where('c.id', clipId)
+      .forUpdate('c')
+      .first('c.segment_id', 'c.shot_id', 'c.uploaded_by');
+    if (!row) throw notFound('That clip');
+    if (!mayFileClip(member.role, row.uploaded_by, member.userId)) throw forbidden(FILE_OWN_ONLY);
+    const segmentId = input.segmentId ?? row.segment_id;
+    if (segmentId !== row.segment_id) {
+      const seg = await trx('segments as s').join('episodes as e', 'e.id', 's.episode_id').where({ 's.id': segmentId, 'e.channel_id': member.channel.id }).first('s.id');
+      if (!seg) throw invalidInput({ segmentId: 'That segment is not in this channel.' });
+    }
+    const shotId = input.shotId !== undefined ? input.shotId : segmentId === row.segment_id ? row.shot_id : null;
+    if (shotId !== null) {
+      const shot = await trx('shots').where({ id: shotId, segment_id: segmentId }).whereNull('deleted_at').first('id');
+      if (!shot) throw invalidInput({ shotId: 'That shot is not in this segment.' });
+    }
+    await trx('clips').where({ id: clipId }).update({ segment_id: segmentId, shot_id: shotId });
+  });
+  const { uploadId: _uploadId, ...clip } = await findClip(member.channel.id, clipId);
+  return clip;
 }
 
 /** The clip a finished upload already became, if any: a retried finish must not record it twice. */

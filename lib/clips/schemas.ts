@@ -17,6 +17,18 @@ export const segmentClipsParamsSchema = z.object({ channel: channelSlugSchema, s
 export const clipParamsSchema = z.object({ channel: channelSlugSchema, clipId: z.uuid() });
 export const clipFileQuerySchema = z.object({ download: z.enum(['1'], { error: 'download is 1 or absent.' }).optional() });
 
+/** Tie a clip to a shot (or to none), or move it to another segment of the channel; a move without shotId unties it. */
+export const fileClipSchema = z
+  .strictObject({
+    segmentId: z.uuid({ error: 'segmentId is not a segment.' }).optional(),
+    shotId: z.uuid({ error: 'shotId is a shot id or null.' }).nullable().optional(),
+  })
+  .refine((b) => b.segmentId !== undefined || b.shotId !== undefined, { error: 'Send a segmentId, a shotId, or both.', path: ['shotId'] });
+export type FileClipInput = z.infer<typeof fileClipSchema>;
+
+/** The earlier clip of the channel with the same bytes (same SHA-256), if any. */
+export type DuplicateOfDto = { clipId: string; segmentId: string; episodeId: string; segmentTitle: string; originalName: string };
+
 export type ProbeState = 'pending' | 'done' | 'failed' | 'unavailable';
 
 export type ClipDto = {
@@ -38,4 +50,5 @@ export type ClipDto = {
   codec: string | null;
   hasPoster: boolean;
   createdAt: string;
+  duplicateOf: DuplicateOfDto | null;
 };

@@ -48,6 +48,12 @@ describe('compareToTarget', () => {
     expect(compareToTarget(900, null)).toEqual({ kind: 'no_target' });
   });
 
+  it('gives no verdict while nothing is forecast, so an empty episode is not "under target" (issue 15)', () => {
+    expect(compareToTarget(0, 840)).toEqual({ kind: 'empty' });
+    expect(compareToTarget(0.4, 840)).toEqual({ kind: 'empty' });
+    expect(compareToTarget(1, 840)).toEqual({ kind: 'under', bySeconds: 839 });
+  });
+
   it('treats a zero target as no target', () => {
     expect(compareToTarget(60, 0)).toEqual({ kind: 'no_target' });
   });

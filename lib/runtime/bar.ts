@@ -30,11 +30,14 @@ export function layoutRuntimeBar(
 export type TargetStatus =
   | { kind: 'no_target' }
   | { kind: 'on_target' }
+  /** A target but nothing forecast yet: no verdict, since "under target" would read as good news. */
+  | { kind: 'empty' }
   | { kind: 'over'; bySeconds: number }
   | { kind: 'under'; bySeconds: number };
 
 export function compareToTarget(totalSeconds: number, targetSeconds: number | null): TargetStatus {
   if (targetSeconds === null || targetSeconds <= 0) return { kind: 'no_target' };
+  if (Math.round(totalSeconds) <= 0) return { kind: 'empty' };
   const diff = Math.round(totalSeconds) - Math.round(targetSeconds);
   if (diff > 0) return { kind: 'over', bySeconds: diff };
   if (diff < 0) return { kind: 'under', bySeconds: -diff };

@@ -68,7 +68,7 @@ export async function setSafetyReview(member: Membership, segmentId: string, rev
 
 /** Power-tool segments that have shots and still wait for the Host's review. */
 export async function listPendingSafety(channelId: string, episodeId?: string): Promise<PendingSafetyDto[]> {
-  const rows: { id: string; title: string; episode_id: string; episode_title: string; tools: Tool[] }[] = await db('segments as s')
+  const rows: { id: string; title: string; episode_id: string; episode_title: string; shoot_date: string | null; tools: Tool[] }[] = await db('segments as s')
     .join('episodes as e', 'e.id', 's.episode_id')
     .where('e.channel_id', channelId)
     .whereNull('e.archived_at')
@@ -78,10 +78,10 @@ export async function listPendingSafety(channelId: string, episodeId?: string): 
       if (episodeId) q.where('e.id', episodeId);
     })
     .orderBy([{ column: 'e.title' }, { column: 's.position' }])
-    .select('s.id', 's.title', 's.episode_id', 'e.title as episode_title', 's.tools');
+    .select('s.id', 's.title', 's.episode_id', 'e.title as episode_title', 'e.shoot_date', 's.tools');
   return rows
     .filter((r) => needsSafetyReview(r.tools))
-    .map((r) => ({ segmentId: r.id, segmentTitle: r.title, episodeId: r.episode_id, episodeTitle: r.episode_title, tools: r.tools }));
+    .map((r) => ({ segmentId: r.id, segmentTitle: r.title, episodeId: r.episode_id, episodeTitle: r.episode_title, shootDate: r.shoot_date, tools: r.tools }));
 }
 
 /** Safety of every segment of an episode, keyed by segment id, in one statement. */

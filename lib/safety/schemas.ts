@@ -23,4 +23,4 @@ export type SegmentSafetyDto = {
   reviewedAt: string | null;
 };
 
-export type PendingSafetyDto = { segmentId: string; segmentTitle: string; episodeId: string; episodeTitle: string; tools: Tool[] };
+export type PendingSafetyDto = { segmentId: string; segmentTitle: string; episodeId: string; episodeTitle: string; shootDate: string | null; tools: Tool[] };

@@ -40,6 +40,7 @@ type BoardShotRow = ShotRow & {
   shoot_date: string | null;
   segment_title: string;
   segment_position: string;
+  segment_number: number;
   tools: Tool[];
   safety_reviewed_at: Date | null;
 };
@@ -63,7 +64,9 @@ const shotColumns = [
   'sh.state_changed_at',
   db.raw('(select count(*) from clips cl where cl.shot_id = sh.id)::int as clip_count'),
 ];
-const boardColumns = [...shotColumns, 'e.id as episode_id', 'e.title as episode_title', 'e.shoot_date', 's.title as segment_title', 's.position as segment_position', 's.tools', 's.safety_reviewed_at'];
+// The segment's place in its running order (1-based), so a shot reads as 3.2 wherever segments mix (issue 15).
+const segmentNumber = db.raw('(select count(*)::int from segments as s2 where s2.episode_id = s.episode_id and s2.position <= s.position) as segment_number');
+const boardColumns = [...shotColumns, 'e.id as episode_id', 'e.title as episode_title', 'e.shoot_date', 's.title as segment_title', 's.position as segment_position', segmentNumber, 's.tools', 's.safety_reviewed_at'];
 
 const toShotDto = (r: ShotRow): ShotDto => ({
   id: r.id,
@@ -91,6 +94,7 @@ const toBoardShotDto = (r: BoardShotRow): BoardShotDto => ({
   shootDate: r.shoot_date,
   segmentTitle: r.segment_title,
   segmentPosition: r.segment_position,
+  segmentNumber: r.segment_number,
   tools: r.tools,
   safetyPending: needsSafetyReview(r.tools) && !r.safety_reviewed_at,
 });

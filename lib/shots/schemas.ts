@@ -103,8 +103,13 @@ export type BoardShotDto = ShotDto & {
   shootDate: string | null;
   segmentTitle: string;
   segmentPosition: string;
+  /** The segment's number in its episode's running order, 1 for the first. */
+  segmentNumber: number;
   tools: Tool[];
   safetyPending: boolean;
 };
+
+/** "3.2": segment 3, shot 2. Unique in an episode, where shot numbers alone repeat in every segment. */
+export const shotLabel = (shot: { segmentNumber: number; number: number }) => `${shot.segmentNumber}.${shot.number}`;
 
 export type ShotProgress = { total: number; captured: number; retake: number };

@@ -15,6 +15,24 @@ describe('parseOffersText', () => {
     expect(parseOffersText('sheet', '96 68').error).toMatch(/width x length/);
     expect(parseOffersText('softwood', ' ').error).toMatch(/at least one/);
   });
+  it('reads a list the ways people write one: commas, feet marks, one per line (issue 15)', () => {
+    const eightAndTen = [{ lengthIn: '8 ft' }, { lengthIn: '10 ft' }];
+    expect(parseOffersText('hardwood', '8 ft, 10 ft')).toEqual({ offers: eightAndTen });
+    expect(parseOffersText('hardwood', "8', 10'").offers).toEqual([{ lengthIn: "8'" }, { lengthIn: "10'" }]);
+    expect(parseOffersText('hardwood', "8',10'").offers).toEqual([{ lengthIn: "8'" }, { lengthIn: "10'" }]);
+    expect(parseOffersText('hardwood', '8 ft\r\n10 ft\n').offers).toEqual(eightAndTen);
+    expect(parseOffersText('softwood', "8' 4.50, 10' 6.20").offers).toEqual([
+      { lengthIn: "8'", price: '4.50' },
+      { lengthIn: "10'", price: '6.20' },
+    ]);
+  });
+  it('names the part it did not understand', () => {
+    expect(parseOffersText('hardwood', '8 ft, 10 fet').error).toBe('Could not read “10 fet” as a length: write lengths like 8 ft, 8\' or 96".');
+    expect(parseOffersText('softwood', '8 ft 4.50, ten ft 6.20').error).toBe(
+      'Could not read “ten ft” as a length in “ten ft 6.20”: write lengths like 8 ft, 8\' or 96".',
+    );
+    expect(parseOffersText('sheet', '4 yd x 96 68').error).toMatch(/“4 yd” as a width in “4 yd x 96 68”/);
+  });
   it('round-trips what the rack shows', () => {
     const text = offersToText({
       id: 'x', kind: 'sheet', name: 'n', species: 's', nominal: '3/4', thicknessIn: 0.71875, widthIn: null, pricePerBoardFootCents: null,

@@ -1,29 +1,58 @@
 import type { StockItemDto } from '@/lib/stock/schemas';
-import { formatLength } from '@/lib/units';
+import { formatLength, parseLength } from '@/lib/units';
 
 /**
- * The rack form takes sizes on sale as text, one per line or separated by ";":
- * lumber `8ft 4.50`, hardwood `8ft`, sheets `48 x 96 68.00`. Lengths stay text for the server to parse.
+ * Splits what people type as a list: one per line, or separated by ";" or ",". A comma between two
+ * digits is kept (a decimal comma in a price, "4,50"), so only list commas split.
+ * Common practice, no published source: the ways a crew wrote sizes in issue 15 ("8 ft, 10 ft", "8', 10'").
  */
-export function parseOffersText(kind: StockItemDto['kind'], text: string): { offers: Record<string, string>[]; error?: string } {
-  const lines = text
-    .split(/[;\n]/)
+export function splitOffersList(text: string): string[] {
+  return text
+    .split(/[;\n\r]|(?<!\d),|,(?!\d)/)
     .map((l) => l.trim())
     .filter(Boolean);
+}
+
+const lengthExamples = `like 8 ft, 8' or 96"`;
+
+/** Null when the text reads as a length; otherwise a message that quotes what was not understood. */
+function lengthProblem(part: string, line: string, what = 'a length'): string | null {
+  try {
+    parseLength(part);
+    return null;
+  } catch {
+    const where = part === line ? '' : ` in “${line}”`;
+    return `Could not read “${part}” as ${what}${where}: write lengths ${lengthExamples}.`;
+  }
+}
+
+/**
+ * The rack form takes sizes on sale as text: lumber `8ft 4.50`, hardwood `8ft`, sheets `48 x 96 68.00`,
+ * several separated as splitOffersList reads them. Each length is checked here so the error can name
+ * the one not understood; the server parses them again.
+ */
+export function parseOffersText(kind: StockItemDto['kind'], text: string): { offers: Record<string, string>[]; error?: string } {
+  const lines = splitOffersList(text);
   if (lines.length === 0) return { offers: [], error: 'List at least one size on sale.' };
   const offers: Record<string, string>[] = [];
   for (const line of lines) {
     if (kind === 'hardwood') {
+      const problem = lengthProblem(line, line);
+      if (problem) return { offers, error: problem };
       offers.push({ lengthIn: line });
       continue;
     }
     const m = line.match(/^(.*?)\s*(?:@\s*)?\$?(\d+(?:\.\d{1,2})?)$/);
-    if (!m || !m[1]) return { offers, error: `“${line}”: write a size then a price, like ${kind === 'sheet' ? '48 x 96 68.00' : '8ft 4.50'}.` };
+    if (!m || !m[1]) return { offers, error: `“${line}”: write a size then a price, like ${kind === 'sheet' ? '48 x 96 68.00' : '8 ft 4.50'}.` };
     if (kind === 'sheet') {
       const [w, l] = m[1].split(/\s*[x×]\s*/i);
       if (!w || !l) return { offers, error: `“${line}”: write the sheet as width x length, like 48 x 96.` };
+      const problem = lengthProblem(w, line, 'a width') ?? lengthProblem(l, line);
+      if (problem) return { offers, error: problem };
       offers.push({ widthIn: w, lengthIn: l, price: m[2] ?? '' });
     } else {
+      const problem = lengthProblem(m[1], line);
+      if (problem) return { offers, error: problem };
       offers.push({ lengthIn: m[1], price: m[2] ?? '' });
     }
   }
@@ -38,5 +67,5 @@ export function offersToText(item: StockItemDto): string {
       if ('widthIn' in o) return `${f(o.widthIn)} x ${f(o.lengthIn)} ${price}`;
       return item.kind === 'hardwood' ? `${f(o.lengthIn)}` : `${f(o.lengthIn)} ${price}`;
     })
-    .join('; ');
+    .join('\n');
 }

@@ -47,6 +47,8 @@ import * as handoffsRoute from '@/app/api/channels/[channel]/episodes/[episodeId
 import * as versionNotesRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/handoffs/[version]/notes/route';
 import * as noteRoute from '@/app/api/channels/[channel]/edit-notes/[noteId]/route';
 import * as noteRepliesRoute from '@/app/api/channels/[channel]/edit-notes/[noteId]/replies/route';
+import * as clipRoute from '@/app/api/channels/[channel]/clips/[clipId]/route';
+import { recordClipOnce } from '@/lib/clips/queries';
 import { createNote } from '@/lib/edit/queries';
 import { lockHandoff } from '@/lib/handoffs/queries';
 import { findMembership } from '@/lib/channels/queries';
@@ -60,7 +62,7 @@ import { makeDeal } from './sponsor-fixtures';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'jointIn', 'lengthUnit', 'sizeKey', 'board', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', 'clipId', 'timecode', 'body', 'resolved', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'jointIn', 'lengthUnit', 'sizeKey', 'board', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', 'clipId', 'timecode', 'body', 'resolved', 'shotId', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
@@ -398,6 +400,26 @@ describe('no sponsor body makes a 500', () => {
 });
 
 // Handoff bodies: lock notes, edit stages, edit notes with timecodes right and wrong for 29.97 DF.
+describe('no clip filing body makes a 500 (issue 15)', () => {
+  it('for raw bodies and for segment/shot-shaped bodies', async () => {
+    const ch = crew.channel.slug;
+    const { clipId } = await recordClipOnce({
+      uploadId: `fuzz-${Date.now()}`,
+      segmentId: buildId,
+      shotId: null,
+      uploadedBy: crew.host.id,
+      originalName: 'A001.mp4',
+      mimeType: 'video/mp4',
+      sizeBytes: 10,
+      sha256: 'f'.repeat(64),
+    });
+    const params = { channel: ch, clipId };
+    await assertNo500([['file clip', clipRoute.PATCH, 'PATCH', params, nearMiss]], 40);
+    const id = fc.oneof(fc.constant(buildId), fc.constant(segmentId), fc.constant(shotId), fc.uuid(), fc.constant('x'), fc.constant(null), fc.integer());
+    await assertNo500([['file clip', clipRoute.PATCH, 'PATCH', params, fc.record({ segmentId: id, shotId: id }, { requiredKeys: [] })]], 60);
+  });
+});
+
 describe('no handoff body makes a 500', () => {
   let noteId: string;
   let hEpisodeId: string;

@@ -60,6 +60,16 @@ const cases: RouteCase[] = [
   { name: 'GET clip', fn: clipRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), clipId: (await makeClip(c)).clipId }), okStatus: 200 },
   { name: 'GET clip file', fn: clipFileRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), clipId: (await makeStoredClip(c)).clipId }), okStatus: 200 },
   { name: 'GET clip poster', fn: clipPosterRoute.GET, method: 'GET', allowed: ['host', 'shop_hand', 'editor'], params: async (c) => ({ ...ch(c), clipId: (await makeStoredClip(c)).clipId }), okStatus: 200 },
+  {
+    name: 'PATCH clip (tie to a shot, the shop hand’s own)',
+    fn: clipRoute.PATCH,
+    method: 'PATCH',
+    allowed: ['host', 'shop_hand'],
+    params: async (c) => ({ ...ch(c), clipId: (await makeClip(c)).clipId }),
+    body: () => ({ shotId: null }),
+    badBody: { shotId: 'not-a-shot', extra: 1 },
+    okStatus: 200,
+  },
   { name: 'DELETE clip (the shop hand’s own)', fn: clipRoute.DELETE, method: 'DELETE', allowed: ['host', 'shop_hand'], params: async (c) => ({ ...ch(c), clipId: (await makeClip(c)).clipId }), okStatus: 204 },
 ];
 describeRouteMatrix(cases);
@@ -137,3 +147,99 @@ describe('media jobs', () => {
     expect(await db('clip_jobs').where({ clip_id: clipId })).toHaveLength(0);
   });
 });
+
+describe('filing a clip after the upload (issue 15)', () => {
+  const patch = (c: Crew, as: Crew['host'], clipId: string, body: unknown) => call(clipRoute.PATCH, 'PATCH', { as, params: { ...ch(c), clipId }, body });
+
+  it('the uploader ties their clip to another shot of the segment, then unties it', async () => {
+    const c = await makeCrew();
+    const { clipId, hostShot } = await makeClipWithShots(c);
+    const tied = await patch(c, c.shopHand, clipId, { shotId: hostShot.id });
+    expect(tied.status).toBe(200);
+    expect((tied.json as { clip: ClipDto }).clip).toMatchObject({ id: clipId, shotId: hostShot.id });
+    expect(await db('clips').where({ id: clipId }).first('shot_id')).toEqual({ shot_id: hostShot.id });
+    const untied = await patch(c, c.shopHand, clipId, { shotId: null });
+    expect((untied.json as { clip: ClipDto }).clip.shotId).toBeNull();
+  });
+
+  it('the Host moves any clip to another segment: it leaves its shot unless one of the new segment is named', async () => {
+    const c = await makeCrew();
+    const { clipId, segments, build } = await makeClipWithShots(c);
+    const other = segments.find((s) => s.id !== build.id)!;
+    const moved = await patch(c, c.host, clipId, { segmentId: other.id });
+    expect(moved.status).toBe(200);
+    expect((moved.json as { clip: ClipDto }).clip).toMatchObject({ segmentId: other.id, shotId: null });
+    const list = await call(segmentClipsRoute.GET, 'GET', { as: c.editor, params: { ...ch(c), segmentId: other.id } });
+    expect((list.json as { clips: ClipDto[] }).clips.map((x) => x.id)).toEqual([clipId]);
+  });
+
+  it('refuses a shop hand filing someone else’s clip, and an Editor', async () => {
+    const c = await makeCrew();
+    const { clipId, hostShot } = await makeClipWithShots(c, c.host.id);
+    const res = await patch(c, c.shopHand, clipId, { shotId: hostShot.id });
+    expect(res.status).toBe(403);
+    expect(res.json.error?.message).toMatch(/Host or whoever uploaded/);
+    expect((await patch(c, c.editor, clipId, { shotId: null })).status).toBe(403);
+    expect(await db('clips').where({ id: clipId }).first('shot_id')).not.toEqual({ shot_id: hostShot.id });
+  });
+
+  it('400 naming the field for a shot of another segment or a segment of another channel, and changes nothing', async () => {
+    const c = await makeCrew();
+    const { clipId, shopShot } = await makeClipWithShots(c);
+    const elsewhere = await makeShotEpisode(c);
+    const wrongShot = await patch(c, c.host, clipId, { shotId: elsewhere.shopShot.id });
+    expect(wrongShot.status).toBe(400);
+    expect(wrongShot.json.error?.fields).toHaveProperty('shotId');
+    const outsider = await makeCrew();
+    const foreign = await makeShotEpisode(outsider);
+    const wrongSegment = await patch(c, c.host, clipId, { segmentId: foreign.build.id });
+    expect(wrongSegment.status).toBe(400);
+    expect(wrongSegment.json.error?.fields).toHaveProperty('segmentId');
+    const empty = await patch(c, c.host, clipId, {});
+    expect(empty.status).toBe(400);
+    expect(await db('clips').where({ id: clipId }).first('shot_id')).toEqual({ shot_id: shopShot.id });
+  });
+});
+
+describe('the same bytes twice in a channel (issue 15)', () => {
+  it('the later clip links the earlier one; another channel’s copy is not linked', async () => {
+    const c = await makeCrew();
+    const { build } = await makeShotEpisode(c);
+    const sha256 = hex() + hex();
+    const record = (segmentId: string, name: string, uploadedBy: string) =>
+      recordClipOnce({ uploadId: hex(), segmentId, shotId: null, uploadedBy, originalName: name, mimeType: 'video/mp4', sizeBytes: 99, sha256 });
+    const first = await record(build.id, 'A001.mp4', c.shopHand.id);
+    const second = await record(build.id, 'A001 copy.mp4', c.host.id);
+    const outsider = await makeCrew();
+    const foreign = await makeShotEpisode(outsider);
+    const third = await record(foreign.build.id, 'A001.mp4', outsider.host.id);
+    const res = await call(segmentClipsRoute.GET, 'GET', { as: c.editor, params: { ...ch(c), segmentId: build.id } });
+    const clips = (res.json as { clips: ClipDto[] }).clips;
+    expect(clips.find((x) => x.id === first.clipId)?.duplicateOf).toBeNull();
+    expect(clips.find((x) => x.id === second.clipId)?.duplicateOf).toEqual({
+      clipId: first.clipId,
+      segmentId: build.id,
+      episodeId: expect.any(String),
+      segmentTitle: build.title,
+      originalName: 'A001.mp4',
+    });
+    const theirs = await call(clipRoute.GET, 'GET', { as: outsider.editor, params: { channel: outsider.channel.slug, clipId: third.clipId } });
+    expect((theirs.json as { clip: ClipDto }).clip.duplicateOf).toBeNull();
+  });
+});
+
+/** A clip on the build's shop-hand shot, with the other shot and segments to file it under. */
+async function makeClipWithShots(c: Crew, by = c.shopHand.id) {
+  const shots = await makeShotEpisode(c);
+  const { clipId } = await recordClipOnce({
+    uploadId: hex(),
+    segmentId: shots.build.id,
+    shotId: shots.shopShot.id,
+    uploadedBy: by,
+    originalName: 'B002.mov',
+    mimeType: 'video/quicktime',
+    sizeBytes: 10,
+    sha256: hex() + hex(),
+  });
+  return { clipId, ...shots };
+}

@@ -39,7 +39,15 @@ describe('pages answer real 404 and 403 statuses (issue 12 item 15)', () => {
 
   it('an Editor gets 403 on the new-episode page; a Host gets it', async () => {
     const crew = await makeCrew();
-    expect((await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.editor))).status).toBe(403);
+    const refused = await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.editor));
+    expect(refused.status).toBe(403);
+    // Issue 15: the refusal comes inside the channel's app shell (its navigation) as the not-allowed page. A 403
+    // is streamed as Next's error document plus the React payload, so the payload is what names them; the
+    // rendered words are checked in the browser (tests/e2e/first-hour.spec.ts).
+    const html = await refused.text();
+    expect(html).toContain('NEXT_HTTP_ERROR_FALLBACK;403');
+    expect(html).toContain('NavLinks');
+    expect(html).toContain('NotAllowed');
     expect((await page(`/c/${crew.channel.slug}/episodes/new`, await sessionCookie(crew.host))).status).toBe(200);
   });
 

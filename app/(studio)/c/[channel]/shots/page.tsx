@@ -23,9 +23,11 @@ type Props = {
 export default async function ShotsPage({ params, searchParams }: Props) {
   const member = await requireMember((await params).channel);
   const query = await searchParams;
-  const view = viewOf(query);
   const { channel, user } = member;
   const canChange = can(member.role, 'shots.changeState');
+  // Shots are assigned only to roles that may work on them; an Editor has no "My shots" to promise (issue 15).
+  const holdsShots = can(member.role, 'shots.editAssigned');
+  const view = holdsShots ? viewOf(query) : 'board';
 
   if (view === 'mine') {
     const shots = await listMyShots(channel.id, member.userId);
@@ -58,7 +60,7 @@ export default async function ShotsPage({ params, searchParams }: Props) {
       <PageHeader title="Shots">
         {canChange ? 'Every planned shot by state. Drag a card by its handle, or use the buttons on a phone.' : 'Every planned shot by state.'}
       </PageHeader>
-      <ViewTabs slug={channel.slug} current="board" />
+      {holdsShots ? <ViewTabs slug={channel.slug} current="board" /> : null}
       <ShopBoard
         slug={channel.slug}
         viewerName={user.name}

@@ -2,13 +2,14 @@ import type { Metadata } from 'next';
 import { StockRack } from '@/components/stock/stock-rack';
 import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/policy';
+import { pageAccess } from '@/lib/auth/page-access';
 import { requireMember } from '@/lib/auth/session';
 import { getCutSettings, listStock } from '@/lib/stock/queries';
 
 export const metadata: Metadata = { title: 'Stock rack' };
 
 export default async function StockPage({ params }: { params: Promise<{ channel: string }> }) {
-  const member = await requireMember((await params).channel, 'cutlist.read');
+  const member = await requireMember((await params).channel, pageAccess.stockRack.capability);
   const [stock, settings] = await Promise.all([listStock(member.channel.id), getCutSettings(member.channel.id)]);
   const canEdit = can(member.role, 'cutlist.edit');
   return (

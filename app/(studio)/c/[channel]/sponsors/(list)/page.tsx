@@ -6,6 +6,7 @@ import { PipelineTable } from '@/components/sponsors/pipeline-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/policy';
+import { pageAccess } from '@/lib/auth/page-access';
 import { requireMember } from '@/lib/auth/session';
 import { dayOf } from '@/lib/sponsors/dates';
 import { listChannelDeliverablesForEditor } from '@/lib/sponsors/deliverable-queries';
@@ -14,7 +15,7 @@ import { getPipeline, listDeals, listSponsors } from '@/lib/sponsors/queries';
 export const metadata: Metadata = { title: 'Sponsors' };
 
 export default async function SponsorsPage({ params }: { params: Promise<{ channel: string }> }) {
-  const member = await requireMember((await params).channel, 'sponsors.readDisclosure');
+  const member = await requireMember((await params).channel, pageAccess.sponsors.capability);
   if (!can(member.role, 'sponsors.manage')) {
     const deliverables = await listChannelDeliverablesForEditor(member.channel.id);
     return (

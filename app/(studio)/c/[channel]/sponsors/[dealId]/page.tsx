@@ -4,6 +4,7 @@ import { DealTermsForm } from '@/components/sponsors/deal-terms-form';
 import { DeleteDealButton } from '@/components/sponsors/delete-deal-button';
 import { DeliverableCard } from '@/components/sponsors/deliverable-card';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
+import { pageAccess } from '@/lib/auth/page-access';
 import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
@@ -16,7 +17,7 @@ export const metadata: Metadata = { title: 'Sponsor deal' };
 
 export default async function DealPage({ params }: { params: Promise<{ channel: string; dealId: string }> }) {
   const { channel, dealId } = await params;
-  const member = await requireMember(channel, 'sponsors.manage');
+  const member = await requireMember(channel, pageAccess.sponsorDeal.capability);
   const [deal, episodes, crew] = await orNotFound(
     Promise.all([findDeal(member.channel.id, uuidOr404(dealId), member.channel.speakingRateWpm), listEpisodeChoices(member.channel.id), listCrew(member.channel.id)]),
   );

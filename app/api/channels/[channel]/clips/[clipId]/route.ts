@@ -1,6 +1,6 @@
 import { noContent, route } from '@/lib/api/handler';
-import { deleteClipRow, findClip } from '@/lib/clips/queries';
-import { clipParamsSchema } from '@/lib/clips/schemas';
+import { deleteClipRow, fileClip, findClip } from '@/lib/clips/queries';
+import { clipParamsSchema, fileClipSchema } from '@/lib/clips/schemas';
 import { clipStore } from '@/storage/tus-server';
 
 export const GET = route({ params: clipParamsSchema, channel: 'clips.read' }, async ({ member, params }) => {
@@ -16,3 +16,9 @@ export const DELETE = route({ params: clipParamsSchema, channel: 'clips.deleteOw
   await Promise.all([store.remove(uploadId), store.removePoster(params.clipId)]).catch((err: unknown) => console.error('clip file removal', err));
   return noContent();
 });
+
+// Tie the clip to a shot or move it to another segment. The route lets anyone who uploads in; fileClip
+// then holds a Shop hand to their own uploads (lib/clips/policy.ts, mayFileClip).
+export const PATCH = route({ params: clipParamsSchema, body: fileClipSchema, channel: 'clips.upload' }, async ({ member, params, body }) => ({
+  clip: await fileClip(member, params.clipId, body),
+}));

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { EpisodeDangerZone } from '@/components/episodes/episode-danger-zone';
 import { EpisodeForm } from '@/components/episodes/episode-form';
 import { PageHeader } from '@/components/ui/page-header';
+import { pageAccess } from '@/lib/auth/page-access';
 import { requireMember } from '@/lib/auth/session';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { getRunningOrder } from '@/lib/segments/queries';
@@ -10,7 +11,7 @@ export const metadata: Metadata = { title: 'Edit episode' };
 
 export default async function EditEpisodePage({ params }: { params: Promise<{ channel: string; episodeId: string }> }) {
   const { channel, episodeId } = await params;
-  const member = await requireMember(channel, 'episodes.edit');
+  const member = await requireMember(channel, pageAccess.editEpisode.capability);
   const runningOrder = await orNotFound(getRunningOrder(member, uuidOr404(episodeId)));
   return (
     <>

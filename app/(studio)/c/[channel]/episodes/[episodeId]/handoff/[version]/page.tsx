@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { HandoffView } from '@/components/handoff/handoff-view';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
+import { pageAccess } from '@/lib/auth/page-access';
 import { requireMember } from '@/lib/auth/session';
 import { getHandoffPage } from '@/lib/handoffs/page-data';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
@@ -14,7 +15,7 @@ const versionOf = (raw: string | undefined): number | undefined => (raw && /^\d{
 
 export default async function HandoffPage({ params, searchParams }: Props) {
   const { channel, episodeId, version } = await params;
-  const member = await requireMember(channel, 'handoff.read');
+  const member = await requireMember(channel, pageAccess.handoff.capability);
   const v = versionOf(version);
   if (v === undefined) notFound();
   const since = (await searchParams).since;

@@ -17,7 +17,7 @@ import { listCrew } from '@/lib/crew/queries';
 import { listSegmentParts } from '@/lib/parts/queries';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
 import { formatDuration, spokenSeconds } from '@/lib/runtime';
-import { findSegment } from '@/lib/segments/queries';
+import { findSegment, getRunningOrder } from '@/lib/segments/queries';
 import { kindLabels } from '@/lib/segments/schemas';
 import { getScript } from '@/lib/scripts/queries';
 import { listSegmentShots } from '@/lib/shots/queries';
@@ -36,7 +36,7 @@ type Params = { channel: string; episodeId: string; segmentId: string };
 export default async function SegmentPage({ params }: { params: Promise<Params> }) {
   const { channel, episodeId, segmentId } = await params;
   const member = await requireMember(channel);
-  const [episode, segment, script, shots, safety, crew, clips] = await orNotFound(
+  const [episode, segment, script, shots, safety, crew, clips, order] = await orNotFound(
     Promise.all([
       findEpisode(member.channel.id, uuidOr404(episodeId)),
       findSegment(member.channel.id, uuidOr404(segmentId)),
@@ -45,6 +45,8 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
       getSegmentSafety(member.channel.id, segmentId),
       listCrew(member.channel.id),
       listSegmentClips(member.channel.id, segmentId),
+      // The segments a clip can be moved to (issue 15).
+      getRunningOrder(member, uuidOr404(episodeId)),
     ]),
   );
   if (segment.episodeId !== episode.id) notFound();
@@ -126,6 +128,7 @@ export default async function SegmentPage({ params }: { params: Promise<Params> 
             segmentId={segment.id}
             initialClips={clips}
             initialShots={shots}
+            segments={order.segments.map((s, i) => ({ id: s.id, label: `${i + 1}. ${s.title}` }))}
           />
         </div>
       </section>

@@ -9,6 +9,7 @@ import * as byteRemovals from './20261212000001_byte_removals';
 import * as sessionsAndLimits from './20261213000000_sessions_and_limits';
 import * as sponsors from './20261214000000_sponsors';
 import * as handoffs from './20261215000000_handoffs';
+import * as sponsorKeepsDeals from './20261217000000_sponsor_keeps_deals';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -25,6 +26,7 @@ const migrations: Record<string, Migration> = {
   '20261213000000_sessions_and_limits': sessionsAndLimits,
   '20261214000000_sponsors': sponsors,
   '20261215000000_handoffs': handoffs,
+  '20261217000000_sponsor_keeps_deals': sponsorKeepsDeals,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

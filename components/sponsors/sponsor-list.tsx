@@ -16,7 +16,7 @@ export function SponsorList({ channelSlug, sponsors }: { channelSlug: string; sp
       {sponsors.length === 0 ? (
         <EmptyState title="No sponsors yet">A sponsor is added with its first deal, below.</EmptyState>
       ) : (
-        <ul className="grid gap-3 lg:grid-cols-2">
+        <ul className="max-w-3xl space-y-3">
           {sponsors.map((s) => (
             <SponsorItem key={s.id} channelSlug={channelSlug} sponsor={s} />
           ))}

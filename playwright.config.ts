@@ -15,7 +15,14 @@ const PASSED_ENV = [
 ] as const;
 
 function serverEnv(): Record<string, string> {
-  const env: Record<string, string> = { NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1' };
+  const env: Record<string, string> = {
+    NODE_ENV: 'production',
+    NEXT_TELEMETRY_DISABLED: '1',
+    // The e2e app only: tests move its clock through app_meta (tests/e2e/test-clock.ts) instead of sleeping,
+    // and the reminder worker looks every second so a moved clock shows up as mail within moments.
+    KERFLINE_TEST_CLOCK: '1',
+    REMINDER_POLL_MS: '1000',
+  };
   for (const name of PASSED_ENV) {
     const value = process.env[name];
     if (value !== undefined) env[name] = value;

@@ -85,11 +85,13 @@ export function RunningOrderList({ channelSlug, initialRunningOrder }: { channel
   }
 
   const active = activeId ? segments.find((s) => s.id === activeId) : undefined;
+  const changedIds = new Set(runningOrder.changedSinceApproval);
   const itemProps = (segmentId: string, index: number) => ({
     channelSlug,
     episode,
     forecast: forecastById.get(segmentId),
     shotProgress: runningOrder.shotProgress[segmentId],
+    changedSinceApproval: changedIds.has(segmentId),
     position: index + 1,
   });
 

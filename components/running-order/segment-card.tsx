@@ -23,6 +23,8 @@ type ItemProps = {
   segment: SegmentDto;
   forecast: SegmentForecast | undefined;
   shotProgress: ShotProgress | undefined;
+  /** A sponsor read whose script changed after the sponsor approved it. */
+  changedSinceApproval: boolean;
   position: number;
 };
 
@@ -102,6 +104,7 @@ function SegmentCardBody({
   segment,
   forecast,
   shotProgress,
+  changedSinceApproval,
   position,
   handle,
   actions,
@@ -150,6 +153,11 @@ function SegmentCardBody({
         </p>
         <div className="flex flex-wrap items-center gap-x-3 gap-y-1 sm:col-start-1 sm:row-start-2">
           <ScriptBadge hasScript={segment.hasScript} />
+          {changedSinceApproval ? (
+            <span data-approval="changed">
+              <Badge tone="attention">Changed since approval</Badge>
+            </span>
+          ) : null}
           <ShotProgressLine progress={shotProgress} />
         </div>
       </div>

@@ -3,6 +3,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { apiFetch } from '@/lib/api/client';
+import { channelApi } from '@/lib/api/paths';
 import type { DealDto, DueDateKind, SponsorDto } from '@/lib/sponsors/schemas';
 
 /**
@@ -16,6 +17,15 @@ export function useSponsorMutations(slug: string) {
   return {
     createSponsor: useMutation({
       mutationFn: (body: Record<string, unknown>) => apiFetch<{ sponsor: SponsorDto }>(`${base}/sponsors`, { method: 'POST', body }),
+    }),
+    updateSponsor: useMutation({
+      mutationFn: (v: { sponsorId: string; body: Record<string, unknown> }) =>
+        apiFetch<{ sponsor: SponsorDto }>(channelApi(slug, 'sponsors', v.sponsorId), { method: 'PATCH', body: v.body }),
+      onSuccess: refresh,
+    }),
+    deleteSponsor: useMutation({
+      mutationFn: (sponsorId: string) => apiFetch<void>(channelApi(slug, 'sponsors', sponsorId), { method: 'DELETE' }),
+      onSuccess: refresh,
     }),
     createDeal: useMutation({
       mutationFn: (body: Record<string, unknown>) => apiFetch<{ deal: DealDto }>(`${base}/deals`, { method: 'POST', body }),

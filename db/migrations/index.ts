@@ -10,6 +10,7 @@ import * as sessionsAndLimits from './20261213000000_sessions_and_limits';
 import * as sponsors from './20261214000000_sponsors';
 import * as handoffs from './20261215000000_handoffs';
 import * as jointAllowance from './20261216000000_joint_allowance';
+import * as sponsorKeepsDeals from './20261217000000_sponsor_keeps_deals';
 import * as clipCrc32 from './20261218000000_clip_crc32';
 import * as clipsSha256Index from './20261219000000_clips_sha256_index';
 import * as shoppingBoardTicks from './20261220000000_shopping_board_ticks';
@@ -30,6 +31,7 @@ const migrations: Record<string, Migration> = {
   '20261214000000_sponsors': sponsors,
   '20261215000000_handoffs': handoffs,
   '20261216000000_joint_allowance': jointAllowance,
+  '20261217000000_sponsor_keeps_deals': sponsorKeepsDeals,
   '20261218000000_clip_crc32': clipCrc32,
   '20261219000000_clips_sha256_index': clipsSha256Index,
   '20261220000000_shopping_board_ticks': shoppingBoardTicks,

@@ -89,6 +89,7 @@ describe('reorderRunningOrder', () => {
     speakingRateWpm: 150,
     canEdit: true,
     shotProgress: {},
+    changedSinceApproval: [],
   } satisfies RunningOrderDto;
 
   it('reorders segments and recomputes start times at the speaking rate', () => {

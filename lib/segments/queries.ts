@@ -9,6 +9,7 @@ import { threeLevelBuild } from '@/lib/episodes/starter';
 import { invalidInput, notFound } from '@/lib/errors';
 import { forecastEpisode } from '@/lib/runtime';
 import { shotProgressForEpisode } from '@/lib/shots/shared-queries';
+import { listChangedReadSegmentIds } from '@/lib/sponsors/deliverable-queries';
 import type { RunningOrderDto, CreateSegmentInput, Level, SegmentDto, SegmentKind, UpdateSegmentInput } from './schemas';
 
 type SegmentRow = {
@@ -50,13 +51,15 @@ const toSegmentDto = (r: SegmentRow): SegmentDto => ({
   scriptVersion: r.script_version,
 });
 
-/** The whole running order in three statements, however many segments the episode has. */
+/** The whole running order in four statements, however many segments the episode has. */
 export async function getRunningOrder(member: Membership, episodeId: string): Promise<RunningOrderDto> {
   // The episode lookup is the channel check; the other two only run once it passed.
   const episode = await findEpisode(member.channel.id, episodeId);
-  const [rows, shotProgress]: [SegmentRow[], RunningOrderDto['shotProgress']] = await Promise.all([
+  const [rows, shotProgress, changed]: [SegmentRow[], RunningOrderDto['shotProgress'], string[]] = await Promise.all([
     db('segments as s').where('s.episode_id', episodeId).orderBy('s.position').select(segmentColumns),
     shotProgressForEpisode(episodeId),
+    // Approval state is sponsor business: only who reads sponsor reads sees it on the cards.
+    can(member.role, 'sponsors.readDisclosure') ? listChangedReadSegmentIds(member.channel.id, episodeId) : Promise.resolve([]),
   ]);
   const segments = rows.map(toSegmentDto);
   const wpm = member.channel.speakingRateWpm;
@@ -67,6 +70,7 @@ export async function getRunningOrder(member: Membership, episodeId: string): Pr
     speakingRateWpm: wpm,
     canEdit: can(member.role, 'episodes.edit'),
     shotProgress,
+    changedSinceApproval: changed,
   };
 }
 

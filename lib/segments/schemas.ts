@@ -64,4 +64,6 @@ export type RunningOrderDto = {
   canEdit: boolean;
   /** By segment id; a segment without live shots has no entry. */
   shotProgress: Record<string, ShotProgress>;
+  /** Ids of sponsor-read segments whose script changed after the sponsor approved it; empty for who may not read sponsor reads. */
+  changedSinceApproval: string[];
 };

@@ -302,12 +302,22 @@ export async function listEpisodeChoices(channelId: string): Promise<{ id: strin
   return [...out.values()];
 }
 
+/** Approved at one script version, and the read's script saved since: the SQL twin of `changedSinceApproval`. */
+const onlyChangedSinceApproval = (q: Knex.QueryBuilder) =>
+  q.whereNotNull('x.approved_script_version').whereNotNull('x.segment_id').whereRaw('s.script_version is distinct from x.approved_script_version');
+
 /** Deliverables whose read changed after the sponsor approved it (dashboard). */
 export async function listChangedSinceApproval(channelId: string): Promise<(EditorDeliverableDto & { dealId: string })[]> {
-  const rows: DeliverableRow[] = await deliverablesQuery(channelId)
-    .whereNotNull('x.approved_script_version')
-    .whereRaw('s.script_version is distinct from x.approved_script_version')
-    .whereNotNull('x.segment_id')
-    .select(deliverableColumns);
+  const rows: DeliverableRow[] = await deliverablesQuery(channelId).modify(onlyChangedSinceApproval).select(deliverableColumns);
   return rows.map((r) => ({ ...toEditorDto(r), dealId: r.deal_id }));
+}
+
+/** The segments of one episode whose sponsor read changed since approval (running order), in one statement. */
+export async function listChangedReadSegmentIds(channelId: string, episodeId: string): Promise<string[]> {
+  const rows: { segment_id: string }[] = await deliverablesQuery(channelId)
+    .clearOrder()
+    .where('x.episode_id', episodeId)
+    .modify(onlyChangedSinceApproval)
+    .distinct('x.segment_id');
+  return rows.map((r) => r.segment_id);
 }

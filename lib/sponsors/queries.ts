@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/client';
-import { invalidInput, notFound } from '@/lib/errors';
+import { conflict, invalidInput, notFound } from '@/lib/errors';
 import { dayOf } from './dates';
 import { refreshPaymentDue } from './due-date-queries';
 import { pipelineByMonth, type PipelineMonth } from './pipeline';
@@ -15,6 +15,7 @@ import {
   type InvoiceState,
   type SponsorContact,
   type SponsorDto,
+  type SponsorWithDealsDto,
   type UpdateDealInput,
   type UpdateSponsorInput,
 } from './schemas';
@@ -29,6 +30,37 @@ export const toSponsorDto = (r: SponsorRow): SponsorDto => ({ id: r.id, name: r.
 export async function listSponsors(channelId: string): Promise<SponsorDto[]> {
   const rows: SponsorRow[] = await db('sponsors').where({ channel_id: channelId }).orderBy('name').select('id', 'name', 'contacts', 'notes');
   return rows.map(toSponsorDto);
+}
+
+/** The channel's sponsors with how many deals each holds (a sponsor with none may be deleted). */
+export async function listSponsorsWithDeals(channelId: string): Promise<SponsorWithDealsDto[]> {
+  const rows: (SponsorRow & { deal_count: number })[] = await db('sponsors as s')
+    .where({ 's.channel_id': channelId })
+    .orderBy('s.name')
+    .select('s.id', 's.name', 's.contacts', 's.notes', db.raw('(select count(*)::int from sponsor_deals d where d.sponsor_id = s.id) as deal_count'));
+  return rows.map((r) => ({ ...toSponsorDto(r), dealCount: r.deal_count }));
+}
+
+const HAS_DEALS = 'This sponsor still has deals. Delete its deals first.';
+
+/**
+ * Deletes a sponsor that holds no deals. The row lock keeps a deal from being booked between the check
+ * and the delete; the foreign key (no cascade, migration 20261217000000) refuses if one slipped in anyway.
+ */
+export async function deleteSponsor(channelId: string, sponsorId: string): Promise<void> {
+  try {
+    await db.transaction(async (trx) => {
+      const row = await trx('sponsors').where({ id: sponsorId, channel_id: channelId }).forUpdate().first('id');
+      if (!row) throw notFound('That sponsor');
+      const deal = await trx('sponsor_deals').where({ sponsor_id: sponsorId }).first('id');
+      if (deal) throw conflict(HAS_DEALS);
+      await trx('sponsors').where({ id: sponsorId }).delete();
+    });
+  } catch (err) {
+    // Source: PostgreSQL error codes, 23503 foreign_key_violation.
+    if ((err as { code?: string }).code === '23503') throw conflict(HAS_DEALS);
+    throw err;
+  }
 }
 
 export async function findSponsor(channelId: string, sponsorId: string, trx: Knex | Knex.Transaction = db): Promise<SponsorDto> {
@@ -84,8 +116,7 @@ export const dealColumns = ['d.id', 'd.sponsor_id', 'd.title', 'd.fee_minor', 'd
 export async function createDeal(channelId: string, input: CreateDealInput): Promise<{ id: string }> {
   const sponsor = await db('sponsors').where({ id: input.sponsorId, channel_id: channelId }).first('id');
   if (!sponsor) throw invalidInput({ sponsorId: 'Choose a sponsor of this channel.' });
-  const [row] = await db('sponsor_deals')
-    .insert({
+  const [row] = await insertDealOrRefuse({
       channel_id: channelId,
       sponsor_id: input.sponsorId,
       title: input.title,
@@ -96,10 +127,20 @@ export async function createDeal(channelId: string, input: CreateDealInput): Pro
       invoice_sent_on: input.invoiceSentOn,
       paid_on: input.paidOn,
       notes: input.notes,
-    })
-    .returning<{ id: string }[]>(['id']);
+  });
   if (!row) throw new Error('deal insert returned no row');
   return row;
+}
+
+/** A sponsor deleted since the check above makes the foreign key refuse: that is the user's 400, not a 500. */
+async function insertDealOrRefuse(values: Record<string, unknown>): Promise<{ id: string }[]> {
+  try {
+    return await db('sponsor_deals').insert(values).returning<{ id: string }[]>(['id']);
+  } catch (err) {
+    // Source: PostgreSQL error codes, 23503 foreign_key_violation.
+    if ((err as { code?: string }).code === '23503') throw invalidInput({ sponsorId: 'Choose a sponsor of this channel.' });
+    throw err;
+  }
 }
 
 /** Locks the deal row: every change to a deal's terms goes through here, one at a time. */
@@ -194,8 +235,8 @@ function dealListRows(channelId: string, filter: DealListQuery): Promise<DealLis
     );
 }
 
-export async function getPipeline(channelId: string): Promise<PipelineMonth[]> {
-  const rows = await dealListRows(channelId, {});
+export async function getPipeline(channelId: string, filter: Pick<DealListQuery, 'episodeId'> = {}): Promise<PipelineMonth[]> {
+  const rows = await dealListRows(channelId, filter);
   return pipelineByMonth(
     rows.map((r) => ({
       feeMinor: Number(r.fee_minor),
@@ -207,4 +248,13 @@ export async function getPipeline(channelId: string): Promise<PipelineMonth[]> {
       createdOn: dayOf(r.created_at),
     })),
   );
+}
+
+/** Episodes that carry at least one deliverable, for the Sponsors page's episode filter. */
+export async function listSponsoredEpisodes(channelId: string): Promise<{ id: string; title: string }[]> {
+  return db('episodes as e')
+    .where('e.channel_id', channelId)
+    .whereExists(db('deliverables as x').whereRaw('x.episode_id = e.id'))
+    .orderBy([{ column: 'e.publish_date', order: 'asc', nulls: 'last' }, { column: 'e.title' }])
+    .select('e.id', 'e.title');
 }

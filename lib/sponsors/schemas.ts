@@ -207,6 +207,7 @@ export const dealListQuerySchema = z.strictObject({
 export type DealListQuery = z.infer<typeof dealListQuerySchema>;
 
 export type SponsorDto = { id: string; name: string; contacts: SponsorContact[]; notes: string };
+export type SponsorWithDealsDto = SponsorDto & { dealCount: number };
 
 export type DueDateEventDto = { action: 'set' | 'done' | 'reopened'; dueOn: string | null; at: string; byName: string | null };
 export type DueDateDto = {

@@ -11,7 +11,9 @@ export const START_DEB_PACKAGES = ['postgresql', 'ffmpeg'];
 export const SWIFT_DEB_PACKAGES = ['swift', 'swift-proxy', 'swift-object', 'swift-container', 'swift-account', 'memcached'];
 
 /** `npm test` without the browser: everything start needs, plus Swift for the S3 clip store tests. */
-export const INTEGRATION_DEB_PACKAGES = [...START_DEB_PACKAGES, ...SWIFT_DEB_PACKAGES];
+// python3-icalendar: a second, independent reader of the calendar feed in tests/integration/calendar-feed.test.ts
+// (one small package; its dependencies come with Debian's python3).
+export const INTEGRATION_DEB_PACKAGES = [...START_DEB_PACKAGES, ...SWIFT_DEB_PACKAGES, 'python3-icalendar'];
 
 /** `npm test` needs all of that, plus a browser for Playwright (/usr/bin/chromium). */
 export const TEST_DEB_PACKAGES = [...INTEGRATION_DEB_PACKAGES, 'chromium'];

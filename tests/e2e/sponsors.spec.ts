@@ -55,7 +55,7 @@ test('a host books a read on the demo episode, sees placement follow the running
   await expectAccessible(page);
   const dealUrl = page.url();
 
-  const { read, advanced, before } = await demoRunningOrder(page);
+  const { episode, read, advanced, before } = await demoRunningOrder(page);
   try {
     expect((await page.request.put(`${api}/segments/${read.id}/position`, { headers: sameOrigin, data: { afterId: advanced.id } })).status()).toBe(200);
     await page.goto(dealUrl);
@@ -90,6 +90,11 @@ test('a host books a read on the demo episode, sees placement follow the running
   expect((await page.request.put(`${api}/segments/${read.id}/script`, { headers: sameOrigin, data: { doc: edited, baseVersion: script.version } })).status()).toBe(200);
   await page.goto(dealUrl);
   await expect(page.locator('[data-approval="changed"]')).toBeVisible();
+  // The running order flags the read's card, and only that card.
+  await page.goto(`/c/${DEMO_SLUG}/episodes/${episode.id}`);
+  await expect(page.getByRole('article', { name: read.title }).getByText('Changed since approval')).toBeVisible();
+  await expect(page.getByText('Changed since approval')).toHaveCount(1);
+  await expectAccessible(page);
   await page.goto(`/c/${DEMO_SLUG}`);
   await expect(page.getByRole('heading', { name: 'Changed since approval' })).toBeVisible();
   await expectAccessible(page);

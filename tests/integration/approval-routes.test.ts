@@ -1,10 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import * as linkRoute from '@/app/api/channels/[channel]/approval-links/[linkId]/route';
 import * as dealRoute from '@/app/api/channels/[channel]/deals/[dealId]/route';
+import * as runningOrderRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/running-order/route';
 import * as sendRoute from '@/app/api/channels/[channel]/deliverables/[deliverableId]/approval-links/route';
 import * as approvalRoute from '@/app/api/approvals/[token]/route';
 import { db } from '@/db/client';
 import { sendApprovalLink } from '@/lib/approvals/queries';
+import type { RunningOrderDto } from '@/lib/segments/schemas';
 import type { DealDto } from '@/lib/sponsors/schemas';
 import { call, makeCrew, uniqueEmail } from './helpers';
 import { PEER_HEADER } from '@/lib/http/peer';
@@ -45,7 +47,9 @@ const view = (token: string, ip = '203.0.113.7') => call(approvalRoute.GET, 'GET
 describe('sponsor approval link', () => {
   it('shows the read without sign-in, records the approved script version once, and flags a later change', async () => {
     const c = await makeCrew();
-    const { token, read, deal, mail } = await linkFor(c);
+    const { token, read, deal, mail, episode } = await linkFor(c);
+    const changedOnBoard = async (as: Crew['host']) =>
+      ((await call(runningOrderRoute.GET, 'GET', { as, params: { ...ch(c), episodeId: episode.id } })).json as RunningOrderDto).changedSinceApproval;
     expect(mail.subject).toContain('Bramblewick Abrasives');
     const saved = await writeScript(c, read.id, 'This video is sponsored by Bramblewick. Use code KERF10.', read.scriptVersion);
     const shown = await view(token);
@@ -68,10 +72,15 @@ describe('sponsor approval link', () => {
     expect(d.approval).toMatchObject({ approvedScriptVersion: saved.version, changedSinceApproval: false });
     expect(d.dueDates.find((x) => x.kind === 'approval_due')!.doneAt).not.toBeNull();
     expect(d.approvalLinks[0]).toMatchObject({ decision: 'approved', scriptVersion: saved.version });
+    expect(await changedOnBoard(c.host)).toEqual([]);
 
     await writeScript(c, read.id, 'This video is sponsored by Bramblewick. Use code KERF10 today.', saved.version);
     const changed = (await call(dealRoute.GET, 'GET', { as: c.host, params: { ...ch(c), dealId: deal.id } })).json.deal as DealDto;
     expect(changed.deliverables[0]!.approval.changedSinceApproval).toBe(true);
+    // The running order flags the read's card for who reads sponsor reads, and hides it from the shop.
+    expect(await changedOnBoard(c.host)).toEqual([read.id]);
+    expect(await changedOnBoard(c.editor)).toEqual([read.id]);
+    expect(await changedOnBoard(c.shopHand)).toEqual([]);
   });
 
   it('asks for a comment with Request changes', async () => {

@@ -1,3 +1,5 @@
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
 import * as feedRoute from '@/app/api/calendar/[token]/route';
@@ -43,6 +45,23 @@ function parse(text: string): Parsed[] {
       alarms: v.getAllSubcomponents('valarm').map((a) => String(a.getFirstPropertyValue('trigger'))),
     };
   });
+}
+
+type PyDay = { type: 'date' | 'date-time'; value: string; utc?: boolean };
+type PyEvent = { uid: string; summary: string; start: PyDay; stamp: PyDay; sequence: number; alarms: number[] };
+
+// Debian's python3-icalendar, installed by scripts/lib/install.mjs for npm test; skipped where it is missing
+// (not Debian).
+// Debian's own interpreter: a python3 earlier on PATH (pyenv, a venv) does not see Debian's packages.
+const PYTHON = '/usr/bin/python3';
+const PARSE_ICS = path.join(__dirname, '..', 'support', 'parse-ics.py');
+const hasPythonIcalendar = spawnSync(PYTHON, ['-c', 'import icalendar'], { stdio: 'ignore' }).status === 0;
+
+/** Reads the feed with python3-icalendar, a second reader independent of ical.js. */
+function parseWithPython(text: string): { version: string; prodid: string; events: PyEvent[] } {
+  const run = spawnSync(PYTHON, [PARSE_ICS], { input: text, encoding: 'utf8' });
+  if (run.status !== 0) throw new Error(`python3-icalendar refused the feed: ${run.stderr}`);
+  return JSON.parse(run.stdout) as { version: string; prodid: string; events: PyEvent[] };
 }
 
 describe('calendar feed', () => {
@@ -110,5 +129,29 @@ describe('calendar feed', () => {
     expect((await readFeed(second)).status).toBe(200);
     expect((await call(myFeedRoute.DELETE, 'DELETE', { as: c.host })).status).toBe(204);
     expect((await readFeed(second)).status).toBe(404);
+  });
+
+  it.skipIf(!hasPythonIcalendar)('reads the same events with python3-icalendar as with ical.js: all-day dates, UTC stamps, alarms', async () => {
+    const c = await makeCrew();
+    const { episode, deliverable } = await makeDeal(c);
+    await updateEpisode(c.channel.id, episode.id, { shootDate: '2027-02-10', publishDate: '2027-03-20' });
+    await updateDueDate(c.channel.id, deliverable.id, 'script_due', { dueOn: '2027-03-03' }, c.host.id);
+    const { text } = await readFeed(await feedUrl(c.host));
+    const py = parseWithPython(text);
+    expect(py.version).toBe('2.0');
+    const fromIcalJs = parse(text);
+    expect(py.events.map((e) => e.uid).sort()).toEqual(fromIcalJs.map((e) => e.uid).sort());
+    const due: { id: string }[] = await db('due_dates').where({ deliverable_id: deliverable.id, kind: 'script_due' }).select('id');
+    const script = py.events.find((e) => e.uid === `due-${due[0]!.id}@kerfline`)!;
+    // Source: RFC 5545 §3.3.4 (VALUE=DATE) and §3.8.7.2 (DTSTAMP in UTC).
+    expect(script).toMatchObject({ summary: 'Script due: Bramblewick Abrasives (Walnut step stool)', start: { type: 'date', value: '2027-03-03' } });
+    expect(script.sequence).toBe(fromIcalJs.find((e) => e.uid === script.uid)!.sequence);
+    for (const e of py.events) {
+      expect(e.stamp, e.uid).toMatchObject({ type: 'date-time', utc: true });
+      expect(e.start.type, e.uid).toBe('date');
+      // The channel's default reminder days, 3 and 1, as alarms that many days before.
+      expect(e.alarms, e.uid).toEqual([-3 * 86_400, -1 * 86_400]);
+    }
+    expect(py.events.find((e) => e.uid === `shoot-${episode.id}@kerfline`)).toMatchObject({ start: { type: 'date', value: '2027-02-10' } });
   });
 });

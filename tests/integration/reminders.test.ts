@@ -3,7 +3,8 @@ import { db } from '@/db/client';
 import { sendDueReminders } from '@/lib/reminders/queries';
 import { updateDeliverable } from '@/lib/sponsors/deliverable-queries';
 import { updateDueDate } from '@/lib/sponsors/due-date-queries';
-import { makeCrew } from './helpers';
+import * as channelRoute from '@/app/api/channels/[channel]/route';
+import { call, makeCrew } from './helpers';
 import { mailAfterEverythingSent, waitForMail } from '../support/mail-catcher';
 import { makeDeal } from './sponsor-fixtures';
 
@@ -77,5 +78,37 @@ describe('due date reminders', () => {
     await makeDeal(c);
     expect((await sendDueReminders(at('2027-02-21'), { channelId: c.channel.id })).sent).toBe(0);
     expect((await sendDueReminders(at('2027-02-22'), { channelId: c.channel.id })).sent).toBe(1);
+  });
+
+  it('takes the days a Host sets in Settings, refuses bad lists with the field named, and lets no one else change them', async () => {
+    const c = await makeCrew();
+    const patch = (as: typeof c.host, reminderDays: unknown) => call(channelRoute.PATCH, 'PATCH', { as, params: { channel: c.channel.slug }, body: { reminderDays } });
+    const shown = await call(channelRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug } });
+    expect(shown.json.channel).toMatchObject({ reminderDays: [3, 1] });
+
+    const saved = await patch(c.host, [10, 2]);
+    expect(saved.status).toBe(200);
+    expect(saved.json.channel).toMatchObject({ reminderDays: [10, 2] });
+    for (const [bad, message] of [
+      [[], 'Give at least one day (0 is the due day itself).'],
+      [[1, 2, 3, 4, 5, 6], 'Give at most 5 days.'],
+      [[61], 'Use whole days from 0 to 60.'],
+      [[2.5], 'Use whole days from 0 to 60.'],
+      [[4, 4], 'Give each day only once.'],
+    ] as const) {
+      const res = await patch(c.host, bad);
+      expect(res.status, JSON.stringify(bad)).toBe(400);
+      expect(res.json.error?.fields).toEqual({ reminderDays: message });
+    }
+    expect((await patch(c.editor, [1])).status).toBe(403);
+    expect((await patch(c.shopHand, [1])).status).toBe(403);
+    const stored: { reminder_days: unknown } = await db('channels').where({ id: c.channel.id }).first('reminder_days');
+    expect(stored.reminder_days).toEqual([10, 2]);
+
+    // The worker follows the saved setting: Script due 2027-03-01 is reminded ten days ahead, not three.
+    await makeDeal(c);
+    expect((await sendDueReminders(at('2027-02-18'), { channelId: c.channel.id })).sent).toBe(0);
+    expect((await sendDueReminders(at('2027-02-19'), { channelId: c.channel.id })).sent).toBe(1);
+    expect((await sendDueReminders(at('2027-02-26'), { channelId: c.channel.id })).sent).toBe(0);
   });
 });

@@ -9,11 +9,11 @@ import type { Crew } from './route-matrix';
 export const docOf = (text: string) => ({ type: 'doc' as const, content: [{ type: 'paragraph' as const, content: [{ type: 'text' as const, text }] }] });
 
 /** A sponsor, a deal and a read on the outlined episode's sponsor read segment. */
-export async function makeDeal(c: Crew) {
+export async function makeDeal(c: Crew, sponsorName = 'Bramblewick Abrasives') {
   const { episode, segments } = await makeOutlinedEpisode(c);
   const read = segments.find((s) => s.kind === 'sponsor_read');
   if (!read) throw new Error('no sponsor read in the starter outline');
-  const sponsor = await createSponsor(c.channel.id, { name: 'Bramblewick Abrasives', contacts: [{ name: 'Ines Okafor', email: 'ines@bramblewick.test' }], notes: '' });
+  const sponsor = await createSponsor(c.channel.id, { name: sponsorName, contacts: [{ name: 'Ines Okafor', email: 'ines@bramblewick.test' }], notes: '' });
   const deal = await createDeal(c.channel.id, {
     sponsorId: sponsor.id,
     title: 'Spring sanding read',

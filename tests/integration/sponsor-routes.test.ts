@@ -7,6 +7,7 @@ import * as deliverableRoute from '@/app/api/channels/[channel]/deliverables/[de
 import * as episodeDeliverablesRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/deliverables/route';
 import * as sponsorRoute from '@/app/api/channels/[channel]/sponsors/[sponsorId]/route';
 import * as sponsorsRoute from '@/app/api/channels/[channel]/sponsors/route';
+import { db } from '@/db/client';
 import { createSponsor } from '@/lib/sponsors/queries';
 import type { DealDto, DealRowDto } from '@/lib/sponsors/schemas';
 import { makeOutlinedEpisode } from './episode-fixtures';
@@ -40,6 +41,14 @@ const cases: RouteCase[] = [
     body: () => ({ notes: 'Prefers e-mail' }),
     badBody: { name: '', notes: 7 },
     okStatus: 200,
+  },
+  {
+    name: 'DELETE sponsor without deals',
+    fn: sponsorRoute.DELETE,
+    method: 'DELETE',
+    allowed: ['host'],
+    params: async (c) => ({ ...ch(c), sponsorId: (await createSponsor(c.channel.id, { ...sponsorBody, name: `Gone ${Math.random()}`, notes: '' })).id }),
+    okStatus: 204,
   },
   { name: 'GET deals', fn: dealsRoute.GET, method: 'GET', allowed: ['host'], params: ch, okStatus: 200 },
   {
@@ -224,6 +233,43 @@ describe('sponsor deals', () => {
     expect(filtered.json.deals).toEqual([]);
     const bad = await call(dealsRoute.GET, 'GET', { as: c.host, params: ch(c), path: '/api/test?invoiceState=owed' });
     expect(bad.status).toBe(400);
+
+    // The episode filter narrows both the deals and the pipeline.
+    const { deal: other } = await makeDeal(c, 'Grubwood Finishes');
+    const all = await call(dealsRoute.GET, 'GET', { as: c.host, params: ch(c) });
+    expect((all.json.deals as DealRowDto[]).map((d) => d.id).sort()).toEqual([deal.id, other.id].sort());
+    expect(all.json.pipeline).toEqual([{ month: '2027-03', currency: 'USD', bookedMinor: 500_000, invoicedMinor: 0, paidMinor: 0 }]);
+    const episodeId = (rows[0]!.episodes[0] as { id: string }).id;
+    const one = await call(dealsRoute.GET, 'GET', { as: c.host, params: ch(c), path: `/api/test?episodeId=${episodeId}` });
+    expect((one.json.deals as DealRowDto[]).map((d) => d.id)).toEqual([deal.id]);
+    expect(one.json.pipeline).toEqual([{ month: '2027-03', currency: 'USD', bookedMinor: 250_000, invoicedMinor: 0, paidMinor: 0 }]);
+    const badEpisode = await call(dealsRoute.GET, 'GET', { as: c.host, params: ch(c), path: '/api/test?episodeId=nope' });
+    expect(badEpisode.json.error?.fields).toEqual({ episodeId: 'Not an episode.' });
+  });
+
+  it('deletes a sponsor only when it holds no deals, and edits its name, contacts and notes', async () => {
+    const c = await makeCrew();
+    const { sponsor, deal } = await makeDeal(c);
+    const params = { ...ch(c), sponsorId: sponsor.id };
+    const edited = await call(sponsorRoute.PATCH, 'PATCH', {
+      as: c.host,
+      params,
+      body: { name: 'Bramblewick Abrasives Ltd', contacts: [{ name: 'Ines Okafor', email: 'ines@bramblewick.test' }, { name: 'Dov Marsh', email: 'dov@bramblewick.test' }], notes: 'Net 45 preferred' },
+    });
+    expect(edited.status).toBe(200);
+    expect(edited.json.sponsor).toMatchObject({ name: 'Bramblewick Abrasives Ltd', notes: 'Net 45 preferred', contacts: [{ name: 'Ines Okafor' }, { name: 'Dov Marsh' }] });
+    const badContact = await call(sponsorRoute.PATCH, 'PATCH', { as: c.host, params, body: { contacts: [{ name: 'Dov', email: 'not mail' }] } });
+    expect(Object.keys(badContact.json.error?.fields ?? {})).toEqual(['contacts.0.email']);
+
+    const refused = await call(sponsorRoute.DELETE, 'DELETE', { as: c.host, params });
+    expect(refused.status).toBe(409);
+    expect(await db('sponsor_deals').where({ id: deal.id }).first('id')).toBeDefined();
+    // The database refuses too, whatever the app checked: no cascade takes the deals with the sponsor.
+    await expect(db('sponsors').where({ id: sponsor.id }).delete()).rejects.toMatchObject({ code: '23503' });
+
+    expect((await call(dealRoute.DELETE, 'DELETE', { as: c.host, params: { ...ch(c), dealId: deal.id } })).status).toBe(204);
+    expect((await call(sponsorRoute.DELETE, 'DELETE', { as: c.host, params })).status).toBe(204);
+    expect((await call(sponsorRoute.DELETE, 'DELETE', { as: c.host, params })).status).toBe(404);
   });
 
   it('checks the read live against the script and the forecast', async () => {

@@ -7,6 +7,7 @@ import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
 import { channelPage } from '@/lib/api/paths';
 import { getDashboard } from '@/lib/dashboard/queries';
+import { now } from '@/lib/clock/queries';
 import { dayOf } from '@/lib/sponsors/dates';
 import { editStageLabels } from '@/lib/edit/stages';
 import { listEpisodes } from '@/lib/episodes/queries';
@@ -16,9 +17,11 @@ export const metadata: Metadata = { title: 'Dashboard' };
 export default async function DashboardPage({ params }: { params: Promise<{ channel: string }> }) {
   const { channel } = await params;
   const member = await requireMember(channel);
+  // The app clock, so overdue and due-soon agree with the reminder e-mails (and a test can move it).
+  const today = dayOf(await now());
   const [crew, dashboard, episodes] = await Promise.all([
     listCrew(member.channel.id),
-    getDashboard(member, dayOf(new Date())),
+    getDashboard(member, today),
     listEpisodes(member.channel.id, member.channel.speakingRateWpm, { archived: false }),
   ]);
   const inEdit = episodes.filter((e) => e.editStage !== null);

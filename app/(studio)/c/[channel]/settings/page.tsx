@@ -52,6 +52,8 @@ export default async function SettingsPage({ params }: { params: Promise<{ chann
             <dd>{member.channel.name}</dd>
             <dt className="text-ink-faint">Speaking rate</dt>
             <dd className="font-mono">{member.channel.speakingRateWpm} words per minute</dd>
+            <dt className="text-ink-faint">Reminder days</dt>
+            <dd className="font-mono">{member.channel.reminderDays.join(', ')} days before a due date</dd>
             <dd className="col-span-2 text-ink-faint">Only a Host can change channel settings.</dd>
           </dl>
         )}

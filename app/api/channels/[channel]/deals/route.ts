@@ -5,7 +5,7 @@ import { createDeal, getPipeline, listDeals } from '@/lib/sponsors/queries';
 import { createDealSchema, dealListQuerySchema } from '@/lib/sponsors/schemas';
 
 export const GET = route({ params: channelParamsSchema, query: dealListQuerySchema, channel: 'sponsors.manage' }, async ({ member, query }) => {
-  const [deals, pipeline] = await Promise.all([listDeals(member.channel.id, query), getPipeline(member.channel.id)]);
+  const [deals, pipeline] = await Promise.all([listDeals(member.channel.id, query), getPipeline(member.channel.id, { episodeId: query.episodeId })]);
   return { deals, pipeline };
 });
 

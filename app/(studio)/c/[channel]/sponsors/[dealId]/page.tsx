@@ -8,6 +8,7 @@ import { pageAccess } from '@/lib/auth/page-access';
 import { requireMember } from '@/lib/auth/session';
 import { listCrew } from '@/lib/crew/queries';
 import { orNotFound, uuidOr404 } from '@/lib/page-data';
+import { now } from '@/lib/clock/queries';
 import { dayOf } from '@/lib/sponsors/dates';
 import { findDeal, listEpisodeChoices } from '@/lib/sponsors/deliverable-queries';
 import { formatMoney } from '@/lib/sponsors/money';
@@ -22,7 +23,8 @@ export default async function DealPage({ params }: { params: Promise<{ channel: 
     Promise.all([findDeal(member.channel.id, uuidOr404(dealId), member.channel.speakingRateWpm), listEpisodeChoices(member.channel.id), listCrew(member.channel.id)]),
   );
   const slug = member.channel.slug;
-  const today = dayOf(new Date());
+  // The app clock, so the overdue marks agree with the reminder e-mails (and a test can move it).
+  const today = dayOf(await now());
   const crewChoices = crew.map((c) => ({ userId: c.userId, name: c.name }));
   return (
     <>

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { fitPieceLabel, labelWidth } from './piece-label';
+import { fitPieceLabel, labelHeight, labelWidth } from './piece-label';
 
 describe('fitPieceLabel', () => {
   it('keeps the whole label on a long piece', () => {
@@ -11,6 +11,9 @@ describe('fitPieceLabel', () => {
     expect(fitPieceLabel('Stretcher', '14 3/16"', { width: 60, height: 60 }, 28, 12)?.text).toBe('Stretc…');
     expect(fitPieceLabel('Stretcher', '14"', { width: 20, height: 60 }, 28, 12)).toBeNull();
     expect(fitPieceLabel('Leg', '14"', { width: 200, height: 8 }, 28, 12)).toBeNull();
+    // A thin ripped strip: the line (ascent plus descent), not just the font size, must fit its height.
+    expect(fitPieceLabel('Leg', '24"', { width: 400, height: 22 }, 28, 12)).toBeNull();
+    expect(fitPieceLabel('Leg', '24"', { width: 400, height: 30 }, 28, 12)?.fontSize).toBeCloseTo(22 / 1.3, 6);
   });
   it('never draws text wider or taller than its piece', () => {
     fc.assert(
@@ -18,7 +21,7 @@ describe('fitPieceLabel', () => {
         const label = fitPieceLabel(name, size, { width, height }, 28, 12);
         if (!label) return;
         expect(labelWidth(label)).toBeLessThanOrEqual(width - 8 + 1e-9);
-        expect(label.fontSize).toBeLessThanOrEqual(height);
+        expect(labelHeight(label)).toBeLessThanOrEqual(height - 8 + 1e-9);
         expect(label.fontSize).toBeGreaterThanOrEqual(12 - 1e-9);
       }),
     );

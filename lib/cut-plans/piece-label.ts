@@ -7,6 +7,12 @@
 
 // Source: IBM Plex Mono, the diagram's face: every glyph advances 600 units of a 1000-unit em.
 export const MONO_ADVANCE = 0.6;
+/**
+ * The height a line of text takes, in ems: the face's ascent plus descent. From memory: IBM Plex Mono
+ * has an ascender of 1025 and a descender of 275 units per 1000-unit em. A font size equal to the
+ * piece's height (the first version) spilled out of the thin strips of a ripped board.
+ */
+export const LINE_BOX = 1.3;
 /** Room kept between the text and the piece's edges, each side. */
 const PAD = 4;
 
@@ -14,9 +20,9 @@ export type PieceLabel = { text: string; fontSize: number };
 
 export function fitPieceLabel(name: string, size: string, box: { width: number; height: number }, maxFont: number, minFont: number): PieceLabel | null {
   const width = box.width - 2 * PAD;
-  const height = box.height - PAD;
-  if (width <= 0 || height < minFont) return null;
-  const fontFor = (text: string) => Math.min(maxFont, height, width / (Math.max(text.length, 1) * MONO_ADVANCE));
+  const tallest = (box.height - 2 * PAD) / LINE_BOX;
+  if (width <= 0 || tallest < minFont) return null;
+  const fontFor = (text: string) => Math.min(maxFont, tallest, width / (Math.max(text.length, 1) * MONO_ADVANCE));
   for (const text of [`${name} ${size}`, size]) {
     const fontSize = fontFor(text);
     if (fontSize >= minFont) return { text, fontSize };
@@ -30,3 +36,6 @@ export function fitPieceLabel(name: string, size: string, box: { width: number; 
 
 /** The width the text takes at its size, for the check that it stays inside. */
 export const labelWidth = (label: PieceLabel) => label.text.length * MONO_ADVANCE * label.fontSize;
+
+/** The height the text's line takes at its size. */
+export const labelHeight = (label: PieceLabel) => label.fontSize * LINE_BOX;

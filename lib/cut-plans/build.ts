@@ -111,26 +111,10 @@ function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
     offcutIn: b.offcut,
     keepOffcut: b.offcut >= settings.minOffcutIn && b.offcut > 0,
   }));
-  const purchase = result.purchase.map((p) => {
-    const offer = offers.find((o) => sizeKey(o.lengthIn) === p.stockId);
-    const lengthIn = offer?.lengthIn ?? 0;
-    const unitCents = offer ? lumberUnitCents(stock, lengthIn, offer) : 0;
-    return { sizeKey: p.stockId, lengthIn, widthIn: null, count: p.count, unitCents, costCents: unitCents * p.count };
-  });
+  // Waste by length: every piece spans the board's width.
   const bought = boards.reduce((a, b) => a + b.lengthIn, 0);
   const used = boards.reduce((a, b) => a + b.pieces.reduce((s, c) => s + c.lengthIn, 0), 0);
-  return {
-    stock: pickStock(stock),
-    boards,
-    purchase,
-    costCents: purchase.reduce((a, p) => a + p.costCents, 0),
-    lowerBoundCents: Math.round(result.lowerBound * 100),
-    optimal: result.optimal && unplaced.length === 0,
-    boardFeet: round4(boards.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn), 0)),
-    squareFeet: null,
-    wastePercent: bought > 0 ? round4((100 * (bought - used)) / bought) : 0,
-    unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
-  };
+  return lumberStockPlan(stock, offers, boards, result, unplaced, names, { bought, used });
 }
 
 function planLumberRips(
@@ -169,14 +153,35 @@ function planLumberRips(
     keepOffcut: false,
     strips: b.strips.map((s) => ({ x: s.offset, widthIn: s.width })),
   }));
+  // Waste by area: strips leave room across the width too.
+  const bought = boards.reduce((a, b) => a + b.lengthIn * b.widthIn, 0);
+  const used = boards.reduce((a, b) => a + b.pieces.reduce((s, c) => s + c.lengthIn * c.widthIn, 0), 0);
+  return lumberStockPlan(stock, offers, boards, result, unplaced, names, { bought, used });
+}
+
+type LumberResult = {
+  purchase: { stockId: string; count: number }[];
+  lowerBound: number;
+  optimal: boolean;
+  unplaced: { partId: string; quantity: number; reason: string }[];
+};
+
+/** What a lumber plan buys and costs, the same whether its boards were crosscut only or ripped first. */
+function lumberStockPlan(
+  stock: StockItemDto,
+  offers: LumberOffer[],
+  boards: PlanBoard[],
+  result: LumberResult,
+  unplaced: PlanUnplaced[],
+  names: Map<string, PlanPart>,
+  waste: { bought: number; used: number },
+): StockPlan {
   const purchase = result.purchase.map((p) => {
     const offer = offers.find((o) => sizeKey(o.lengthIn) === p.stockId);
     const lengthIn = offer?.lengthIn ?? 0;
     const unitCents = offer ? lumberUnitCents(stock, lengthIn, offer) : 0;
     return { sizeKey: p.stockId, lengthIn, widthIn: null, count: p.count, unitCents, costCents: unitCents * p.count };
   });
-  const bought = boards.reduce((a, b) => a + b.lengthIn * b.widthIn, 0);
-  const used = boards.reduce((a, b) => a + b.pieces.reduce((s, c) => s + c.lengthIn * c.widthIn, 0), 0);
   return {
     stock: pickStock(stock),
     boards,
@@ -186,7 +191,7 @@ function planLumberRips(
     optimal: result.optimal && unplaced.length === 0,
     boardFeet: round4(boards.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn), 0)),
     squareFeet: null,
-    wastePercent: bought > 0 ? round4((100 * (bought - used)) / bought) : 0,
+    wastePercent: waste.bought > 0 ? round4((100 * (waste.bought - waste.used)) / waste.bought) : 0,
     unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
   };
 }

@@ -5,21 +5,17 @@ const controlClasses =
 
 type FieldProps = { label: string; error?: string | undefined; hint?: ReactNode };
 
-/** `className` styles the field's box (label, input, hint); `inputClassName` the input alone (a monospaced timecode). */
-export function TextField({ label, error, hint, className = '', inputClassName = '', ...props }: FieldProps & { inputClassName?: string } & InputHTMLAttributes<HTMLInputElement>) {
+type ControlProps = { id: string; 'aria-invalid': true | undefined; 'aria-describedby': string | undefined };
+
+/** Label, control, hint and error of one field: the control gets the ids that tie them together. */
+function FieldFrame({ label, error, hint, className, control }: FieldProps & { className: string; control: (props: ControlProps) => ReactNode }) {
   const id = useId();
   return (
     <div className={className}>
       <label htmlFor={id} className="mb-1 block text-sm font-bold">
         {label}
       </label>
-      <input
-        id={id}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-        className={`${controlClasses} border-ink/30 ${inputClassName}`}
-        {...props}
-      />
+      {control({ id, 'aria-invalid': error ? true : undefined, 'aria-describedby': error ? `${id}-error` : hint ? `${id}-hint` : undefined })}
       {hint && !error ? (
         <p id={`${id}-hint`} className="mt-1 text-sm text-ink-faint">
           {hint}
@@ -30,29 +26,16 @@ export function TextField({ label, error, hint, className = '', inputClassName =
   );
 }
 
+/** `className` styles the field's box (label, input, hint); `inputClassName` the input alone (a monospaced timecode). */
+export function TextField({ label, error, hint, className = '', inputClassName = '', ...props }: FieldProps & { inputClassName?: string } & InputHTMLAttributes<HTMLInputElement>) {
+  return (
+    <FieldFrame label={label} error={error} hint={hint} className={className} control={(ids) => <input {...ids} className={`${controlClasses} border-ink/30 ${inputClassName}`} {...props} />} />
+  );
+}
+
 /** A text field for lists people type one per line. */
 export function TextAreaField({ label, error, hint, className = '', ...props }: FieldProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  const id = useId();
-  return (
-    <div className={className}>
-      <label htmlFor={id} className="mb-1 block text-sm font-bold">
-        {label}
-      </label>
-      <textarea
-        id={id}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-        className={`${controlClasses} border-ink/30 py-2`}
-        {...props}
-      />
-      {hint && !error ? (
-        <p id={`${id}-hint`} className="mt-1 text-sm text-ink-faint">
-          {hint}
-        </p>
-      ) : null}
-      <FieldError id={`${id}-error`} error={error} />
-    </div>
-  );
+  return <FieldFrame label={label} error={error} hint={hint} className={className} control={(ids) => <textarea {...ids} className={`${controlClasses} border-ink/30 py-2`} {...props} />} />;
 }
 
 export function SelectField({
@@ -62,23 +45,18 @@ export function SelectField({
   className = '',
   ...props
 }: FieldProps & SelectHTMLAttributes<HTMLSelectElement> & { children: ReactNode }) {
-  const id = useId();
+  // No hint on a select: FieldFrame then points aria-describedby at the error alone, as before.
   return (
-    <div className={className}>
-      <label htmlFor={id} className="mb-1 block text-sm font-bold">
-        {label}
-      </label>
-      <select
-        id={id}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-        className={`${controlClasses} border-ink/30`}
-        {...props}
-      >
-        {children}
-      </select>
-      <FieldError id={`${id}-error`} error={error} />
-    </div>
+    <FieldFrame
+      label={label}
+      error={error}
+      className={className}
+      control={(ids) => (
+        <select {...ids} className={`${controlClasses} border-ink/30`} {...props}>
+          {children}
+        </select>
+      )}
+    />
   );
 }
 

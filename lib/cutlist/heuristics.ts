@@ -28,7 +28,16 @@ export function chooserFor(inst: Instance, preferred: number | null): Chooser {
 
 export function greedy(inst: Instance, order: readonly number[], bestFit: boolean, choose: Chooser): Solution {
   const bins: Bin[] = [];
-  const used = inst.stocks.map(() => 0);
+  const unplaced = fillBins(inst, order, bestFit, choose, bins, inst.stocks.map(() => 0));
+  return inst.solution(bins, unplaced);
+}
+
+/**
+ * Places pieces in `order` into `bins` (first fit, or best fit: the least room left), opening a bin of
+ * the chosen stock when none has room; `used` counts the bins of each stock and is updated. Returns
+ * the pieces no stock can take.
+ */
+function fillBins(inst: Instance, order: readonly number[], bestFit: boolean, choose: Chooser, bins: Bin[], used: number[]): number[] {
   const unplaced: number[] = [];
   for (const i of order) {
     const size = inst.pieces[i]?.size ?? 0;
@@ -59,7 +68,7 @@ export function greedy(inst: Instance, order: readonly number[], bestFit: boolea
     target.load += size;
     target.items.push(i);
   }
-  return inst.solution(bins, unplaced);
+  return unplaced;
 }
 
 /** Moves each board to the cheapest stock that still holds its pieces, fullest boards first. */
@@ -192,31 +201,7 @@ export function improve(inst: Instance, start: Solution, lb: number, deadline: D
     freed.sort((a, b) => (inst.pieces[b]?.size ?? 0) - (inst.pieces[a]?.size ?? 0) || random() - 0.5);
     const used = inst.stocks.map(() => 0);
     for (const b of kept) used[b.stock] = (used[b.stock] ?? 0) + 1;
-    const unplaced: number[] = [];
-    for (const i of freed) {
-      const size = inst.pieces[i]?.size ?? 0;
-      let target: Bin | undefined;
-      let targetRest = Number.POSITIVE_INFINITY;
-      for (const b of kept) {
-        const rest = (inst.stocks[b.stock]?.cap ?? 0) - b.load - size;
-        if (rest >= 0 && rest < targetRest) {
-          target = b;
-          targetRest = rest;
-        }
-      }
-      if (!target) {
-        const s = choose(size, used);
-        if (s < 0) {
-          unplaced.push(i);
-          continue;
-        }
-        used[s] = (used[s] ?? 0) + 1;
-        target = { stock: s, load: 0, items: [] };
-        kept.push(target);
-      }
-      target.load += size;
-      target.items.push(i);
-    }
+    const unplaced = fillBins(inst, freed, true, choose, kept, used);
     const candidate = downgrade(inst, inst.solution(kept, unplaced));
     const c = candidate.score;
     const cur = current.score;

@@ -27,8 +27,3 @@ export async function refuseIfThrottled(keys: string[]): Promise<void> {
   const wait = await secondsUntilAllowed(keys);
   if (wait > 0) throw tooManyAttempts(wait);
 }
-
-/** Counts a failed try on every key. */
-export async function countFailure(keys: string[]): Promise<void> {
-  await takeHit(keys, SIGN_IN_BACKOFF);
-}

@@ -1,5 +1,6 @@
 import { route } from '@/lib/api/handler';
-import { acceptKey, countFailure, refuseIfThrottled } from '@/lib/auth/attempts';
+import { acceptKey, refuseIfThrottled } from '@/lib/auth/attempts';
+import { recordFailure } from '@/lib/auth/throttle-queries';
 import { clientIp } from '@/lib/auth/sign-in';
 import { acceptInvitationAsNewUser, acceptInvitationAsUser } from '@/lib/crew/queries';
 import { acceptSchema, tokenParamsSchema } from '@/lib/crew/schemas';
@@ -17,7 +18,7 @@ export const POST = route({ auth: 'none', params: tokenParamsSchema, body: accep
     return { accepted: await acceptInvitationAsUser(params.token, user) };
   } catch (err) {
     // Guessing tokens is what the throttle stops; a used or expired link of one's own is not a guess.
-    if (err instanceof AppError && err.code === 'not_found') await countFailure(keys);
+    if (err instanceof AppError && err.code === 'not_found') await recordFailure(keys);
     throw err;
   }
 });

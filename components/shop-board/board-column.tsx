@@ -13,16 +13,16 @@ const accents: Record<ShotState, string> = {
   retake: 'border-t-attention',
 };
 
-type FrameProps = { state: ShotState; count: number; children: ReactNode; over?: boolean; movable?: boolean };
+type FrameProps = { state: ShotState; count: number; children: ReactNode; over?: boolean; movable?: boolean; refusal?: string | null };
 
-function ColumnFrame({ state, count, children, over = false, movable = false, frameRef }: FrameProps & { frameRef?: (el: HTMLElement | null) => void }) {
+function ColumnFrame({ state, count, children, over = false, movable = false, refusal = null, frameRef }: FrameProps & { frameRef?: (el: HTMLElement | null) => void }) {
   const label = shotStateLabels[state];
   return (
     <section
       ref={frameRef}
       aria-label={label}
       className={`flex min-w-0 flex-col gap-3 rounded-card border border-t-4 border-paper-edge p-3 transition-colors ${accents[state]} ${
-        over ? 'bg-blueprint-soft/70' : 'bg-paper-deep/50'
+        refusal ? 'bg-paper-deep/80 opacity-80' : over ? 'bg-blueprint-soft/70' : 'bg-paper-deep/50'
       }`}
     >
       <h2 className={`flex items-baseline justify-between gap-2 text-base font-bold ${state === 'retake' ? 'text-attention-ink' : ''}`}>
@@ -32,6 +32,11 @@ function ColumnFrame({ state, count, children, over = false, movable = false, fr
           <span className="sr-only"> {count === 1 ? 'shot' : 'shots'}</span>
         </span>
       </h2>
+      {refusal ? (
+        <p role="note" data-testid="column-refusal" className="rounded-md border-2 border-dashed border-attention/60 bg-white px-3 py-2 text-sm text-attention-ink">
+          {refusal}
+        </p>
+      ) : null}
       {children}
       {count === 0 ? (
         <p className="rounded-md border-2 border-dashed border-paper-edge px-3 py-6 text-center text-sm text-ink-faint">
@@ -43,10 +48,23 @@ function ColumnFrame({ state, count, children, over = false, movable = false, fr
 }
 
 /** A column that takes drops even when empty: the whole column is the drop target, not only its cards. */
-export function DroppableColumn({ state, ids, holdsActive, children }: { state: ShotState; ids: string[]; holdsActive: boolean; children: ReactNode }) {
+export function DroppableColumn({
+  state,
+  ids,
+  holdsActive,
+  refusal,
+  children,
+}: {
+  state: ShotState;
+  ids: string[];
+  holdsActive: boolean;
+  /** Why the card being dragged may not be dropped here, shown on the column while it is dragged. */
+  refusal: string | null;
+  children: ReactNode;
+}) {
   const { setNodeRef, isOver } = useDroppable({ id: columnId(state) });
   return (
-    <ColumnFrame state={state} count={ids.length} over={isOver || holdsActive} movable frameRef={setNodeRef}>
+    <ColumnFrame state={state} count={ids.length} over={!refusal && (isOver || holdsActive)} refusal={refusal} movable frameRef={setNodeRef}>
       <SortableContext id={state} items={ids} strategy={verticalListSortingStrategy}>
         <ol className="space-y-2.5">{children}</ol>
       </SortableContext>

@@ -41,6 +41,10 @@ const screenReaderInstructions: ScreenReaderInstructions = {
     'To move a shot, press Space or Enter on its move handle. Use the Left and Right arrow keys to change column and Up and Down to change its place, then press Space or Enter to drop it, or Escape to cancel. On a touch screen, press and hold the handle, then drag.',
 };
 
+/** The server refuses Captured until the segment's tools are reviewed (lib/shots/queries.ts); the board refuses the drop first. */
+const waitsForReview = (shot: BoardShotDto | undefined, state: ShotState) => state === 'captured' && !!shot?.safetyPending && shot.state !== 'captured';
+const REVIEW_REFUSAL = 'Captured waits for the safety review of this segment’s tools; a Host can review it on the segment page.';
+
 function focusHandleIfLost(shotId: string) {
   const current = document.activeElement;
   if (current && current !== document.body) return;
@@ -120,9 +124,18 @@ export function DesktopBoard({ slug, shots, canMove, onMove, askRetake }: Props)
   };
   const announcements: Announcements = {
     onDragStart: ({ active }) => `Picked up ${description(active.id)} in ${where(active.id)}.`,
-    onDragOver: ({ active, over }) => (over ? `${description(active.id)} is over ${where(over.id)}.` : `${description(active.id)} is not over a column.`),
-    onDragEnd: ({ active, over }) =>
-      over ? `${description(active.id)} dropped in ${where(active.id)}.` : `${description(active.id)} dropped outside the board; it stays where it was.`,
+    onDragOver: ({ active, over }) => {
+      if (!over) return `${description(active.id)} is not over a column.`;
+      const state = containerOf(columns, over.id);
+      if (state && waitsForReview(byId.get(String(active.id)), state)) return `${description(active.id)} cannot go to Captured. ${REVIEW_REFUSAL}`;
+      return `${description(active.id)} is over ${where(over.id)}.`;
+    },
+    onDragEnd: ({ active, over }) => {
+      if (!over) return `${description(active.id)} dropped outside the board; it stays where it was.`;
+      const state = containerOf(columns, over.id);
+      if (state && waitsForReview(byId.get(String(active.id)), state)) return `${description(active.id)} stays where it was. ${REVIEW_REFUSAL}`;
+      return `${description(active.id)} dropped in ${where(active.id)}.`;
+    },
     onDragCancel: ({ active }) => `Moving ${description(active.id)} was cancelled; it stays where it was.`,
   };
 
@@ -136,6 +149,7 @@ export function DesktopBoard({ slug, shots, canMove, onMove, askRetake }: Props)
     const from = containerOf(dragging.columns, active.id);
     const to = containerOf(dragging.columns, over.id);
     if (!from || !to || from === to) return;
+    if (waitsForReview(byId.get(String(active.id)), to)) return;
     const target = dragging.columns[to];
     const overIndex = target.indexOf(String(over.id));
     const translated = active.rect.current.translated;
@@ -160,7 +174,7 @@ export function DesktopBoard({ slug, shots, canMove, onMove, askRetake }: Props)
       return;
     }
     const state = containerOf(current.columns, active.id);
-    if (!state) {
+    if (!state || waitsForReview(shot, state)) {
       setDragging(null);
       return;
     }
@@ -220,7 +234,13 @@ export function DesktopBoard({ slug, shots, canMove, onMove, askRetake }: Props)
     >
       <div className="hidden gap-4 md:grid md:grid-cols-3">
         {shotStates.map((state) => (
-          <DroppableColumn key={state} state={state} ids={columns[state]} holdsActive={activeColumn === state}>
+          <DroppableColumn
+            key={state}
+            state={state}
+            ids={columns[state]}
+            holdsActive={activeColumn === state}
+            refusal={waitsForReview(active, state) ? REVIEW_REFUSAL : null}
+          >
             {columns[state].map((id) => {
               const shot = byId.get(id);
               return shot ? <SortableShotCard key={id} slug={slug} shot={shot} /> : null;

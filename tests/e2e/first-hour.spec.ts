@@ -5,6 +5,8 @@ import path from 'node:path';
 import type { Page } from '@playwright/test';
 import { DEMO_SLUG, PHONE, expect, expectAccessible, newEpisode, sameOrigin, test } from './fixtures';
 import { SegmentPage } from './pages/segment-page';
+import { ShopBoardPage } from './pages/shop-board-page';
+import { expectAnnounced } from './pages/live-region';
 
 // Issue 15, one check per thing a new crew noticed in its first hour (the phone widths are phone-layout.spec.ts).
 const api = `/api/channels/${DEMO_SLUG}`;
@@ -75,6 +77,38 @@ test('a segment waiting for its safety review: Captured disabled with the reason
   const banner = host.getByRole('region', { name: /segments? waits? for a safety review/ });
   await expect(banner.getByRole('link', { name: build.title })).toBeVisible();
   await expectAccessible(host);
+});
+
+test('on a desktop board, a card waiting for its safety review cannot be dropped into Captured, and the column says why', async ({ signedIn }) => {
+  const stamp = Date.now().toString(36);
+  const host = await signedIn('host', DESKTOP);
+  const { episodeId, build } = await newEpisode(host, `Drag guard ${stamp}`);
+  expect((await host.request.put(`${api}/segments/${build.id}/tools`, { headers: sameOrigin, data: { tools: ['router'] } })).status()).toBe(200);
+  const description = `Round over the edges ${stamp}`;
+  expect((await host.request.post(`${api}/segments/${build.id}/shots`, { headers: sameOrigin, data: { description } })).status()).toBe(201);
+
+  const board = new ShopBoardPage(host);
+  await board.goto(episodeId);
+  // The page already warns of the pending review; a refused move would add an error alert to it.
+  await expect(host.getByRole('alert').filter({ hasText: 'Waiting for a Host' })).toBeVisible();
+  const alertsBefore = await host.getByRole('alert').count();
+  let stateWrites = 0;
+  host.on('request', (r) => {
+    if (r.url().includes('/state') && r.method() === 'PUT') stateWrites += 1;
+  });
+  await host.getByRole('button', { name: `Move: ${description}` }).focus();
+  await host.keyboard.press('Space');
+  await expectAnnounced(host, /Picked up|is over/);
+  await host.keyboard.press('ArrowRight');
+  await expectAnnounced(host, `${description} cannot go to Captured.`);
+  await expect(board.column('Captured').getByRole('note')).toHaveText(/Captured waits for the safety review of this segment’s tools/);
+  await expectAccessible(host);
+  await host.keyboard.press('Space');
+  await expectAnnounced(host, `${description} stays where it was.`);
+  await expect(board.column('Planned').getByRole('listitem').filter({ hasText: description })).toBeVisible();
+  await expect(board.column('Captured').getByRole('note')).toHaveCount(0);
+  await expect(host.getByRole('alert')).toHaveCount(alertsBefore);
+  expect(stateWrites).toBe(0);
 });
 
 test.describe('numbers a person reads', () => {

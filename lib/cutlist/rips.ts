@@ -325,6 +325,40 @@ function multiStartGreedy(model: Model, deadline: Deadline): { best: { patterns:
   return { best, seen };
 }
 
+/**
+ * Ruin and recreate: take two or three boards out of the plan at random, plan their pieces again from
+ * scratch with the greedy starts, and keep the result when the whole plan costs less. Pieces of
+ * poorly filled boards end up together, often on one board of another width or length.
+ * Source: G. Schrimpf et al., "Record breaking optimization results using the ruin and recreate
+ * principle", J. Computational Physics 159 (2000).
+ */
+function ruinAndRecreate(model: Model, patterns: Pattern[], deadline: Deadline, random: () => number): Pattern[] {
+  let best = patterns;
+  let bestCost = costOf(model, best);
+  for (let round = 0; round < 100_000 && best.length >= 2 && !expired(deadline); round++) {
+    const take = new Set<number>();
+    const want = Math.min(best.length, 2 + (random() < 0.3 ? 1 : 0));
+    while (take.size < want) take.add(Math.floor(random() * best.length));
+    const kept = best.filter((_, i) => !take.has(i));
+    const removed = best.filter((_, i) => take.has(i));
+    const used = model.stocks.map(() => 0);
+    kept.forEach((p) => (used[p.stock] = (used[p.stock] ?? 0) + 1));
+    const sub: Model = {
+      ...model,
+      kinds: model.kinds.map((k, j) => ({ ...k, demand: removed.reduce((a, p) => a + (p.counts[j] ?? 0), 0) })),
+      stocks: model.stocks.map((st, i) => ({ ...st, available: st.available - (used[i] ?? 0) })),
+    };
+    const again = multiStartGreedy(sub, deadline).best;
+    if (again.unplaced.some((n) => n > 0)) continue;
+    const cost = costOf(model, kept) + costOf(model, again.patterns);
+    if (cost < bestCost) {
+      best = [...kept, ...again.patterns];
+      bestCost = cost;
+    }
+  }
+  return best;
+}
+
 const stripWidth = (model: Model, counts: readonly number[]): number =>
   Math.max(0, ...counts.map((c, k) => (c > 0 ? (model.kinds[k]?.width ?? 0) : 0)));
 
@@ -410,11 +444,15 @@ export function planRipCuts(req: RipCutRequest): RipCutPlan {
     lb = achievableCost(problem.stocks, Math.ceil(value - Math.max(1, 1e-9 * Math.abs(value))), deadline);
   }
   if (bestCost > lb) {
-    const dived = diveSearch(problem, lb, deadline, rng(11));
+    const dived = diveSearch(problem, lb, shareOf(deadline, 0.6), rng(11));
     if (dived && dived.cost < bestCost) {
       const used = model.stocks.map(() => 0);
       dived.patterns.forEach((p) => (used[p.stock] = (used[p.stock] ?? 0) + 1));
       best = dived.patterns.map((p) => cheapestHolder(model, p, used));
+      bestCost = costOf(model, best);
+    }
+    if (bestCost > lb) {
+      best = ruinAndRecreate(model, best, deadline, rng(7));
       bestCost = costOf(model, best);
     }
   }

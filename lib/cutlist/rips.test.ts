@@ -340,4 +340,28 @@ describe('planRipCuts: hardwood of several widths priced by the board foot (issu
     expect(plan.optimal).toBe(true);
     expect(bruteForceRipCost(req)).toBeCloseTo(45, 6);
   });
+
+  it('puts a narrow strip beside a wide part on a wider board rather than buying a third board', () => {
+    // 4/4 at $9.50 a board foot (USDA FPL Wood Handbook, 144 in³): 4" x 72" $19.00, 5 1/2" x 72" $26.13,
+    // 7 1/4" x 72" $34.44. The 5 1/2" and 4 1/4" parts cannot share a board (5 1/2 + 3/16 + 4 1/4 > 7 1/4)
+    // nor a strip (59 1/4 + 64 1/4 > 72 1/8). On two 5 1/2" boards only one short part fits (beside the
+    // 59 1/8" part), so two more need a third board ($71.26). A 7 1/4" board takes the 4 1/4" part and a
+    // 2 3/8" strip of the other two beside it (4 1/4 + 3/16 + 2 3/8 = 6 13/16 <= 7 1/4): $26.13 + $34.44 = $60.57.
+    const price = (w: number, l: number) => Math.round(((w * l) / 144) * 950) / 100;
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [
+        { id: 'side', length: 59.125, width: 5.5, quantity: 1 },
+        { id: 'short', length: 9.25, width: 2.375, quantity: 3 },
+        { id: 'rail', length: 64.125, width: 4.25, quantity: 1 },
+      ],
+      stock: [4, 5.5, 7.25].flatMap((w) => [72, 96].map((l) => ({ id: `${w}x${l}`, length: l, width: w, price: price(w, l) }))),
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    expect(bruteForceRipCost(req)).toBeCloseTo(60.57, 6);
+    expect(plan.totalCost).toBeCloseTo(60.57, 6);
+    expect(plan.purchase.map((p) => p.stockId).sort()).toEqual(['5.5x72', '7.25x72']);
+  });
 });

@@ -1,6 +1,7 @@
 'use client';
 
 import type { CutPlan, StockPlan } from '@/lib/cut-plans/build';
+import { formatBoardFeet, formatBoardSize } from '@/lib/stock/board-size';
 import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
 import { BoardTicks, boughtOf, type Shopping } from './board-ticks';
@@ -74,7 +75,10 @@ function StockSection({
   cutCounts: Map<string, number>;
 }) {
   const sheet = g.stock.kind === 'sheet';
-  const sizeLabel = (p: { lengthIn: number; widthIn: number | null }) => (p.widthIn !== null ? `${fmt(p.widthIn)} × ${fmt(p.lengthIn)}` : fmt(p.lengthIn));
+  const hardwood = g.stock.kind === 'hardwood';
+  // Hardwood is bought by width and length (issue 16): "7 1/4" × 8'".
+  const sizeLabel = (p: { lengthIn: number; widthIn: number | null }) =>
+    p.widthIn === null ? fmt(p.lengthIn) : hardwood ? formatBoardSize(p.widthIn, p.lengthIn, unit) : `${fmt(p.widthIn)} × ${fmt(p.lengthIn)}`;
   return (
     <section aria-label={g.stock.name} className="break-inside-avoid rounded-card border border-paper-edge bg-white/60 p-4 shadow-card">
       <h3 className="text-base font-bold">{g.stock.name}</h3>
@@ -104,7 +108,10 @@ function StockSection({
                       {boughtOf(shopping, g.stock.id, p.sizeKey, p.count)}/{p.count}
                     </td>
                   ) : null}
-                  <td className="py-1 pr-2 font-mono">{sizeLabel(p)}</td>
+                  <td className="py-1 pr-2 font-mono">
+                    {sizeLabel(p)}
+                    {p.boardFeetEach !== undefined ? <span className="block text-xs text-ink-soft sm:inline"> — {formatBoardFeet(p.boardFeetEach)}</span> : null}
+                  </td>
                   <td className="py-1 pr-2 text-right font-mono">{p.count}</td>
                   <td className="py-1 pr-2 text-right font-mono">{money(p.unitCents)}</td>
                   <td className="py-1 text-right font-mono">{money(p.costCents)}</td>
@@ -133,7 +140,7 @@ function StockSection({
       <ol className="mt-4 space-y-4">
         {g.boards.map((b, i) => (
           <li key={i}>
-            <BoardDiagram board={b} sheet={sheet} unit={unit} cutCounts={cutCounts} title={`${sheet ? 'Sheet' : 'Board'} ${i + 1}: ${sizeLabel({ lengthIn: b.lengthIn, widthIn: sheet ? b.widthIn : null })}`} />
+            <BoardDiagram board={b} sheet={sheet} unit={unit} cutCounts={cutCounts} title={`${sheet ? 'Sheet' : 'Board'} ${i + 1}: ${sizeLabel({ lengthIn: b.lengthIn, widthIn: sheet || hardwood ? b.widthIn : null })}`} />
             {cutting ? (
               <ul className="mt-2 flex flex-wrap gap-2" aria-label={`Cuts on ${sheet ? 'sheet' : 'board'} ${i + 1}`}>
                 {b.pieces.map((p) => {

@@ -6,7 +6,6 @@ import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import type { FieldErrors } from '@/lib/errors';
 import { offersToText, parseOffersText } from '@/lib/stock/offers-text';
 import { stockKindLabels, stockKinds, type StockItemDto, type StockKind } from '@/lib/stock/schemas';
-import { formatLength } from '@/lib/units';
 
 type Props = {
   item?: StockItemDto | undefined;
@@ -18,7 +17,7 @@ type Props = {
 
 const hints: Record<StockKind, { nominal: string; offers: string }> = {
   softwood: { nominal: 'Nominal size, like 2x4 or 1x6.', offers: "Length and price each, like 8 ft 4.50, 10' 6.20, or one per line" },
-  hardwood: { nominal: 'Thickness in quarters, like 4/4 or 8/4.', offers: "Lengths on sale, like 8 ft, 10 ft or 8', 10', or one per line" },
+  hardwood: { nominal: 'Thickness in quarters, like 4/4 or 8/4.', offers: `Board width x length, like 6" x 8', 10' (same width) or one board per line` },
   sheet: { nominal: 'Nominal thickness, like 3/4.', offers: 'Sheet size and price, like 48 x 96 68.00, one per line' },
 };
 
@@ -34,7 +33,7 @@ export function StockForm({ item, errors, pending, onSubmit, onCancel }: Props) 
     if (parsed.error) return setOffersError(parsed.error);
     setOffersError(undefined);
     const body: Record<string, unknown> = { kind, species: text('species'), nominal: text('nominal'), offers: parsed.offers };
-    if (kind === 'hardwood') Object.assign(body, { widthIn: text('widthIn'), pricePerBoardFoot: text('pricePerBoardFoot') });
+    if (kind === 'hardwood') body.pricePerBoardFoot = text('pricePerBoardFoot');
     if (kind === 'sheet') body.plywood = form.get('plywood') === 'on';
     onSubmit(body);
   }
@@ -50,10 +49,7 @@ export function StockForm({ item, errors, pending, onSubmit, onCancel }: Props) 
       <TextField label={kind === 'sheet' ? 'Material' : 'Species'} name="species" defaultValue={item?.species} error={errors.species} placeholder={kind === 'sheet' ? 'Birch plywood' : kind === 'hardwood' ? 'White oak' : 'SPF'} />
       <TextField label={kind === 'hardwood' ? 'Thickness (quarters)' : kind === 'sheet' ? 'Thickness' : 'Profile'} name="nominal" defaultValue={item?.nominal} error={errors.nominal} hint={hints[kind].nominal} />
       {kind === 'hardwood' ? (
-        <>
-          <TextField label="Width" name="widthIn" defaultValue={item?.widthIn ? formatLength(item.widthIn, { unit: 'in' }).replace('"', '') : ''} error={errors.widthIn} />
-          <TextField label="Price per board foot" name="pricePerBoardFoot" inputMode="decimal" defaultValue={item?.pricePerBoardFootCents ? (item.pricePerBoardFootCents / 100).toFixed(2) : ''} error={errors.pricePerBoardFoot} />
-        </>
+        <TextField label="Price per board foot" name="pricePerBoardFoot" inputMode="decimal" defaultValue={item?.pricePerBoardFootCents ? (item.pricePerBoardFootCents / 100).toFixed(2) : ''} error={errors.pricePerBoardFoot} />
       ) : null}
       {kind === 'sheet' ? (
         <label className="flex min-h-touch items-center gap-2 text-sm font-bold sm:mt-6">

@@ -9,6 +9,7 @@ import { useListEdits } from '@/components/ui/use-list-edits';
 import { useFormMutation } from '@/components/ui/use-schema-form';
 import { apiFetch } from '@/lib/api/client';
 import { stockKindLabels, stockKinds, type CutSettingsDto, type StockItemDto } from '@/lib/stock/schemas';
+import { formatBoardSize } from '@/lib/stock/board-size';
 import { formatLength } from '@/lib/units';
 import { StockForm } from './stock-form';
 import { channelApi } from '@/lib/api/paths';
@@ -19,6 +20,13 @@ type Props = { channelSlug: string; canEdit: boolean; initialStock: StockItemDto
 type StockBody = Record<string, unknown>;
 
 const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
+
+/** One size on sale as the rack lists it; hardwood boards by width and length, priced by the board foot. */
+function offerLabel(kind: StockItemDto['kind'], o: StockItemDto['offers'][number], unit: CutSettingsDto['lengthUnit']): string {
+  const f = (n: number) => formatLength(n, { unit });
+  if (kind === 'hardwood') return 'widthIn' in o ? formatBoardSize(o.widthIn, o.lengthIn, unit) : f(o.lengthIn);
+  return 'widthIn' in o ? `${f(o.widthIn)} × ${f(o.lengthIn)} ${money(o.priceCents)}` : `${f(o.lengthIn)} ${money(o.priceCents)}`;
+}
 
 export function StockRack({ channelSlug, canEdit, initialStock, initialSettings }: Props) {
   const client = useQueryClient();
@@ -54,12 +62,12 @@ export function StockRack({ channelSlug, canEdit, initialStock, initialSettings 
                         <p className="font-bold">{s.name}</p>
                         <p className="font-mono text-xs text-ink-soft">
                           actual {formatLength(s.thicknessIn, { unit: initialSettings.lengthUnit, denominator: 32 })}
-                          {s.widthIn !== null ? ` × ${inch(s.widthIn)}` : ''}
+                          {s.widthIn !== null && s.kind !== 'hardwood' ? ` × ${inch(s.widthIn)}` : ''}
                           {s.pricePerBoardFootCents !== null ? ` · ${money(s.pricePerBoardFootCents)} per board foot` : ''}
                         </p>
                         <p className="mt-1 font-mono text-sm">
                           {s.offers
-                            .map((o) => ('widthIn' in o ? `${inch(o.widthIn)} × ${inch(o.lengthIn)} ${money(o.priceCents)}` : s.kind === 'hardwood' ? inch(o.lengthIn) : `${inch(o.lengthIn)} ${money(o.priceCents)}`))
+                            .map((o) => offerLabel(s.kind, o, initialSettings.lengthUnit))
                             .join(' · ')}
                         </p>
                       </div>

@@ -6,10 +6,23 @@ import type { CreateStockInput } from '../../lib/stock/schemas';
 const rack: CreateStockInput[] = [
   { kind: 'softwood', species: 'SPF', nominal: '2x4', offers: [{ lengthIn: 96, price: 448 }, { lengthIn: 120, price: 628 }, { lengthIn: 144, price: 798 }] },
   { kind: 'softwood', species: 'Pine', nominal: '1x4', offers: [{ lengthIn: 72, price: 612 }, { lengthIn: 96, price: 798 }] },
-  { kind: 'hardwood', species: 'Ash', nominal: '8/4', widthIn: 5, pricePerBoardFoot: 640, offers: [{ lengthIn: 72 }, { lengthIn: 96 }] },
-  { kind: 'hardwood', species: 'Ash', nominal: '4/4', widthIn: 6, pricePerBoardFoot: 590, offers: [{ lengthIn: 96 }, { lengthIn: 120 }] },
-  { kind: 'hardwood', species: 'White oak', nominal: '8/4', widthIn: 6, pricePerBoardFoot: 980, offers: [{ lengthIn: 72 }, { lengthIn: 96 }] },
-  { kind: 'hardwood', species: 'White oak', nominal: '4/4', widthIn: 8, pricePerBoardFoot: 875, offers: [{ lengthIn: 96 }] },
+  { kind: 'hardwood', species: 'Ash', nominal: '8/4', pricePerBoardFoot: 640, offers: [{ widthIn: 5, lengthIn: 72 }, { widthIn: 5, lengthIn: 96 }] },
+  { kind: 'hardwood', species: 'Ash', nominal: '4/4', pricePerBoardFoot: 590, offers: [{ widthIn: 6, lengthIn: 96 }, { widthIn: 6, lengthIn: 120 }] },
+  { kind: 'hardwood', species: 'White oak', nominal: '8/4', pricePerBoardFoot: 980, offers: [{ widthIn: 6, lengthIn: 72 }, { widthIn: 6, lengthIn: 96 }] },
+  // Issue 16: a dealer's rack of several widths; the planner chooses which width and length to buy.
+  {
+    kind: 'hardwood',
+    species: 'White oak',
+    nominal: '4/4',
+    pricePerBoardFoot: 875,
+    offers: [
+      { widthIn: 4, lengthIn: 72 },
+      { widthIn: 4, lengthIn: 96 },
+      { widthIn: 5.5, lengthIn: 96 },
+      { widthIn: 7.25, lengthIn: 96 },
+      { widthIn: 7.25, lengthIn: 120 },
+    ],
+  },
   { kind: 'sheet', species: 'Birch plywood', nominal: 0.75, plywood: true, offers: [{ widthIn: 24, lengthIn: 48, price: 2450 }, { widthIn: 48, lengthIn: 96, price: 7200 }] },
 ];
 
@@ -30,7 +43,7 @@ const partsByLevel: Record<number, DemoPart[]> = {
   ],
   3: [
     { stock: '8/4 White oak, 6" wide', name: 'Leg', quantity: 4, lengthIn: 24, widthIn: 1.75, thicknessIn: 1.75, note: 'Rift grain on all four faces' },
-    { stock: '4/4 White oak, 8" wide', name: 'Stretcher', quantity: 4, lengthIn: 15, widthIn: 2.5, thicknessIn: 0.875, note: 'Tenons run through: add 1/8" each end for flush trimming' },
+    { stock: '4/4 White oak, 4" to 7 1/4" wide', name: 'Stretcher', quantity: 4, lengthIn: 15, widthIn: 2.5, thicknessIn: 0.875, note: 'Tenons run through: add 1/8" each end for flush trimming' },
     { stock: '8/4 White oak, 6" wide', name: 'Seat board', quantity: 2, lengthIn: 16, widthIn: 5.5, thicknessIn: 1.5 },
   ],
 };

@@ -22,7 +22,23 @@ const oak: StockItemDto = {
   thicknessIn: 1,
   widthIn: 6,
   pricePerBoardFootCents: 900,
-  offers: [{ lengthIn: 96, priceCents: 0 }],
+  offers: [{ widthIn: 6, lengthIn: 96, priceCents: 0 }],
+};
+/** Issue 16: one hardwood item sold in several widths and lengths, $10.00 a board foot. */
+const ash: StockItemDto = {
+  id: 'ash',
+  kind: 'hardwood',
+  name: '4/4 Ash, 4" to 7 1/4" wide',
+  species: 'Ash',
+  nominal: '4/4',
+  thicknessIn: 1,
+  widthIn: 7.25,
+  pricePerBoardFootCents: 1000,
+  offers: [
+    { widthIn: 4, lengthIn: 72, priceCents: 0 },
+    { widthIn: 4, lengthIn: 96, priceCents: 0 },
+    { widthIn: 7.25, lengthIn: 96, priceCents: 0 },
+  ],
 };
 const ply: StockItemDto = {
   id: 'ply',
@@ -60,8 +76,8 @@ describe('buildCutPlan', () => {
 
   it('prices hardwood by the board foot on its thickness in quarters', () => {
     const plan = buildCutPlan([part({ id: 'top', lengthIn: 40, quantity: 1, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, 200);
-    // 1 in x 6 in x 96 in / 144 = 4 board feet at $9.00.
-    expect(plan.groups[0]?.purchase[0]).toMatchObject({ count: 1, unitCents: 3600, costCents: 3600 });
+    // 1 in x 6 in x 96 in / 144 = 4 board feet at $9.00; the board is named by width and length.
+    expect(plan.groups[0]?.purchase[0]).toEqual({ sizeKey: '6x96', lengthIn: 96, widthIn: 6, count: 1, unitCents: 3600, costCents: 3600, boardFeetEach: 4 });
     expect(plan.boardFeet).toBeCloseTo(4, 6);
   });
 
@@ -107,5 +123,49 @@ describe('buildCutPlan', () => {
       expect(p.rotated).toBe(false);
     }
     expect(plan.optimal).toBe(true);
+  });
+
+  describe('hardwood in several widths (issue 16)', () => {
+    it('buys one 7 1/4" board for six 2" slats where 4" boards would cost more per slat', () => {
+      // Source: USDA FPL Wood Handbook, 1 board foot = 144 in³. At $10.00 a board foot:
+      // 4" x 8' = 1 x 4 x 96 / 144 = 2.667 bd ft = $26.67; two 2" strips need 2 + 1/8 + 1/16 + 2 = 4.1875" > 4",
+      // so it holds one strip of two 40" slats: three boards, $80.01, $13.34 a slat.
+      // 7 1/4" x 8' = 4.833 bd ft = $48.33; three strips take 6.375" <= 7 1/4": six slats on one board, $8.06 a slat.
+      const plan = buildCutPlan([part({ id: 'slat', lengthIn: 40, widthIn: 2, quantity: 6, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, 1000);
+      const g = plan.groups[0];
+      expect(g?.purchase).toEqual([{ sizeKey: '7.25x96', lengthIn: 96, widthIn: 7.25, count: 1, unitCents: 4833, costCents: 4833, boardFeetEach: 4.8333 }]);
+      expect(g?.boards).toHaveLength(1);
+      expect(g?.boards[0]?.widthIn).toBe(7.25);
+      expect(g?.boards[0]?.strips?.map((s) => s.widthIn)).toEqual([2, 2, 2]);
+      expect(g?.boardFeet).toBeCloseTo(4.8333, 4);
+      expect(plan.optimal).toBe(true);
+    });
+
+    it('buys the narrow short board when that is cheapest', () => {
+      // Two 30" x 3" rails: one 3" strip of a 4" x 6' board (2 bd ft, $20.00) holds both (2 x 30 1/8" <= 72 1/8").
+      const plan = buildCutPlan([part({ id: 'rail', lengthIn: 30, widthIn: 3, quantity: 2, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, 1000);
+      expect(plan.groups[0]?.purchase).toEqual([{ sizeKey: '4x72', lengthIn: 72, widthIn: 4, count: 1, unitCents: 2000, costCents: 2000, boardFeetEach: 2 }]);
+      expect(plan.optimal).toBe(true);
+    });
+
+    it('puts a part wider than the narrow boards on a wide one, and reports one wider than every board', () => {
+      const plan = buildCutPlan(
+        [part({ id: 'panel', lengthIn: 20, widthIn: 6, quantity: 1, stockItemId: 'ash' }), part({ id: 'top', lengthIn: 20, widthIn: 9, quantity: 1, stockItemId: 'ash' })],
+        [ash],
+        DEFAULT_CUT_SETTINGS,
+        500,
+      );
+      const g = plan.groups[0];
+      expect(g?.purchase.map((p) => p.sizeKey)).toEqual(['7.25x96']);
+      expect(g?.boards[0]?.pieces.map((p) => p.partId)).toEqual(['panel']);
+      expect(g?.unplaced.map((u) => u.partId)).toEqual(['top']);
+      expect(plan.optimal).toBe(false);
+    });
+
+    it('gives a part with no width the narrowest board width, so it fits any board', () => {
+      const plan = buildCutPlan([part({ id: 'cleat', lengthIn: 60, quantity: 1, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, 500);
+      expect(plan.groups[0]?.purchase.map((p) => p.sizeKey)).toEqual(['4x72']);
+      expect(plan.groups[0]?.boards[0]?.pieces[0]?.widthIn).toBe(4);
+    });
   });
 });

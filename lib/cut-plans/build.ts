@@ -28,7 +28,17 @@ export type PlanBoard = {
   /** Lumber ripped into strips, in cut order; absent when every piece takes the board's full width. */
   strips?: PlanStrip[];
 };
-export type PlanPurchase = { sizeKey: string; lengthIn: number; widthIn: number | null; count: number; unitCents: number; costCents: number };
+export type PlanPurchase = {
+  sizeKey: string;
+  lengthIn: number;
+  /** Sheets, and hardwood boards (bought by width and length); null for softwood, whose width is its profile. */
+  widthIn: number | null;
+  count: number;
+  unitCents: number;
+  costCents: number;
+  /** Hardwood: board feet of one board of this size, as the yard tallies it. */
+  boardFeetEach?: number;
+};
 export type PlanUnplaced = { partId: string; name: string; quantity: number; reason: string };
 
 export type StockPlan = {
@@ -62,14 +72,20 @@ const EPS = 1e-6;
 const sizeKey = offerSizeKey;
 const round4 = (n: number) => Math.round(n * 10000) / 10000;
 
-function lumberUnitCents(stock: StockItemDto, lengthIn: number, offer: LumberOffer): number {
+/** A lumber size on sale; hardwood boards carry their own width (issue 16), softwood takes its profile's. */
+type BoardOffer = LumberOffer & { widthIn?: number };
+const boardWidth = (stock: StockItemDto, offer: BoardOffer): number => offer.widthIn ?? stock.widthIn ?? 0;
+const boardKey = (offer: BoardOffer): string => sizeKey(offer.lengthIn, offer.widthIn);
+
+function lumberUnitCents(stock: StockItemDto, lengthIn: number, offer: BoardOffer): number {
   if (stock.kind !== 'hardwood') return offer.priceCents;
-  return Math.round(boardFeet(stock.thicknessIn, stock.widthIn ?? 0, lengthIn) * (stock.pricePerBoardFootCents ?? 0));
+  // Source: USDA FPL Wood Handbook via lib/lumber boardFeet: thickness x width x length / 144, times the price per board foot.
+  return Math.round(boardFeet(stock.thicknessIn, boardWidth(stock, offer), lengthIn) * (stock.pricePerBoardFootCents ?? 0));
 }
 
-function lumberBoardFeet(stock: StockItemDto, lengthIn: number): number {
+function lumberBoardFeet(stock: StockItemDto, lengthIn: number, widthIn: number): number {
   if (stock.kind === 'softwood') return softwoodBoardFeet(parseNominalProfile(stock.nominal), lengthIn);
-  return boardFeet(stock.thicknessIn, stock.widthIn ?? 0, lengthIn);
+  return boardFeet(stock.thicknessIn, widthIn, lengthIn);
 }
 
 function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSettingsDto, timeLimitMs: number): StockPlan {
@@ -86,14 +102,16 @@ function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
     }
     return true;
   });
-  const offers = cheapestPerSize(stock.offers as LumberOffer[]);
-  // Parts narrower than the board are ripped side by side from it rather than each taking a board.
-  if (fits.some((p) => p.widthIn !== null && p.widthIn < width - EPS)) return planLumberRips(stock, parts, fits, unplaced, offers, settings, timeLimitMs);
+  const offers = cheapestPerSize(stock.offers as BoardOffer[]);
+  // Parts narrower than the board are ripped side by side from it rather than each taking a board;
+  // boards of several widths (hardwood, issue 16) always go to the rip planner, which chooses among them.
+  const severalWidths = new Set(offers.map((o) => boardWidth(stock, o))).size > 1;
+  if (severalWidths || fits.some((p) => p.widthIn !== null && p.widthIn < width - EPS)) return planLumberRips(stock, parts, fits, unplaced, offers, settings, timeLimitMs);
   const result = planLinearCuts({
     kerf: settings.kerfIn,
     endTrim: settings.endTrimIn,
     parts: fits.map((p) => ({ id: p.id, length: p.lengthIn, quantity: p.quantity, label: p.name })),
-    stock: offers.map((o) => ({ id: sizeKey(o.lengthIn), length: o.lengthIn, price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
+    stock: offers.map((o) => ({ id: boardKey(o), length: o.lengthIn, price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
     timeLimitMs,
   });
   const names = new Map(parts.map((p) => [p.id, p]));
@@ -122,17 +140,18 @@ function planLumberRips(
   parts: PlanPart[],
   fits: PlanPart[],
   unplaced: PlanUnplaced[],
-  offers: LumberOffer[],
+  offers: BoardOffer[],
   settings: CutSettingsDto,
   timeLimitMs: number,
 ): StockPlan {
-  const width = stock.widthIn ?? 0;
+  // A part with no width takes a board's full width; with several widths on sale, the narrowest, so it fits any board.
+  const fullWidth = Math.min(...offers.map((o) => boardWidth(stock, o)));
   const result = planRipCuts({
     kerf: settings.kerfIn,
     jointAllowance: settings.jointIn,
     endTrim: settings.endTrimIn,
-    parts: fits.map((p) => ({ id: p.id, length: p.lengthIn, width: p.widthIn ?? width, quantity: p.quantity, label: p.name })),
-    stock: offers.map((o) => ({ id: sizeKey(o.lengthIn), length: o.lengthIn, width, price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
+    parts: fits.map((p) => ({ id: p.id, length: p.lengthIn, width: p.widthIn ?? fullWidth, quantity: p.quantity, label: p.name })),
+    stock: offers.map((o) => ({ id: boardKey(o), length: o.lengthIn, width: boardWidth(stock, o), price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
     timeLimitMs,
   });
   const names = new Map(parts.map((p) => [p.id, p]));
@@ -169,7 +188,7 @@ type LumberResult = {
 /** What a lumber plan buys and costs, the same whether its boards were crosscut only or ripped first. */
 function lumberStockPlan(
   stock: StockItemDto,
-  offers: LumberOffer[],
+  offers: BoardOffer[],
   boards: PlanBoard[],
   result: LumberResult,
   unplaced: PlanUnplaced[],
@@ -177,10 +196,13 @@ function lumberStockPlan(
   waste: { bought: number; used: number },
 ): StockPlan {
   const purchase = result.purchase.map((p) => {
-    const offer = offers.find((o) => sizeKey(o.lengthIn) === p.stockId);
+    const offer = offers.find((o) => boardKey(o) === p.stockId);
     const lengthIn = offer?.lengthIn ?? 0;
     const unitCents = offer ? lumberUnitCents(stock, lengthIn, offer) : 0;
-    return { sizeKey: p.stockId, lengthIn, widthIn: null, count: p.count, unitCents, costCents: unitCents * p.count };
+    const widthIn = offer?.widthIn ?? null;
+    const line = { sizeKey: p.stockId, lengthIn, widthIn, count: p.count, unitCents, costCents: unitCents * p.count };
+    // Hardwood is bought by the board foot, so the line says how many each board is.
+    return stock.kind === 'hardwood' ? { ...line, boardFeetEach: round4(lumberBoardFeet(stock, lengthIn, offer ? boardWidth(stock, offer) : 0)) } : line;
   });
   return {
     stock: pickStock(stock),
@@ -189,7 +211,7 @@ function lumberStockPlan(
     costCents: purchase.reduce((a, p) => a + p.costCents, 0),
     lowerBoundCents: Math.round(result.lowerBound * 100),
     optimal: result.optimal && unplaced.length === 0,
-    boardFeet: round4(boards.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn), 0)),
+    boardFeet: round4(boards.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn, b.widthIn), 0)),
     squareFeet: null,
     wastePercent: waste.bought > 0 ? round4((100 * (waste.bought - waste.used)) / waste.bought) : 0,
     unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],

@@ -230,3 +230,138 @@ describe('planRipCuts: properties', () => {
     );
   });
 });
+
+/**
+ * Issue 16: a hardwood rack where every width x length is a board type priced by the board foot.
+ * Source: USDA FPL Wood Handbook, 1 board foot = 144 in³; price = thickness x width x length / 144 x price per board foot.
+ */
+const boardFootRequest = (maxPieces: number) =>
+  fc
+    .record({
+      kerf: fc.constantFrom(0, 0.125),
+      jointAllowance: fc.constantFrom(0, 1 / 16),
+      endTrim: fc.constantFrom(0, 0.5),
+      quarters: fc.constantFrom(4, 5, 8),
+      centsPerBoardFoot: fc.integer({ min: 400, max: 1400 }),
+      widths: fc.uniqueArray(fc.constantFrom(3.5, 4, 5.5, 7.25, 9.25), { minLength: 2, maxLength: 3 }),
+      lengths: fc.uniqueArray(fc.constantFrom(48, 72, 96, 120), { minLength: 1, maxLength: 2 }),
+      parts: fc.array(
+        fc.record({ length: fc.integer({ min: 6, max: 110 }), width: fc.constantFrom(1.5, 2, 2.5, 3.5, 5, 6.5), quantity: fc.integer({ min: 0, max: 3 }) }),
+        { minLength: 1, maxLength: 4 },
+      ),
+    })
+    .map(({ quarters, centsPerBoardFoot, widths, lengths, parts, ...rest }): RipCutRequest => {
+      let left = maxPieces;
+      return {
+        ...rest,
+        parts: parts.map((p, i) => {
+          const quantity = Math.min(p.quantity, left);
+          left -= quantity;
+          return { id: `p${i}`, length: p.length, width: p.width, quantity };
+        }),
+        stock: widths.flatMap((width) =>
+          lengths.map((length) => ({ id: `${width}x${length}`, length, width, price: Math.round(((quarters / 4) * width * length * centsPerBoardFoot) / 144) / 100 })),
+        ),
+        timeLimitMs: 300,
+      };
+    });
+
+describe('planRipCuts: hardwood of several widths priced by the board foot (issue 16)', () => {
+  it('places every piece on a board at least as wide as its strip, grain along the length, bound at or below cost', () => {
+    fc.assert(
+      fc.property(boardFootRequest(14), (req) => {
+        const plan = planRipCuts(req);
+        expectValidRipPlan(req, plan);
+        for (const board of plan.boards) {
+          for (const strip of board.strips) expect(strip.offset + strip.width).toBeLessThanOrEqual(board.width + EPS);
+        }
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('never claims optimal when brute force over every width and length finds cheaper', () => {
+    fc.assert(
+      fc.property(boardFootRequest(5), (req) => {
+        const plan = planRipCuts(req);
+        expectValidRipPlan(req, plan);
+        const best = bruteForceRipCost(req);
+        if (best === null || plan.unplaced.length > 0) return;
+        expect(plan.totalCost).toBeGreaterThanOrEqual(best - EPS);
+        if (plan.optimal) expect(plan.totalCost).toBeCloseTo(best, 6);
+        expect(plan.lowerBound).toBeLessThanOrEqual(best + EPS);
+      }),
+      { numRuns: 80 },
+    );
+  });
+
+  it('chooses a wider board when it is cheaper per part: one 7 1/4" board for six 2" slats, not three 4" boards', () => {
+    // At $10.00 a board foot, 4/4: 4" x 96" = 2.667 bd ft = $26.67, one 2" strip (two strips need 4.1875"), two slats;
+    // 7 1/4" x 96" = 4.833 bd ft = $48.33, three strips (6.375"), six slats. Three narrow boards would be $80.01.
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [{ id: 'slat', length: 40, width: 2, quantity: 6 }],
+      stock: [
+        { id: '4x96', length: 96, width: 4, price: 26.67 },
+        { id: '7.25x96', length: 96, width: 7.25, price: 48.33 },
+      ],
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    expect(plan.purchase).toEqual([{ stockId: '7.25x96', count: 1, cost: 48.33 }]);
+    expect(plan.optimal).toBe(true);
+  });
+
+  it('mixes widths and lengths when that is least cost: a 5" panel piece and narrow rails', () => {
+    // $10.00 a board foot, 4/4. Boards: 4" x 48" $13.33, 4" x 96" $26.67, 5 1/2" x 48" $18.33, 5 1/2" x 96" $36.67.
+    // A 5" x 40" panel needs a 5 1/2" board (48" is enough: $18.33). Three 3" x 30" rails: one 3" strip of a
+    // 4" x 96" board ($26.67) holds all three (3 x 30 1/8" <= 96 1/8"); a 4" x 48" holds one (three: $39.99).
+    // Panel and rails side by side need 5 + 3 + 3/16 > 5 1/2"; a 5 1/2" x 96" holds the panel and one rail
+    // in one strip ($36.67) but leaves two rails ($26.66 more). Least cost: $18.33 + $26.67 = $45.00.
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [
+        { id: 'panel', length: 40, width: 5, quantity: 1 },
+        { id: 'rail', length: 30, width: 3, quantity: 3 },
+      ],
+      stock: [
+        { id: '4x48', length: 48, width: 4, price: 13.33 },
+        { id: '4x96', length: 96, width: 4, price: 26.67 },
+        { id: '5.5x48', length: 48, width: 5.5, price: 18.33 },
+        { id: '5.5x96', length: 96, width: 5.5, price: 36.67 },
+      ],
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    expect(plan.totalCost).toBeCloseTo(45, 6);
+    expect(plan.purchase.map((p) => p.stockId).sort()).toEqual(['4x96', '5.5x48']);
+    expect(plan.optimal).toBe(true);
+    expect(bruteForceRipCost(req)).toBeCloseTo(45, 6);
+  });
+
+  it('puts a narrow strip beside a wide part on a wider board rather than buying a third board', () => {
+    // 4/4 at $9.50 a board foot (USDA FPL Wood Handbook, 144 in³): 4" x 72" $19.00, 5 1/2" x 72" $26.13,
+    // 7 1/4" x 72" $34.44. The 5 1/2" and 4 1/4" parts cannot share a board (5 1/2 + 3/16 + 4 1/4 > 7 1/4)
+    // nor a strip (59 1/4 + 64 1/4 > 72 1/8). On two 5 1/2" boards only one short part fits (beside the
+    // 59 1/8" part), so two more need a third board ($71.26). A 7 1/4" board takes the 4 1/4" part and a
+    // 2 3/8" strip of the other two beside it (4 1/4 + 3/16 + 2 3/8 = 6 13/16 <= 7 1/4): $26.13 + $34.44 = $60.57.
+    const price = (w: number, l: number) => Math.round(((w * l) / 144) * 950) / 100;
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      parts: [
+        { id: 'side', length: 59.125, width: 5.5, quantity: 1 },
+        { id: 'short', length: 9.25, width: 2.375, quantity: 3 },
+        { id: 'rail', length: 64.125, width: 4.25, quantity: 1 },
+      ],
+      stock: [4, 5.5, 7.25].flatMap((w) => [72, 96].map((l) => ({ id: `${w}x${l}`, length: l, width: w, price: price(w, l) }))),
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    expect(bruteForceRipCost(req)).toBeCloseTo(60.57, 6);
+    expect(plan.totalCost).toBeCloseTo(60.57, 6);
+    expect(plan.purchase.map((p) => p.stockId).sort()).toEqual(['5.5x72', '7.25x72']);
+  });
+});

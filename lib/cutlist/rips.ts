@@ -210,14 +210,26 @@ interface GreedyBoard {
   usedW: number;
 }
 
-/** Widest pieces first, each into the strip that fits it most snugly, else a new strip, else a new board. */
-function greedyRips(model: Model): { patterns: Pattern[]; unplaced: number[] } {
+/** How a greedy run orders the pieces and which stock it opens new boards on first. */
+interface GreedyStart {
+  /** Stock index opened for a new board whenever the piece fits it; -1 for the cheapest per area. */
+  prefer: number;
+  byLength: boolean;
+}
+
+/**
+ * Widest pieces first (or longest first), each into the strip that fits it most snugly, else a new
+ * strip, else a new board: of the preferred stock when the piece fits it, else the cheapest per area.
+ */
+function greedyRips(model: Model, start: GreedyStart = { prefer: -1, byLength: false }): { patterns: Pattern[]; unplaced: number[] } {
   const { kinds, stocks, rip } = model;
   const order: number[] = [];
   kinds.forEach((k, i) => {
     for (let q = 0; q < k.demand; q++) order.push(i);
   });
-  order.sort((a, b) => (kinds[b]?.width ?? 0) - (kinds[a]?.width ?? 0) || (kinds[b]?.size ?? 0) - (kinds[a]?.size ?? 0));
+  const wider = (a: number, b: number) => (kinds[b]?.width ?? 0) - (kinds[a]?.width ?? 0);
+  const longer = (a: number, b: number) => (kinds[b]?.size ?? 0) - (kinds[a]?.size ?? 0);
+  order.sort((a, b) => (start.byLength ? longer(a, b) || wider(a, b) : wider(a, b) || longer(a, b)));
   const boards: GreedyBoard[] = [];
   const used = stocks.map(() => 0);
   const unplaced = kinds.map(() => 0);
@@ -245,7 +257,8 @@ function greedyRips(model: Model): { patterns: Pattern[]; unplaced: number[] } {
         stocks.forEach((st, i) => {
           if (st.capL < kind.size || st.capW < kind.width + rip || (used[i] ?? 0) >= st.available) return;
           const p = stocks[pick];
-          if (!p || st.price / (st.capL * st.capW) < p.price / (p.capL * p.capW)) pick = i;
+          if (pick === start.prefer) return;
+          if (i === start.prefer || !p || st.price / (st.capL * st.capW) < p.price / (p.capL * p.capW)) pick = i;
         });
         if (pick < 0) {
           unplaced[k] = (unplaced[k] ?? 0) + 1;
@@ -287,6 +300,63 @@ function cheapestHolder(model: Model, p: Pattern, used: number[]): Pattern {
     used[best] = (used[best] ?? 0) + 1;
   }
   return { ...p, stock: best };
+}
+
+/**
+ * Greedy from several starts: each stock preferred in turn for new boards, pieces widest or longest
+ * first; boards then move to the cheapest stock that holds them. With boards of several widths and
+ * lengths priced by the board foot, every stock costs the same per area, so the plain greedy cannot
+ * tell them apart; the starts try each. Returns the cheapest plan that places the most, and every
+ * board seen (columns for the LP).
+ */
+function multiStartGreedy(model: Model, deadline: Deadline): { best: { patterns: Pattern[]; unplaced: number[] }; seen: Pattern[] } {
+  let best = greedyRips(model);
+  const seen = [...best.patterns];
+  const missing = (u: readonly number[]) => u.reduce((a, b) => a + b, 0);
+  for (const byLength of [false, true]) {
+    for (let prefer = byLength ? -1 : 0; prefer < model.stocks.length; prefer++) {
+      if (expired(deadline)) return { best, seen };
+      const run = greedyRips(model, { prefer, byLength });
+      seen.push(...run.patterns);
+      const better = missing(run.unplaced) - missing(best.unplaced) || costOf(model, run.patterns) - costOf(model, best.patterns);
+      if (better < 0) best = run;
+    }
+  }
+  return { best, seen };
+}
+
+/**
+ * Ruin and recreate: take two or three boards out of the plan at random, plan their pieces again from
+ * scratch with the greedy starts, and keep the result when the whole plan costs less. Pieces of
+ * poorly filled boards end up together, often on one board of another width or length.
+ * Source: G. Schrimpf et al., "Record breaking optimization results using the ruin and recreate
+ * principle", J. Computational Physics 159 (2000).
+ */
+function ruinAndRecreate(model: Model, patterns: Pattern[], deadline: Deadline, random: () => number): Pattern[] {
+  let best = patterns;
+  let bestCost = costOf(model, best);
+  for (let round = 0; round < 100_000 && best.length >= 2 && !expired(deadline); round++) {
+    const take = new Set<number>();
+    const want = Math.min(best.length, 2 + (random() < 0.3 ? 1 : 0));
+    while (take.size < want) take.add(Math.floor(random() * best.length));
+    const kept = best.filter((_, i) => !take.has(i));
+    const removed = best.filter((_, i) => take.has(i));
+    const used = model.stocks.map(() => 0);
+    kept.forEach((p) => (used[p.stock] = (used[p.stock] ?? 0) + 1));
+    const sub: Model = {
+      ...model,
+      kinds: model.kinds.map((k, j) => ({ ...k, demand: removed.reduce((a, p) => a + (p.counts[j] ?? 0), 0) })),
+      stocks: model.stocks.map((st, i) => ({ ...st, available: st.available - (used[i] ?? 0) })),
+    };
+    const again = multiStartGreedy(sub, deadline).best;
+    if (again.unplaced.some((n) => n > 0)) continue;
+    const cost = costOf(model, kept) + costOf(model, again.patterns);
+    if (cost < bestCost) {
+      best = [...kept, ...again.patterns];
+      bestCost = cost;
+    }
+  }
+  return best;
 }
 
 const stripWidth = (model: Model, counts: readonly number[]): number =>
@@ -354,7 +424,7 @@ function render(req: RipCutRequest, model: Model, patterns: readonly Pattern[], 
 export function planRipCuts(req: RipCutRequest): RipCutPlan {
   const deadline = deadlineIn(req.timeLimitMs ?? 2000);
   const model = modelOf(req);
-  const greedy = greedyRips(model);
+  const { best: greedy, seen } = multiStartGreedy(model, shareOf(deadline, 0.1));
   if (greedy.unplaced.some((n) => n > 0) || model.kinds.length === 0) {
     // Not everything fits the rack: plan what does, prove nothing.
     return render(req, model, greedy.patterns, greedy.unplaced, 0, model.kinds.length === 0 && model.unfit.length === 0);
@@ -363,7 +433,7 @@ export function planRipCuts(req: RipCutRequest): RipCutPlan {
     demand: model.kinds.map((k) => k.demand),
     stocks: model.stocks.map((s) => ({ price: s.price, available: s.available })),
     pricer: ripPricer(model, deadline),
-    pool: [...greedy.patterns],
+    pool: [...new Map(seen.map((p) => [`${p.stock}:${p.counts.join(',')}`, p])).values()],
   };
   let best = greedy.patterns;
   let bestCost = costOf(model, best);
@@ -374,11 +444,15 @@ export function planRipCuts(req: RipCutRequest): RipCutPlan {
     lb = achievableCost(problem.stocks, Math.ceil(value - Math.max(1, 1e-9 * Math.abs(value))), deadline);
   }
   if (bestCost > lb) {
-    const dived = diveSearch(problem, lb, deadline, rng(11));
+    const dived = diveSearch(problem, lb, shareOf(deadline, 0.6), rng(11));
     if (dived && dived.cost < bestCost) {
       const used = model.stocks.map(() => 0);
       dived.patterns.forEach((p) => (used[p.stock] = (used[p.stock] ?? 0) + 1));
       best = dived.patterns.map((p) => cheapestHolder(model, p, used));
+      bestCost = costOf(model, best);
+    }
+    if (bestCost > lb) {
+      best = ruinAndRecreate(model, best, deadline, rng(7));
       bestCost = costOf(model, best);
     }
   }

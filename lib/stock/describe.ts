@@ -1,6 +1,6 @@
 import { dressedSize, parseNominalProfile, plywoodActualThickness } from '@/lib/lumber';
 import { formatLength } from '@/lib/units';
-import type { CreateStockInput, LumberOffer, SheetOffer } from './schemas';
+import type { CreateStockInput, HardwoodOffer, LumberOffer, SheetOffer } from './schemas';
 
 export type StockDefinition = {
   kind: CreateStockInput['kind'];
@@ -10,7 +10,7 @@ export type StockDefinition = {
   thicknessIn: number;
   widthIn: number | null;
   pricePerBoardFootCents: number | null;
-  offers: (LumberOffer | SheetOffer)[];
+  offers: (LumberOffer | SheetOffer | HardwoodOffer)[];
 };
 
 const inch = (n: number) => formatLength(n, { unit: 'in' });
@@ -31,18 +31,23 @@ export function describeStock(input: CreateStockInput): StockDefinition {
         offers: sortOffers(input.offers.map((o) => ({ lengthIn: o.lengthIn, priceCents: o.price }))),
       };
     }
-    case 'hardwood':
+    case 'hardwood': {
+      const widths = [...new Set(input.offers.map((o) => o.widthIn))].sort((a, b) => a - b);
+      const narrowest = widths[0] ?? 0;
+      const widest = widths[widths.length - 1] ?? 0;
       return {
         kind: 'hardwood',
-        name: `${input.nominal} ${input.species}, ${inch(input.widthIn)} wide`,
+        // One width reads as before ("4/4 Ash, 6" wide"), so rows saved before issue 16 keep their names.
+        name: `${input.nominal} ${input.species}, ${widths.length > 1 ? `${inch(narrowest)} to ${inch(widest)}` : inch(widest)} wide`,
         species: input.species,
         nominal: input.nominal,
         // Hardwood is sold and tallied on its rough thickness in quarters; the shop surfaces it.
         thicknessIn: Number(input.nominal.split('/')[0]) / 4,
-        widthIn: input.widthIn,
+        widthIn: widest,
         pricePerBoardFootCents: input.pricePerBoardFoot,
-        offers: sortOffers(input.offers.map((o) => ({ lengthIn: o.lengthIn, priceCents: 0 }))),
+        offers: sortOffers(input.offers.map((o) => ({ widthIn: o.widthIn, lengthIn: o.lengthIn, priceCents: 0 }))),
       };
+    }
     case 'sheet': {
       const actual = input.plywood ? plywoodActualThickness(input.nominal) : undefined;
       return {

@@ -26,10 +26,29 @@ function lengthProblem(part: string, line: string, what = 'a length'): string | 
   }
 }
 
+const hardwoodExample = `6" x 8'`;
+
 /**
- * The rack form takes sizes on sale as text: lumber `8ft 4.50`, hardwood `8ft`, sheets `48 x 96 68.00`,
- * several separated as splitOffersList reads them. Each length is checked here so the error can name
- * the one not understood; the server parses them again.
+ * Hardwood boards as `width x length` (issue 16). A length alone takes the width before it, so
+ * `6" x 8', 10'` is two boards 6" wide; the first entry must name its width.
+ */
+function parseHardwoodEntry(line: string, width: string | undefined): { offer: Record<string, string> } | { error: string } {
+  const [w, l, extra] = line.split(/\s*[x×]\s*/i);
+  if (extra !== undefined || (l === undefined && width === undefined) || !w) {
+    return { error: `“${line}”: write the board as width x length, like ${hardwoodExample}.` };
+  }
+  if (l === undefined) {
+    const problem = lengthProblem(w, line);
+    return problem ? { error: problem } : { offer: { widthIn: width ?? '', lengthIn: w } };
+  }
+  const problem = lengthProblem(w, line, 'a width') ?? lengthProblem(l, line);
+  return problem ? { error: problem } : { offer: { widthIn: w, lengthIn: l } };
+}
+
+/**
+ * The rack form takes sizes on sale as text: lumber `8ft 4.50`, hardwood `6" x 8ft`, sheets
+ * `48 x 96 68.00`, several separated as splitOffersList reads them. Each length is checked here so the
+ * error can name the one not understood; the server parses them again.
  */
 export function parseOffersText(kind: StockItemDto['kind'], text: string): { offers: Record<string, string>[]; error?: string } {
   const lines = splitOffersList(text);
@@ -37,9 +56,9 @@ export function parseOffersText(kind: StockItemDto['kind'], text: string): { off
   const offers: Record<string, string>[] = [];
   for (const line of lines) {
     if (kind === 'hardwood') {
-      const problem = lengthProblem(line, line);
-      if (problem) return { offers, error: problem };
-      offers.push({ lengthIn: line });
+      const entry = parseHardwoodEntry(line, offers[offers.length - 1]?.widthIn);
+      if ('error' in entry) return { offers, error: entry.error };
+      offers.push(entry.offer);
       continue;
     }
     const m = line.match(/^(.*?)\s*(?:@\s*)?\$?(\d+(?:\.\d{1,2})?)$/);
@@ -64,8 +83,10 @@ export function offersToText(item: StockItemDto): string {
   return item.offers
     .map((o) => {
       const price = (o.priceCents / 100).toFixed(2);
+      // Hardwood: width x length, no price (it is priced by the board foot).
+      if (item.kind === 'hardwood') return 'widthIn' in o ? `${f(o.widthIn)} x ${f(o.lengthIn)}` : f(o.lengthIn);
       if ('widthIn' in o) return `${f(o.widthIn)} x ${f(o.lengthIn)} ${price}`;
-      return item.kind === 'hardwood' ? `${f(o.lengthIn)}` : `${f(o.lengthIn)} ${price}`;
+      return `${f(o.lengthIn)} ${price}`;
     })
     .join('\n');
 }

@@ -90,9 +90,9 @@ export const createStockSchema = z.discriminatedUnion(
       kind: z.literal('hardwood'),
       species,
       nominal: quarters,
-      widthIn: lengthInput('a board width', 48),
       pricePerBoardFoot: priceInput,
-      offers: lumberOffers(z.strictObject({ lengthIn: lumberLength })).refine(uniqueSizes, duplicateMessage),
+      // Issue 16: each size on sale is a width and a length ("7 1/4 x 8'"), priced by the board foot.
+      offers: lumberOffers(z.strictObject({ widthIn: lengthInput('a board width', 48), lengthIn: lumberLength })).refine(uniqueSizes, duplicateMessage),
     }),
     z.strictObject({
       kind: z.literal('sheet'),
@@ -136,6 +136,8 @@ export const stockParamsSchema = z.object({ channel: channelSlugSchema, stockId:
 
 export type LumberOffer = { lengthIn: number; priceCents: number };
 export type SheetOffer = { widthIn: number; lengthIn: number; priceCents: number };
+/** A hardwood board on sale: its width and length; the price comes from the item's price per board foot (priceCents is 0). */
+export type HardwoodOffer = { widthIn: number; lengthIn: number; priceCents: number };
 
 export type StockItemDto = {
   id: string;
@@ -144,11 +146,11 @@ export type StockItemDto = {
   species: string;
   nominal: string;
   thicknessIn: number;
-  /** Actual width of lumber; null for sheet goods. */
+  /** Actual width of lumber (hardwood: its widest board on sale); null for sheet goods. */
   widthIn: number | null;
   pricePerBoardFootCents: number | null;
-  /** Softwood and sheets carry their own price; hardwood is priced by the board foot. */
-  offers: (LumberOffer | SheetOffer)[];
+  /** Softwood and sheets carry their own price; hardwood boards (width x length) are priced by the board foot. */
+  offers: (LumberOffer | SheetOffer | HardwoodOffer)[];
 };
 
 export type CutSettingsDto = { kerfIn: number; endTrimIn: number; minOffcutIn: number; jointIn: number; lengthUnit: LengthUnit };

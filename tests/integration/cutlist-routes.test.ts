@@ -53,7 +53,7 @@ const cases: RouteCase[] = [
     allowed: [...editors],
     params: async (c) => ({ channel: c.channel.slug, stockId: (await addStock(c)).id }),
     body: () => ({ ...spf, offers: [{ lengthIn: '8ft', price: '4.48' }] }),
-    badBody: { kind: 'hardwood', species: 'Ash', nominal: '4/5', widthIn: '0', pricePerBoardFoot: 'free', offers: [] },
+    badBody: { kind: 'hardwood', species: 'Ash', nominal: '4/5', pricePerBoardFoot: 'free', offers: [{ widthIn: '0', lengthIn: '8ft' }] },
     okStatus: 200,
   },
   { name: 'DELETE stock item', fn: stockItemRoute.DELETE, method: 'DELETE', allowed: [...editors], params: async (c) => ({ channel: c.channel.slug, stockId: (await addStock(c)).id }), okStatus: 204 },
@@ -140,7 +140,7 @@ describe('stock rack', () => {
     const oak = await call(stockRoute.POST, 'POST', {
       as: c.host,
       params: { channel: c.channel.slug },
-      body: { kind: 'hardwood', species: 'White oak', nominal: '4/4', widthIn: '6', pricePerBoardFoot: '9.00', offers: [{ lengthIn: '96' }] },
+      body: { kind: 'hardwood', species: 'White oak', nominal: '4/4', pricePerBoardFoot: '9.00', offers: [{ widthIn: '6', lengthIn: '96' }] },
     });
     expect(oak.status).toBe(201);
     const { episode, segments } = await makeOutlinedEpisode(c);
@@ -149,7 +149,56 @@ describe('stock rack', () => {
     expect(add.status).toBe(201);
     const plan = await episodePlan(c, episode.id);
     // Source: USDA FPL Wood Handbook, 1 board foot = 144 in³: 1 x 6 x 96 / 144 = 4 board feet at $9.00.
-    expect(plan.whole.groups[0]?.purchase[0]).toMatchObject({ count: 1, unitCents: 3600 });
+    expect(plan.whole.groups[0]?.purchase[0]).toMatchObject({ sizeKey: '6x96', widthIn: 6, lengthIn: 96, count: 1, unitCents: 3600, boardFeetEach: 4 });
+  });
+
+  it('offers hardwood in several widths and lengths, and the plan buys the width that is cheapest for the parts (issue 16)', async () => {
+    const c = await makeCrew();
+    const post = (body: unknown) => call(stockRoute.POST, 'POST', { as: c.shopHand, params: { channel: c.channel.slug }, body });
+    const ash = await post({
+      kind: 'hardwood',
+      species: 'Ash',
+      nominal: '4/4',
+      pricePerBoardFoot: '10.00',
+      offers: [{ widthIn: '7 1/4', lengthIn: "8'" }, { widthIn: '4"', lengthIn: '8 ft' }, { widthIn: '4', lengthIn: '6ft' }],
+    });
+    expect(ash.status).toBe(201);
+    const item = ash.json.stockItem as StockItemDto;
+    // Sorted by width then length; the item's width is its widest board.
+    expect(item).toMatchObject({
+      name: '4/4 Ash, 4" to 7 1/4" wide',
+      widthIn: 7.25,
+      offers: [{ widthIn: 4, lengthIn: 72, priceCents: 0 }, { widthIn: 4, lengthIn: 96, priceCents: 0 }, { widthIn: 7.25, lengthIn: 96, priceCents: 0 }],
+    });
+    const { episode, segments } = await makeOutlinedEpisode(c);
+    const build = segments.find((s) => s.level === 2)!;
+    const add = await call(partsRoute.POST, 'POST', { as: c.shopHand, params: { channel: c.channel.slug, segmentId: build.id }, body: { name: 'Slat', quantity: 6, lengthIn: '40', widthIn: '2', stockItemId: item.id } });
+    expect(add.status).toBe(201);
+    const plan = await episodePlan(c, episode.id);
+    // Source: USDA FPL Wood Handbook, 144 in³ a board foot. Three 4" x 8' boards (one 2" strip each) would be
+    // $80.01; one 7 1/4" x 8' (4.83 bd ft, $48.33) takes three 2" strips of two slats.
+    expect(plan.whole.groups[0]?.purchase).toEqual([{ sizeKey: '7.25x96', lengthIn: 96, widthIn: 7.25, count: 1, unitCents: 4833, costCents: 4833, boardFeetEach: 4.8333 }]);
+    expect(plan.whole.optimal).toBe(true);
+    // The tick names the board by width and length.
+    const tick = await call(shoppingRoute.PUT, 'PUT', { as: c.shopHand, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: item.id, sizeKey: '7.25x96', board: 1, bought: true } });
+    expect(tick.status).toBe(200);
+  });
+
+  it('names the field of a hardwood board with no width, a bad width, or a size listed twice', async () => {
+    const c = await makeCrew();
+    const post = (offers: unknown) => call(stockRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug }, body: { kind: 'hardwood', species: 'Ash', nominal: '4/4', pricePerBoardFoot: '9', offers } });
+    const noWidth = await post([{ lengthIn: '8ft' }]);
+    expect(noWidth.status).toBe(400);
+    expect(noWidth.json.error?.fields?.['offers.0.widthIn']).toBe('Enter a board width, like 32 1/2 or 813mm.');
+    const wide = await post([{ widthIn: '6', lengthIn: '8ft' }, { widthIn: '60', lengthIn: '8ft' }]);
+    expect(wide.json.error?.fields).toEqual({ 'offers.1.widthIn': 'Enter a board width over 0 and up to 48 inches.' });
+    const twice = await post([{ widthIn: '6', lengthIn: '8ft' }, { widthIn: '6"', lengthIn: '96' }]);
+    expect(twice.json.error?.fields).toEqual({ offers: 'Each size is listed once.' });
+    // The same length in two widths is two boards.
+    expect((await post([{ widthIn: '6', lengthIn: '8ft' }, { widthIn: '5 1/2', lengthIn: '96' }])).status).toBe(201);
+    // The item's one width of before is no field of its own any more.
+    const old = await call(stockRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug }, body: { kind: 'hardwood', species: 'Elm', nominal: '4/4', widthIn: '6', pricePerBoardFoot: '9', offers: [{ widthIn: '6', lengthIn: '8ft' }] } });
+    expect(old.status).toBe(400);
   });
 });
 
@@ -244,7 +293,7 @@ describe('lengths and sizes as typed', () => {
     expect(offer.json.error?.fields?.['offers.0.lengthIn']).toBeTruthy();
     const twice = await post({ ...spf, offers: [{ lengthIn: '8ft', price: '4.50' }, { lengthIn: '96', price: '4.60' }] });
     expect(twice.json.error?.fields).toEqual({ offers: 'Each size is listed once.' });
-    const quarters = await post({ kind: 'hardwood', species: 'Ash', nominal: '17/4', widthIn: '6', pricePerBoardFoot: '9', offers: [{ lengthIn: '8ft' }] });
+    const quarters = await post({ kind: 'hardwood', species: 'Ash', nominal: '17/4', pricePerBoardFoot: '9', offers: [{ widthIn: '6', lengthIn: '8ft' }] });
     expect(Object.keys(quarters.json.error?.fields ?? {})).toEqual(['nominal']);
     expect((await call(stockRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug } })).json.stock).toEqual([]);
   });

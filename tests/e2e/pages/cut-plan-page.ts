@@ -18,11 +18,12 @@ export class PartsPage {
   }
 
   /** Fills the add-part form and submits it; the caller checks the outcome. */
-  async addPart({ name, quantity, length, stock }: { name: string; quantity: string; length: string; stock?: string }) {
+  async addPart({ name, quantity, length, width, stock }: { name: string; quantity: string; length: string; width?: string; stock?: string }) {
     const form = this.addForm();
     await form.getByLabel('Part').fill(name);
     await form.getByLabel('Qty').fill(quantity);
     await form.getByLabel('Length').fill(length);
+    if (width) await form.getByLabel('Width').fill(width);
     if (stock) await form.getByLabel('Stock').selectOption({ label: stock });
     await form.getByRole('button', { name: 'Add part' }).click();
   }

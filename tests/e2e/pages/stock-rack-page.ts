@@ -32,6 +32,17 @@ export class StockRackPage {
     await form.getByRole('button', { name: 'Add to rack' }).click();
   }
 
+  /** Fills the add form for hardwood boards (sizes as width x length) and submits it. */
+  async addHardwood({ species, quarters, pricePerBoardFoot, sizes }: { species: string; quarters: string; pricePerBoardFoot: string; sizes: string }) {
+    const form = this.addForm();
+    await form.getByLabel('Kind').selectOption({ label: 'Hardwood boards' });
+    await form.getByLabel('Species').fill(species);
+    await form.getByLabel('Thickness (quarters)').fill(quarters);
+    await form.getByLabel('Price per board foot').fill(pricePerBoardFoot);
+    await form.getByLabel('Sizes on sale').fill(sizes);
+    await form.getByRole('button', { name: 'Add to rack' }).click();
+  }
+
   /** A rack item's name as its card shows it, e.g. "2x4 SPF". */
   item(name: string) {
     return this.page.getByText(name, { exact: true });

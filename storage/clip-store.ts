@@ -25,8 +25,14 @@ export interface ClipStore {
    * checked against what it stored; null when it has none, and the caller reads the bytes back instead.
    */
   verifiedSha256(uploadId: string, size: number): Promise<string | null>;
-  /** Forgets what this process cached about an upload; called once the cross-process upload lock is held. */
+  /** Forgets what this process cached about an upload. */
   forget(uploadId: string): Promise<void>;
+  /** The cross-process upload lock is now held by this process (storage/upload-lock-queries.ts): drop what another process may have changed. */
+  uploadLocked(uploadId: string): Promise<void>;
+  /** The lock is about to be released: nothing seen under it may be trusted after. */
+  uploadUnlocked(uploadId: string): void;
+  /** The tus metadata of an upload (who uploads it, to which channel), or null when there is no such upload. */
+  uploadMetadata(uploadId: string): Promise<Record<string, string | null> | null>;
   savePoster(clipId: string, jpegPath: string): Promise<void>;
   readPoster(clipId: string): Promise<Readable | null>;
   removePoster(clipId: string): Promise<void>;

@@ -73,7 +73,15 @@ export class DiskClipStore implements ClipStore {
   }
 
   // Nothing is cached: every request reads the upload's .json file.
+  // One process per disk: nothing is cached that another process could change.
   async forget(): Promise<void> {}
+  async uploadLocked(): Promise<void> {}
+  uploadUnlocked(): void {}
+
+  async uploadMetadata(uploadId: string): Promise<Record<string, string | null> | null> {
+    const upload = await this.tus.getUpload(uploadId).catch(() => null);
+    return upload ? (upload.metadata ?? {}) : null;
+  }
 
   // Reading a local file back is cheap next to the upload itself, so the disk store keeps no digest.
   async verifiedSha256(): Promise<string | null> {

@@ -34,6 +34,24 @@ export function addDeleteObjectsMd5(stack: Stack): void {
   );
 }
 
+/**
+ * Part uploads say their payload is unsigned instead of the SDK hashing every in-memory part once more
+ * for the signature (a stream body is sent unsigned anyway). Their integrity is checked where it matters:
+ * each part's ETag must be the MD5 the upload hashed (upload-digest.ts), or the clip is read back.
+ * Source: Amazon S3 API Reference, "Authenticating Requests (AWS Signature Version 4)": x-amz-content-sha256
+ * may be UNSIGNED-PAYLOAD; @smithy/signature-v4 signs with a value already in that header.
+ */
+export function addUnsignedPartPayload(stack: Stack): void {
+  stack.add(
+    (next, context) => async (args) => {
+      const request = args.request as { headers?: Record<string, string> };
+      if (context.commandName === 'UploadPartCommand' && request.headers) request.headers['x-amz-content-sha256'] = 'UNSIGNED-PAYLOAD';
+      return next(args);
+    },
+    { step: 'build', name: 'kerflineUnsignedPartPayload', override: true },
+  );
+}
+
 export function makeS3Client(s: S3Settings): S3Client {
   const client = new S3Client(s3ClientConfig(s));
   addDeleteObjectsMd5(client.middlewareStack);

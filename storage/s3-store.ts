@@ -143,6 +143,19 @@ export class S3ClipStore implements ClipStore {
     return this.tus.forget(uploadId);
   }
 
+  uploadLocked(uploadId: string): Promise<void> {
+    return this.tus.lockTaken(uploadId);
+  }
+
+  uploadUnlocked(uploadId: string): void {
+    this.tus.lockReleased(uploadId);
+  }
+
+  /** From the upload record alone (cached): the policy check before the lock needs no parts or offset. */
+  async uploadMetadata(uploadId: string): Promise<Record<string, string | null> | null> {
+    return this.tus.uploadMetadata(checkUploadId(uploadId));
+  }
+
   verifiedSha256(uploadId: string, size: number): Promise<string | null> {
     return this.tus.finishedSha256(checkUploadId(uploadId), size);
   }

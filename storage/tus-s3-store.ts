@@ -1,8 +1,11 @@
-import { pipeline, type Readable } from 'node:stream';
+import { pipeline, Readable } from 'node:stream';
+import { pipeline as pipelineDone } from 'node:stream/promises';
 import type { Part } from '@aws-sdk/client-s3';
 import { S3Store, type MetadataValue } from '@tus/s3-store';
+import { ERRORS, Upload } from '@tus/server';
 import type { S3Settings } from './config';
-import { addDeleteObjectsMd5, s3ClientConfig } from './s3-client';
+import { PartBufferPool, PartSplitter } from './part-splitter';
+import { addDeleteObjectsMd5, addUnsignedPartPayload, s3ClientConfig } from './s3-client';
 import { digestKey, emptyChain, parseVerifiedDigest, PartDigestTap, verifiedSha256, type DigestChain } from './upload-digest';
 
 const isNotFound = (err: unknown): boolean => {
@@ -10,18 +13,42 @@ const isNotFound = (err: unknown): boolean => {
   return e.name === 'NoSuchKey' || e.name === 'NotFound' || e.$metadata?.httpStatusCode === 404;
 };
 
+// What ListParts answers once a multipart upload is completed or aborted (Source: @tus/s3-store 2.0.7 getUpload, the same codes).
+const isGoneUpload = (err: unknown): boolean => {
+  const e = err as { name?: string; Code?: string };
+  return ['NoSuchKey', 'NoSuchUpload'].some((code) => e.name === code || e.Code === code);
+};
+
 // Chains of uploads this process is writing. An upload left unfinished for a day is taken up again, if
 // ever, with a read-back at its finish; the cap bounds memory (a chain is a few hundred bytes per GiB).
 const CHAIN_IDLE_MS = 24 * 3600 * 1000;
 const MAX_CHAINS = 10_000;
 
+// Part buffers one PATCH may hold in memory: one filling and the rest on their way to S3 (with 8 MiB parts,
+// two at a time; 32 MiB took the app's RSS growth over its 64 MiB goal in bench/upload/s3.ts). Larger parts
+// (uploads above about 11 GiB with 1000 parts) are staged in the temp folder by @tus/s3-store, as before.
+// The CPU profile of a 512 MiB upload showed the temp files (written, then read again for the part upload)
+// costing the app more than the upload's MD5 and SHA-256.
+const PART_MEMORY_BYTES = 24 * 1024 * 1024;
+
+/** What the last look at an upload under this process's lock saw: its parts and the size of its `.part` tail (undefined: none). */
+type Seen = { lease: object; parts: Part[]; tailSize: number | undefined };
+
 /**
  * @tus/s3-store with the Content-MD5 fix on its own client, a way to drop one upload from its cache,
- * and the upload's SHA-256 computed while the parts stream out (upload-digest.ts), so finishing a clip
- * does not read the whole object back from S3.
+ * the upload's SHA-256 computed while the parts stream out (upload-digest.ts), so finishing a clip
+ * does not read the whole object back from S3, and two changes for throughput:
+ * - parts are cut in memory and sent while the PATCH goes on (part-splitter.ts) instead of through temp files;
+ * - a PATCH asks S3 about the upload once (ListParts and the tail's size, under the upload lock), where
+ *   @tus/s3-store asks again before writing, and the upload record (`<id>.info`, which does not change
+ *   once the upload's length is known) stays cached across requests.
  */
 export class TusS3Store extends S3Store {
   private readonly chains = new Map<string, { chain: DigestChain; at: number }>();
+  /** Uploads whose lock this process holds: a fresh token per hold. */
+  private readonly leases = new Map<string, object>();
+  private readonly seen = new Map<string, Seen>();
+  private readonly pool: PartBufferPool;
 
   constructor(s: S3Settings) {
     super({
@@ -30,15 +57,101 @@ export class TusS3Store extends S3Store {
       s3ClientConfig: { ...s3ClientConfig(s), bucket: s.bucket },
     });
     addDeleteObjectsMd5(this.client.middlewareStack);
+    addUnsignedPartPayload(this.client.middlewareStack);
+    this.pool = new PartBufferPool(this.preferredPartSize, Math.floor(PART_MEMORY_BYTES / this.preferredPartSize));
   }
 
   forget(id: string): Promise<void> {
+    this.seen.delete(id);
     return this.clearCache(id);
+  }
+
+  /**
+   * This process now holds the upload's lock. Another process may have written the upload since we last
+   * looked, so what we saw of its parts goes; the upload record stays unless its length was still open
+   * (creation-defer-length: a later PATCH may set it), since nothing else in it changes.
+   */
+  async lockTaken(id: string): Promise<void> {
+    this.seen.delete(id);
+    this.leases.set(id, {});
+    const cached = await this.cache.get(id);
+    if (cached?.file.size === undefined) await this.clearCache(id);
+  }
+
+  /** The upload's tus metadata from its record (cached), or null when there is none. */
+  async uploadMetadata(id: string): Promise<Record<string, string | null> | null> {
+    try {
+      return (await this.getMetadata(id)).file.metadata ?? {};
+    } catch {
+      return null;
+    }
+  }
+
+  lockReleased(id: string): void {
+    this.leases.delete(id);
+    this.seen.delete(id);
+  }
+
+  /**
+   * @tus/s3-store 2.0.7's getUpload (the offset is the parts plus the tail), also remembering what it saw
+   * when this process holds the upload's lock from before it looked until after, for the write that follows.
+   */
+  override async getUpload(id: string): Promise<Upload> {
+    const lease = this.leases.get(id);
+    const wasCached = Boolean(await this.cache.get(id));
+    let metadata: MetadataValue;
+    try {
+      metadata = await this.getMetadata(id);
+    } catch {
+      throw ERRORS.FILE_NOT_FOUND;
+    }
+    let parts: Part[];
+    try {
+      parts = await this.retrieveParts(id);
+    } catch (err) {
+      if (!isGoneUpload(err)) throw err;
+      // Completed, or removed by another process while its record was cached here: only a fresh read tells.
+      if (wasCached) {
+        await this.clearCache(id);
+        return this.getUpload(id);
+      }
+      return new Upload({ ...metadata.file, offset: metadata.file.size ?? 0 });
+    }
+    const tailSize = await this.getIncompletePartSize(id);
+    if (lease && this.leases.get(id) === lease) this.seen.set(id, { lease, parts, tailSize });
+    const offset = parts.reduce((sum, p) => sum + (p.Size ?? 0), 0) + (tailSize ?? 0);
+    return new Upload({ ...metadata.file, offset });
+  }
+
+  /**
+   * @tus/s3-store 2.0.7's write, without asking S3 again what getUpload just saw under the same lock, and with
+   * the tail (under the minimum part size, so at most 5 MiB) read into memory rather than a temp file.
+   */
+  override async write(src: Readable, id: string, offset: number): Promise<number> {
+    const seen = this.seen.get(id);
+    this.seen.delete(id);
+    const known = seen && this.leases.get(id) === seen.lease ? seen : null;
+    const metadata = await this.getMetadata(id);
+    const parts = known?.parts ?? (await this.retrieveParts(id));
+    const nextPartNumber = (parts.at(-1)?.PartNumber ?? 0) + 1;
+    const tail = known && known.tailSize === undefined ? undefined : await this.readTail(id);
+    if (tail) await this.deleteIncompletePart(id);
+    const source = tail ? Readable.from(prepend(tail, src)) : src;
+    const tailBytes = tail?.length ?? 0;
+    const uploaded = await this.uploadParts(metadata, source, nextPartNumber, offset - tailBytes);
+    const newOffset = offset + uploaded - tailBytes;
+    if (metadata.file.size === newOffset) {
+      await this.finishMultipartUpload(metadata, await this.retrieveParts(id));
+      await this.completeMetadata(metadata.file);
+      await this.clearCache(id);
+    }
+    return newOffset;
   }
 
   // @tus/s3-store 2.0.7 leaves the trailing short part (`<id>.part`) behind when tus DELETE cancels an upload.
   override async remove(id: string): Promise<void> {
     this.chains.delete(id);
+    this.seen.delete(id);
     await super.remove(id);
     await this.client.deleteObjects({ Bucket: this.bucket, Delete: { Objects: [{ Key: this.partKey(id, true) }, { Key: digestKey(id) }], Quiet: true } });
   }
@@ -52,13 +165,14 @@ export class TusS3Store extends S3Store {
    */
   protected override async uploadParts(metadata: MetadataValue, readStream: Readable, currentPartNumber: number, offset: number): Promise<number> {
     const id = metadata.file.id;
+    const partSize = this.calcOptimalPartSize(metadata.file.size);
     const start = this.chainAt(id, offset, currentPartNumber - 1);
-    if (!start) return super.uploadParts(metadata, readStream, currentPartNumber, offset);
-    const tap = new PartDigestTap(start, this.calcOptimalPartSize(metadata.file.size));
+    if (!start) return this.sendParts(metadata, readStream, currentPartNumber, offset, partSize);
+    const tap = new PartDigestTap(start, partSize);
     let uploaded: number;
     try {
       // pipeline() carries an aborted request's error on to the tap, so the splitter behind it fails as it would have.
-      uploaded = await super.uploadParts(metadata, pipeline(readStream, tap, () => {}), currentPartNumber, offset);
+      uploaded = await this.sendParts(metadata, pipeline(readStream, tap, () => {}), currentPartNumber, offset, partSize);
     } catch (err) {
       const stored = await this.retrieveParts(id).catch(() => null);
       if (stored) this.keep(id, tap.chainAfter(start, metadata.file.size, this.minPartSize, stored.map((p) => p.ETag)));
@@ -66,6 +180,44 @@ export class TusS3Store extends S3Store {
     }
     this.keep(id, tap.chainAfter(start, metadata.file.size, this.minPartSize));
     return uploaded;
+  }
+
+  /**
+   * The parts of one write, cut in memory and sent up to the memory budget at once; the same rule as
+   * @tus/s3-store 2.0.7 uploadParts for which piece becomes a part (at least the minimum part size, or the
+   * upload's last) and which the tail. Parts too large for the budget go through its temp files.
+   */
+  private async sendParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number): Promise<number> {
+    const inFlight = Math.floor(PART_MEMORY_BYTES / partSize) - 1;
+    if (inFlight < 1) return super.uploadParts(metadata, stream, firstPart, offset);
+    const { id, size } = metadata.file;
+    const pool = partSize === this.pool.partSize ? this.pool : new PartBufferPool(partSize, inFlight + 1);
+    let uploaded = 0;
+    const splitter = new PartSplitter(pool, inFlight, async (bytes, start) => {
+      if (bytes.length >= this.minPartSize || offset + start + bytes.length === size) {
+        await this.uploadPart(metadata, bytes, firstPart + start / partSize);
+      } else {
+        await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
+      }
+      uploaded += bytes.length;
+    });
+    let failure: unknown = null;
+    await pipelineDone(stream, splitter).catch((err: unknown) => {
+      failure = err;
+    });
+    // Every part already started finishes (or fails) before the write answers, as in @tus/s3-store.
+    await splitter.settled();
+    if (failure) throw failure;
+    return uploaded;
+  }
+
+  /** The tail a previous PATCH left (`<id>.part`), or undefined. */
+  private async readTail(id: string): Promise<Buffer | undefined> {
+    const body = await this.getIncompletePart(id);
+    if (!body) return undefined;
+    const chunks: Buffer[] = [];
+    for await (const chunk of body) chunks.push(chunk as Buffer);
+    return Buffer.concat(chunks);
   }
 
   /** At the last byte: the SHA-256 counts only when S3's parts are, one for one, the parts the chain hashed. */
@@ -110,4 +262,9 @@ export class TusS3Store extends S3Store {
     }
     this.chains.set(id, { chain, at: now });
   }
+}
+
+async function* prepend(head: Buffer, rest: Readable): AsyncGenerator<Buffer> {
+  yield head;
+  for await (const chunk of rest) yield chunk as Buffer;
 }

@@ -10,7 +10,7 @@ import { findUploadTarget, roleInChannel } from '@/lib/clips/queries';
 import { appUrl, config } from '@/lib/config';
 import { isAcceptedType, uploadMetadataSchema } from '@/lib/clips/schemas';
 import type { UserDto } from '@/lib/users/schemas';
-import type { ClipStore } from './clip-store';
+import { isUploadId, type ClipStore } from './clip-store';
 import { ingestUpload } from './ingest';
 import { tusError } from './tus-errors';
 
@@ -31,10 +31,11 @@ export function uploadHooks(store: ClipStore) {
       if (crossSite) throw tusError(403, crossSite.message);
       const user = await authenticate(req);
       if (req.method === 'POST' || !uploadId) return;
-      const upload = await store.tus.getUpload(uploadId).catch(() => null);
-      const meta = upload?.metadata ?? {};
+      // Only who and where: the handler reads the upload's offset again under its lock.
+      const found = isUploadId(uploadId) ? await store.uploadMetadata(uploadId) : null;
+      const meta = found ?? {};
       // Someone else's upload does not exist as far as this person can tell.
-      if (!upload || meta.uploaderId !== user.id || !meta.channelId) throw notYours();
+      if (!found || meta.uploaderId !== user.id || !meta.channelId) throw notYours();
       const role = await roleInChannel(user.id, meta.channelId);
       if (!role) throw notYours();
       if (!can(role, 'clips.upload')) throw tusError(403, 'Your role on this channel does not allow uploading clips.');

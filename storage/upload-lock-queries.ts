@@ -14,6 +14,8 @@ export type PgLockerOptions = {
   pollMs?: number;
   /** Runs once the lock is held, before the request touches the upload. */
   onAcquired?: (uploadId: string) => Promise<void>;
+  /** Runs just before the lock is given up, while no other process can have it yet. */
+  onReleasing?: (uploadId: string) => void;
 };
 
 /**
@@ -88,6 +90,7 @@ class PgLock implements Lock {
     const client = this.client;
     if (!client) throw new Error('Releasing an upload lock that is not held');
     this.client = null;
+    this.options.onReleasing?.(this.id);
     try {
       await client.query('select pg_advisory_unlock($1, hashtext($2))', [NAMESPACE, this.id]);
       client.release();

@@ -53,9 +53,12 @@ export async function makeSource(file: string, size: number) {
 
 /** `next start` on `port` with `env` on top of ours; background workers off so only the upload runs. */
 export async function startApp(port: number, env: Record<string, string>): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-p', String(port), '-H', '127.0.0.1'], {
+  // BENCH_APP_NODE_ARGS: node flags for the app alone, e.g. `--cpu-prof --cpu-prof-dir=DIR` (not allowed in NODE_OPTIONS).
+  const nodeArgs = process.env.BENCH_APP_NODE_ARGS?.split(' ').filter(Boolean) ?? [];
+  const child = spawn(process.execPath, [...nodeArgs, 'node_modules/next/dist/bin/next', 'start', '-p', String(port), '-H', '127.0.0.1'], {
     env: { ...process.env, NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1', KERFLINE_MAIL_WORKER: 'off', KERFLINE_CLIP_WORKER: 'off', NEXTAUTH_URL: `http://127.0.0.1:${port}`, ...env },
-    stdio: 'ignore',
+    // BENCH_APP_LOG: the app's output goes to that file (with DEBUG=tus-node-server:* the S3 store's part timestamps).
+    stdio: process.env.BENCH_APP_LOG ? ['ignore', fs.openSync(process.env.BENCH_APP_LOG, 'a'), fs.openSync(process.env.BENCH_APP_LOG, 'a')] : 'ignore',
   });
   for (let i = 0; i < 240; i++) {
     if (await fetch(`http://127.0.0.1:${port}/sign-in`).then((r) => r.ok).catch(() => false)) return child;
@@ -78,9 +81,23 @@ export function tusUpload(port: number, file: string, cookie: string, metadata: 
       retryDelays: [],
       onError: reject,
       onSuccess: () => resolve(),
+      // BENCH_TRACE: one line per PATCH (start and end, ms since the epoch) appended to that file, to set beside the app's log.
+      ...(process.env.BENCH_TRACE ? patchTrace(process.env.BENCH_TRACE) : {}),
     });
     upload.start();
   });
+}
+
+function patchTrace(file: string) {
+  const started = new Map<unknown, number>();
+  return {
+    onBeforeRequest: (req: { getMethod(): string }) => void started.set(req, Date.now()),
+    onAfterResponse: (req: { getMethod(): string; getHeader(h: string): string | undefined }, res: { getStatus(): number; getHeader(h: string): string | undefined }) => {
+      const t0 = started.get(req);
+      started.delete(req);
+      fs.appendFileSync(file, `${req.getMethod()} ${t0 ?? 0} ${Date.now()} ${res.getStatus()} offset ${res.getHeader('Upload-Offset') ?? ''}\n`);
+    },
+  };
 }
 
 /** A throwaway user, channel, episode and segment, a session cookie for them, and how to remove it all. */

@@ -25,6 +25,7 @@ import type { S3Settings } from '@/storage/config';
 import { sha256Of } from '@/storage/ingest';
 import { makeS3Client } from '@/storage/s3-client';
 import { S3ClipStore } from '@/storage/s3-store';
+import { startTraceProxy } from './s3-trace-proxy';
 import { benchChannel, makeSource, mibps, peakRssGrowth, startApp, tusUpload } from './lib';
 
 const argMib = process.argv.indexOf('--mib');
@@ -33,6 +34,8 @@ const SIZE = MIB * 1024 * 1024;
 const argRuns = process.argv.indexOf('--runs');
 const RUNS = argRuns > 0 ? Math.max(1, Number(process.argv[argRuns + 1])) : 1;
 const PAIRS = !process.argv.includes('--no-pairs');
+const argTrace = process.argv.indexOf('--trace');
+const TRACE = argTrace > 0 ? path.resolve(process.argv[argTrace + 1] ?? 'bench-trace') : null;
 const PORT_A = Number(process.env.BENCH_APP_PORT ?? 3198);
 const PORT_B = Number(process.env.BENCH_APP_PORT_B ?? PORT_A + 1);
 const WORK = path.resolve('.data/bench-upload-s3');
@@ -86,6 +89,16 @@ const appEnv = (s: S3Settings): Record<string, string> => ({
   S3_SECRET_ACCESS_KEY: s.secretAccessKey ?? '',
 });
 
+async function startTrace(dir: string, endpoint: string) {
+  fs.rmSync(dir, { recursive: true, force: true });
+  fs.mkdirSync(dir, { recursive: true });
+  process.env.BENCH_TRACE = path.join(dir, 'patches.log');
+  process.env.BENCH_APP_LOG = path.join(dir, 'app.log');
+  process.env.DEBUG = 'tus-node-server:*';
+  console.log(`Tracing into ${dir}: S3 requests pass a logging proxy, so these numbers are not comparable to untraced runs.`);
+  return startTraceProxy(endpoint, path.join(dir, 's3.log'));
+}
+
 async function main() {
   fs.rmSync(WORK, { recursive: true, force: true });
   fs.mkdirSync(WORK, { recursive: true });
@@ -97,7 +110,9 @@ async function main() {
   const client = makeS3Client(settings);
   await client.send(new CreateBucketCommand({ Bucket: settings.bucket }));
   const { cookie, metadata, remove } = await benchChannel();
-  const apps = [await startApp(PORT_A, appEnv(settings))];
+  // --trace DIR: the app talks to S3 through a logging proxy; PATCH, S3 request and part timestamps go to DIR (trace-report.ts reads them).
+  const proxy = TRACE ? await startTrace(TRACE, settings.endpoint ?? '') : null;
+  const apps = [await startApp(PORT_A, appEnv(proxy ? { ...settings, endpoint: proxy.endpoint } : settings))];
   // Stopped by hand (Ctrl-C, kill): the app processes and Swift go too, rather than hold their ports.
   const onSignal = () => {
     for (const app of apps) app.kill('SIGKILL');
@@ -180,6 +195,7 @@ async function main() {
     }
   } finally {
     for (const app of apps) app.kill('SIGTERM');
+    await proxy?.close();
     await remove();
     await emptyBucket(client, settings.bucket).catch((err: unknown) => console.error('bucket clean-up', err));
     client.destroy();

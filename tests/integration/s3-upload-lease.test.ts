@@ -1,0 +1,117 @@
+import { createHash, randomBytes } from 'node:crypto';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { Readable } from 'node:stream';
+import { Upload } from '@tus/server';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { S3Settings } from '@/storage/config';
+import { sha256Of } from '@/storage/ingest';
+import { S3ClipStore } from '@/storage/s3-store';
+import { newTestBucket } from './s3-bucket';
+
+// What the S3 tus store may remember between the steps of a PATCH (storage/tus-s3-store.ts): the parts it saw
+// under the upload lock, and the upload record, against the real Swift server `npm test` starts. Requests
+// pass a counting proxy so the test sees how many the store makes.
+
+const MiB = 1024 * 1024;
+const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
+
+let settings: S3Settings;
+let proxied: S3Settings;
+let proxy: http.Server;
+const requests: string[] = [];
+
+beforeAll(async () => {
+  settings = await newTestBucket('lease');
+  const to = new URL(settings.endpoint ?? '');
+  proxy = http.createServer((req, res) => {
+    const q = new URL(req.url ?? '/', 'http://x').searchParams;
+    // Source: Amazon S3 API Reference, the operations' request syntax (partNumber + uploadId: UploadPart; uploadId alone on GET: ListParts).
+    requests.push(q.has('partNumber') ? 'UploadPart' : req.method === 'GET' && q.has('uploadId') ? 'ListParts' : `${req.method} ${req.url?.split('?')[0]?.split('.').pop()}`);
+    const up = http.request({ host: to.hostname, port: to.port, method: req.method, path: req.url, headers: req.headers }, (r) => {
+      res.writeHead(r.statusCode ?? 502, r.headers);
+      r.pipe(res);
+    });
+    up.on('error', () => res.destroy());
+    req.pipe(up);
+  });
+  await new Promise<void>((resolve) => proxy.listen(0, '127.0.0.1', resolve));
+  proxied = { ...settings, endpoint: `http://127.0.0.1:${(proxy.address() as AddressInfo).port}` };
+});
+
+afterAll(async () => {
+  proxy.closeAllConnections();
+  await new Promise((resolve) => proxy.close(resolve));
+});
+
+async function newUpload(store: S3ClipStore, size: number): Promise<string> {
+  const id = randomBytes(16).toString('hex');
+  await store.tus.create(new Upload({ id, size, offset: 0, metadata: { uploaderId: 'u1' }, creation_date: new Date().toISOString() }));
+  return id;
+}
+
+/** One PATCH as @tus/server runs it: lock, look, write, unlock. */
+async function patch(store: S3ClipStore, id: string, bytes: Buffer, start: number, end: number): Promise<number> {
+  await store.uploadLocked(id);
+  try {
+    const { offset } = await store.tus.getUpload(id);
+    expect(offset).toBe(start);
+    return await store.tus.write(Readable.from([bytes.subarray(start, end)]), id, offset);
+  } finally {
+    store.uploadUnlocked(id);
+  }
+}
+
+describe('the S3 tus store between the steps of a PATCH', () => {
+  it('asks S3 about the upload once per PATCH: its parts and its tail, then sends the parts', async () => {
+    const store = new S3ClipStore(proxied);
+    const bytes = randomBytes(24 * MiB);
+    const id = await newUpload(store, bytes.length);
+    await patch(store, id, bytes, 0, 8 * MiB);
+    requests.length = 0;
+    await patch(store, id, bytes, 8 * MiB, 16 * MiB);
+    expect(requests).toEqual(['ListParts', 'HEAD part', 'UploadPart']);
+  });
+
+  it('looks again after another process held the lock, and the bytes stay whole', async () => {
+    const [a, b] = [new S3ClipStore(settings), new S3ClipStore(settings)];
+    const bytes = randomBytes(21 * MiB + 7);
+    const id = await newUpload(a, bytes.length);
+    // A leaves a 1 MiB tail, B writes across it, A takes up B's tail and finishes.
+    await patch(a, id, bytes, 0, 9 * MiB);
+    await patch(b, id, bytes, 9 * MiB, 19 * MiB);
+    expect(await patch(a, id, bytes, 19 * MiB, bytes.length)).toBe(bytes.length);
+    expect(await sha256Of(await a.read(id))).toBe(sha256(bytes));
+    // B's PATCH broke A's digest chain: the hash comes from reading back, never from a stale chain.
+    expect(await a.verifiedSha256(id, bytes.length)).toBeNull();
+  });
+
+  it('does not take an upload removed by another process for a finished one, though its record was cached', async () => {
+    const [a, b] = [new S3ClipStore(settings), new S3ClipStore(settings)];
+    const bytes = randomBytes(6 * MiB);
+    const id = await newUpload(a, bytes.length);
+    await patch(a, id, bytes, 0, 2 * MiB);
+    expect(await a.uploadMetadata(id)).toMatchObject({ uploaderId: 'u1' });
+    await b.remove(id);
+    await a.uploadLocked(id);
+    await expect(a.tus.getUpload(id)).rejects.toMatchObject({ status_code: 404 });
+    a.uploadUnlocked(id);
+    expect(await b.uploadMetadata(id)).toBeNull();
+  });
+
+  it('finishes an upload whose last PATCH carries the tail and a short last part, with its hash on the way in', async () => {
+    const store = new S3ClipStore(proxied);
+    const bytes = randomBytes(19 * MiB + 3);
+    const id = await newUpload(store, bytes.length);
+    await patch(store, id, bytes, 0, 3 * MiB);
+    await patch(store, id, bytes, 3 * MiB, 11 * MiB);
+    expect(await patch(store, id, bytes, 11 * MiB, bytes.length)).toBe(bytes.length);
+    expect(await store.verifiedSha256(id, bytes.length)).toBe(sha256(bytes));
+    expect(await sha256Of(await store.read(id))).toBe(sha256(bytes));
+    // A finished upload reads as finished, also on a process that never saw it.
+    await store.uploadLocked(id);
+    expect((await store.tus.getUpload(id)).offset).toBe(bytes.length);
+    store.uploadUnlocked(id);
+    expect((await new S3ClipStore(settings).tus.getUpload(id)).offset).toBe(bytes.length);
+  });
+});

@@ -14,6 +14,7 @@ import * as sponsorKeepsDeals from './20261217000000_sponsor_keeps_deals';
 import * as clipCrc32 from './20261218000000_clip_crc32';
 import * as clipsSha256Index from './20261219000000_clips_sha256_index';
 import * as shoppingBoardTicks from './20261220000000_shopping_board_ticks';
+import * as onHandStock from './20261221000000_on_hand_stock';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -35,6 +36,7 @@ const migrations: Record<string, Migration> = {
   '20261218000000_clip_crc32': clipCrc32,
   '20261219000000_clips_sha256_index': clipsSha256Index,
   '20261220000000_shopping_board_ticks': shoppingBoardTicks,
+  '20261221000000_on_hand_stock': onHandStock,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

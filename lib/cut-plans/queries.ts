@@ -41,7 +41,8 @@ export async function planEpisode(channelId: string, episodeId: string): Promise
   return { whole: withCutCounts(whole, parts), levels: levels.map((l) => ({ ...l, plan: withCutCounts(l.plan, parts) })), ticks, records, lengthUnit: settings.lengthUnit, minOffcutIn: settings.minOffcutIn, kerfIn: settings.kerfIn };
 }
 
-export async function planSegment(channelId: string, segmentId: string): Promise<{ plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number }> {
+/** `allCut`: the segment has parts with stock and cut records have cut every piece of them. */
+export async function planSegment(channelId: string, segmentId: string): Promise<{ plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number; allCut: boolean }> {
   const [parts, stock, settings, records, onHand] = await Promise.all([
     listSegmentParts(channelId, segmentId),
     listStock(channelId),
@@ -49,8 +50,9 @@ export async function planSegment(channelId: string, segmentId: string): Promise
     listSegmentCutRecords(channelId, segmentId),
     listOnHandStock(channelId),
   ]);
-  const { whole } = await computePlan(channelId, { parts: partsLeftToCut(parts, records), stock, settings, onHand, byLevel: false, budgetMs: SEGMENT_BUDGET_MS });
-  return { plan: withCutCounts(whole, parts), lengthUnit: settings.lengthUnit, kerfIn: settings.kerfIn };
+  const left = partsLeftToCut(parts, records);
+  const { whole } = await computePlan(channelId, { parts: left, stock, settings, onHand, byLevel: false, budgetMs: SEGMENT_BUDGET_MS });
+  return { plan: withCutCounts(whole, parts), allCut: parts.length > 0 && left.length === 0, lengthUnit: settings.lengthUnit, kerfIn: settings.kerfIn };
 }
 
 /** Cut counts of every part, including those a cut record has fully cut (they are not planned again). */

@@ -4,6 +4,7 @@ import * as doneRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/cu
 import * as pieceRoute from '@/app/api/channels/[channel]/on-hand/[pieceId]/route';
 import * as onHandRoute from '@/app/api/channels/[channel]/on-hand/route';
 import * as partRoute from '@/app/api/channels/[channel]/parts/[partId]/route';
+import * as segmentPlanRoute from '@/app/api/channels/[channel]/segments/[segmentId]/cut-plan/route';
 import { db } from '@/db/client';
 import type { CutRecordDto } from '@/lib/cut-plans/cut-records';
 import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
@@ -154,6 +155,8 @@ describe('mark these cuts done', () => {
     expect(plan.whole.groups).toEqual([]);
     expect(plan.records.map((r) => r.id)).toEqual([record.id]);
     expect(plan.whole.cutCounts[part.id]).toBe(14);
+    const segmentPlan = await call(segmentPlanRoute.GET, 'GET', { as: c.editor, params: { channel: c.channel.slug, segmentId: part.segmentId } });
+    expect(segmentPlan.json).toMatchObject({ allCut: true, plan: { groups: [], pieceCount: 0 } });
 
     // Pressed again: nothing changes.
     const again = await markDone(c, episode.id, stock.id, c.host);

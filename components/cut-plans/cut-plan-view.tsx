@@ -89,7 +89,8 @@ function StockSection({
     <section aria-label={g.stock.name} className="break-inside-avoid rounded-card border border-paper-edge bg-white/60 p-4 shadow-card">
       <h3 className="text-base font-bold">{g.stock.name}</h3>
       <p className="text-xs text-ink-faint">
-        {sheet ? `${g.squareFeet?.toFixed(1)} sq ft` : `${g.boardFeet?.toFixed(2)} board feet`} · waste {g.wastePercent.toFixed(1)}% ·{' '}
+        {sheet ? `${g.squareFeet?.toFixed(1)} sq ft` : `${g.boardFeet?.toFixed(2)} board feet`}
+        {g.pulled.length > 0 ? ' to buy' : ''} · waste {g.wastePercent.toFixed(1)}% ·{' '}
         <span title={PLAN_QUALITY_NOTE}>{g.optimal ? 'least-cost plan' : 'good plan, may not be the cheapest'}</span>
       </p>
       {g.pulled.length > 0 ? <PullTable group={g} sizeLabel={sizeLabel} /> : null}

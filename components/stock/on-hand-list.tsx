@@ -83,7 +83,7 @@ export function OnHandList({ channelSlug, canEdit, initialStock, initialPieces, 
                 {canEdit && editing !== p.id ? (
                   <div className="flex gap-1">
                     <Button variant="quiet" aria-label={`Change count of ${p.stockName} ${size(p)}`} onClick={() => startEditing(p.id)}>
-                      Count
+                      Edit count
                     </Button>
                     <Button variant="quiet" aria-label={`Remove ${p.stockName} ${size(p)}`} disabled={removing.mutation.isPending} onClick={() => removing.submit(p.id)}>
                       Remove

@@ -13,7 +13,7 @@ test('a board on hand is pulled instead of bought, and marking the cuts done put
   const rack = new StockRackPage(page);
   await rack.goto();
   await rack.addSoftwood({ species, profile: '2x4', sizes: '10ft 6.20' });
-  await expect(rack.item(stockName).first()).toBeVisible();
+  await expect(rack.item(stockName)).toBeVisible();
 
   // Three 30" rails: one 10 ft board to buy while nothing is on hand.
   const parts = new PartsPage(page);

@@ -53,8 +53,8 @@ export class StockRackPage {
     return this.onHand().getByRole('listitem').filter({ hasText: text });
   }
 
-  /** A rack item's name as its card shows it, e.g. "2x4 SPF". */
+  /** A rack item's name as its card shows it, e.g. "2x4 SPF" (not the On hand form's choice of stock). */
   item(name: string) {
-    return this.page.getByText(name, { exact: true });
+    return this.page.getByText(name, { exact: true }).and(this.page.locator(':not(option)'));
   }
 }

@@ -44,12 +44,19 @@ export type MarkCutsDoneResult = { record: CutRecordDto | null; alreadyDone: boo
  * another episode's cuts or an edit cannot take a piece this plan pulls.
  */
 export async function markCutsDone(channelId: string, episodeId: string, userId: string, stockItemId: string): Promise<MarkCutsDoneResult> {
-  const stock = (await listStock(channelId)).find((s) => s.id === stockItemId);
+  // Read before the transaction: inside it, every query goes through its one connection, so presses
+  // waiting on the episode lock can never hold the whole pool while the first one needs another.
+  const [stock, allParts, settings] = await Promise.all([
+    listStock(channelId).then((all) => all.find((s) => s.id === stockItemId)),
+    listEpisodeParts(channelId, episodeId),
+    getCutSettings(channelId),
+  ]);
   return db.transaction(async (trx) => {
     await lockEpisode(trx, channelId, episodeId);
     if (!stock) throw notFound('That stock item');
+    // Read after the lock: a press that waited sees the record the first one committed.
     const records = await listCutRecords(channelId, episodeId, trx);
-    const parts = (await listEpisodeParts(channelId, episodeId)).filter((p) => p.stockItemId === stockItemId);
+    const parts = allParts.filter((p) => p.stockItemId === stockItemId);
     const left = partsLeftToCut(
       parts,
       records.filter((r) => r.stockItemId === stockItemId),
@@ -62,7 +69,6 @@ export async function markCutsDone(channelId: string, episodeId: string, userId:
       .orderBy(['created_at', 'id'])
       .forUpdate()
       .select('id', 'length_in', 'width_in', 'count');
-    const settings = await getCutSettings(channelId);
     const { whole } = await computePlan(channelId, {
       parts: left,
       stock: [stock],

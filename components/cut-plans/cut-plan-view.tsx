@@ -6,7 +6,9 @@ import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
 import { BoardTicks, boughtOf, type Shopping } from './board-ticks';
 import { Fragment } from 'react';
+import { Badge } from '@/components/ui/badge';
 import { Stat } from '@/components/ui/stat';
+import { MarkCutsDone, type CutsDone } from './mark-cuts-done';
 
 export const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
 
@@ -20,18 +22,24 @@ type Props = {
   kerfIn: number;
   shopping?: Shopping | undefined;
   cutting?: { onCut: (partId: string, cutCount: number) => void; disabled: boolean } | undefined;
+  /** "Mark these cuts done" per stock item: the whole episode's plan, for those who keep the rack. */
+  cutsDone?: CutsDone | undefined;
+  /** What an empty plan says; an episode whose cuts are all done says so instead. */
+  emptyNote?: string | undefined;
 };
 
-export function CutPlanView({ plan, unit, kerfIn, shopping, cutting }: Props) {
+export function CutPlanView({ plan, unit, kerfIn, shopping, cutting, cutsDone, emptyNote }: Props) {
   const fmt = (n: number) => formatLength(n, { unit });
   if (plan.groups.length === 0 && plan.noStock.length === 0) {
-    return <p className="text-sm text-ink-faint">No parts yet. Add parts to a Build segment to see what to buy and how to cut it.</p>;
+    return <p className="text-sm text-ink-faint">{emptyNote ?? 'No parts yet. Add parts to a Build segment to see what to buy and how to cut it.'}</p>;
   }
   const cutCounts = new Map(Object.entries(plan.cutCounts));
+  const pulled = plan.groups.reduce((a, g) => a + g.pulled.reduce((s, p) => s + p.count, 0), 0);
   return (
     <div className="space-y-6">
-      <dl className="grid grid-cols-2 gap-3 text-sm sm:grid-cols-4">
+      <dl className={`grid grid-cols-2 gap-3 text-sm ${pulled > 0 ? 'sm:grid-cols-5' : 'sm:grid-cols-4'}`}>
         <Stat label="Stock to buy" value={money(plan.costCents)} />
+        {pulled > 0 ? <Stat label="Pull from rack" value={`${pulled} ${pulled === 1 ? 'piece' : 'pieces'}`} /> : null}
         <Stat label="Board feet" value={plan.boardFeet.toFixed(2)} />
         <Stat label="Pieces" value={String(plan.pieceCount)} />
         <Stat label="Kerf" value={fmt(kerfIn)} />
@@ -53,7 +61,7 @@ export function CutPlanView({ plan, unit, kerfIn, shopping, cutting }: Props) {
         </div>
       ) : null}
       {plan.groups.map((g) => (
-        <StockSection key={g.stock.id} group={g} fmt={fmt} unit={unit} shopping={shopping} cutting={cutting} cutCounts={cutCounts} />
+        <StockSection key={g.stock.id} group={g} fmt={fmt} unit={unit} shopping={shopping} cutting={cutting} cutCounts={cutCounts} cutsDone={cutsDone} />
       ))}
     </div>
   );
@@ -66,6 +74,7 @@ function StockSection({
   shopping,
   cutting,
   cutCounts,
+  cutsDone,
 }: {
   group: StockPlan;
   fmt: (n: number) => string;
@@ -73,6 +82,7 @@ function StockSection({
   shopping: Props['shopping'];
   cutting: Props['cutting'];
   cutCounts: Map<string, number>;
+  cutsDone: Props['cutsDone'];
 }) {
   const sheet = g.stock.kind === 'sheet';
   const hardwood = g.stock.kind === 'hardwood';
@@ -83,10 +93,14 @@ function StockSection({
     <section aria-label={g.stock.name} className="break-inside-avoid rounded-card border border-paper-edge bg-white/60 p-4 shadow-card">
       <h3 className="text-base font-bold">{g.stock.name}</h3>
       <p className="text-xs text-ink-faint">
-        {sheet ? `${g.squareFeet?.toFixed(1)} sq ft` : `${g.boardFeet?.toFixed(2)} board feet`} · waste {g.wastePercent.toFixed(1)}% ·{' '}
+        {sheet ? `${g.squareFeet?.toFixed(1)} sq ft` : `${g.boardFeet?.toFixed(2)} board feet`}
+        {g.pulled.length > 0 ? ' to buy' : ''} · waste {g.wastePercent.toFixed(1)}% ·{' '}
         <span title={PLAN_QUALITY_NOTE}>{g.optimal ? 'least-cost plan' : 'good plan, may not be the cheapest'}</span>
       </p>
-      <table className="mt-3 w-full text-left text-sm">
+      {g.pulled.length > 0 ? <PullTable group={g} sizeLabel={sizeLabel} /> : null}
+      {g.pulled.length > 0 ? <h4 className="mt-3 text-sm font-bold">Buy</h4> : null}
+      {g.purchase.length === 0 ? <p className="mt-1 text-sm text-ok">Nothing to buy: every board comes from the rack.</p> : null}
+      <table className={`mt-3 w-full text-left text-sm ${g.purchase.length === 0 ? 'hidden' : ''}`}>
         <caption className="sr-only">Buy: {g.stock.name}</caption>
         <thead>
           <tr className="border-b border-paper-edge text-xs text-ink-faint">
@@ -140,7 +154,14 @@ function StockSection({
       <ol className="mt-4 space-y-4">
         {g.boards.map((b, i) => (
           <li key={i}>
-            <BoardDiagram board={b} sheet={sheet} unit={unit} cutCounts={cutCounts} title={`${sheet ? 'Sheet' : 'Board'} ${i + 1}: ${sizeLabel({ lengthIn: b.lengthIn, widthIn: sheet || hardwood ? b.widthIn : null })}`} />
+            <p className="mb-1">{b.onHandId ? <Badge tone="ok">Pull from rack</Badge> : <Badge tone="neutral">Buy</Badge>}</p>
+            <BoardDiagram
+              board={b}
+              sheet={sheet}
+              unit={unit}
+              cutCounts={cutCounts}
+              title={`${sheet ? 'Sheet' : 'Board'} ${i + 1}${b.onHandId ? ' (from the rack)' : ''}: ${sizeLabel({ lengthIn: b.lengthIn, widthIn: sheet || hardwood ? b.widthIn : null })}`}
+            />
             {cutting ? (
               <ul className="mt-2 flex flex-wrap gap-2" aria-label={`Cuts on ${sheet ? 'sheet' : 'board'} ${i + 1}`}>
                 {b.pieces.map((p) => {
@@ -167,6 +188,35 @@ function StockSection({
           </li>
         ))}
       </ol>
+      {cutsDone ? <MarkCutsDone group={g} cutsDone={cutsDone} /> : null}
     </section>
+  );
+}
+
+/** The on-hand pieces a stock plan takes from the rack: free, listed before what is bought. */
+function PullTable({ group: g, sizeLabel }: { group: StockPlan; sizeLabel: (p: { lengthIn: number; widthIn: number | null }) => string }) {
+  return (
+    <>
+      <h4 className="mt-3 text-sm font-bold">Pull from rack</h4>
+      <table className="mt-1 w-full text-left text-sm">
+        <caption className="sr-only">Pull from rack: {g.stock.name}</caption>
+        <thead>
+          <tr className="border-b border-paper-edge text-xs text-ink-faint">
+            <th className="py-1 pr-2">Size on hand</th>
+            <th className="py-1 pr-2 text-right">Count</th>
+            <th className="py-1 text-right">Cost</th>
+          </tr>
+        </thead>
+        <tbody>
+          {g.pulled.map((p) => (
+            <tr key={p.onHandId} className="border-b border-paper-edge/60">
+              <td className="py-1 pr-2 font-mono">{sizeLabel(p)}</td>
+              <td className="py-1 pr-2 text-right font-mono">{p.count}</td>
+              <td className="py-1 text-right font-mono">{money(0)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </>
   );
 }

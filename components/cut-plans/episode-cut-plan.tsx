@@ -8,6 +8,7 @@ import { ApiError, apiFetch } from '@/lib/api/client';
 import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
 import type { ShoppingTickInput } from '@/lib/cut-plans/schemas';
 import { CutPlanView, money } from './cut-plan-view';
+import { CutRecords } from './cut-records';
 import { SafetyNote } from './safety-note';
 import { channelApi } from '@/lib/api/paths';
 import { queryKeys } from '@/lib/api/query-keys';
@@ -48,6 +49,24 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
     onError,
     onSettled: () => client.invalidateQueries({ queryKey: key }),
   });
+  const [doneNote, setDoneNote] = useState<string | undefined>();
+  const done = useMutation({
+    mutationFn: (stockItemId: string) =>
+      apiFetch<{ alreadyDone: boolean; keptPieces: number }>(channelApi(channelSlug, 'episodes', episodeId, 'cut-plan', 'done'), { method: 'POST', body: { stockItemId } }),
+    onMutate: () => {
+      setError(undefined);
+      setDoneNote(undefined);
+    },
+    onSuccess: (r) =>
+      setDoneNote(
+        r.alreadyDone
+          ? 'Those cuts were already marked done.'
+          : `Cuts recorded. ${r.keptPieces > 0 ? `${r.keptPieces} ${r.keptPieces === 1 ? 'offcut is' : 'offcuts are'} now on hand.` : 'No offcut was long enough to keep.'}`,
+      ),
+    onError,
+    // The rack changed too: pieces pulled are used up, kept offcuts are on hand.
+    onSettled: () => Promise.all([client.invalidateQueries({ queryKey: key }), client.invalidateQueries({ queryKey: queryKeys.onHand(channelSlug) })]),
+  });
   const markCut = (partId: string, cutCount: number) => {
     setError(undefined);
     client.setQueryData<EpisodePlanDto>(key, (d) => {
@@ -65,6 +84,9 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
   return (
     <div className="space-y-6">
       {error ? <Alert tone="attention">{error}</Alert> : null}
+      <p role="status" className={doneNote ? 'rounded-md bg-ok-soft px-4 py-2 text-sm text-ok' : 'sr-only'}>
+        {doneNote}
+      </p>
       {data.levels.length > 1 ? (
         <section aria-labelledby="compare-heading" className="rounded-card border border-paper-edge bg-white/60 p-4 print:hidden">
           <h2 id="compare-heading" className="font-bold">
@@ -120,7 +142,10 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
         kerfIn={data.kerfIn}
         shopping={scope === 'whole' && canEdit ? { ticks: data.ticks, onTick: markBought, disabled: false } : undefined}
         cutting={canEdit ? { onCut: markCut, disabled: false } : undefined}
+        emptyNote={data.records.length > 0 ? 'Every part with stock is cut: nothing left to buy or cut. What was cut is listed below.' : undefined}
+        cutsDone={scope === 'whole' && canEdit ? { onDone: (id) => done.mutate(id), pendingStockId: done.isPending ? (done.variables ?? null) : null } : undefined}
       />
+      <CutRecords records={data.records} unit={data.lengthUnit} />
     </div>
   );
 }

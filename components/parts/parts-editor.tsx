@@ -16,7 +16,7 @@ import { PartForm, type PartFormValues } from './part-form';
 import { channelApi, channelPage } from '@/lib/api/paths';
 import { queryKeys } from '@/lib/api/query-keys';
 
-type SegmentPlan = { plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number };
+type SegmentPlan = { plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number; allCut: boolean };
 type Props = {
   channelSlug: string;
   segmentId: string;
@@ -151,7 +151,7 @@ export function PartsEditor({ channelSlug, segmentId, episodeId, canEdit, stock,
           </Link>
         </div>
         {plan.data.plan.pieceCount > 0 ? <SafetyNote /> : null}
-        <CutPlanView plan={plan.data.plan} unit={unit} kerfIn={plan.data.kerfIn} />
+        <CutPlanView plan={plan.data.plan} unit={unit} kerfIn={plan.data.kerfIn} emptyNote={plan.data.allCut ? 'Every part here is cut: see Cuts done on the episode’s cut plan.' : undefined} />
       </section>
     </div>
   );

@@ -14,6 +14,7 @@ import * as sponsorKeepsDeals from './20261217000000_sponsor_keeps_deals';
 import * as clipCrc32 from './20261218000000_clip_crc32';
 import * as clipsSha256Index from './20261219000000_clips_sha256_index';
 import * as shoppingBoardTicks from './20261220000000_shopping_board_ticks';
+import * as onHandStock from './20261221000000_on_hand_stock';
 import * as hardwoodBoardWidths from './20261222000000_hardwood_board_widths';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
@@ -36,6 +37,7 @@ const migrations: Record<string, Migration> = {
   '20261218000000_clip_crc32': clipCrc32,
   '20261219000000_clips_sha256_index': clipsSha256Index,
   '20261220000000_shopping_board_ticks': shoppingBoardTicks,
+  '20261221000000_on_hand_stock': onHandStock,
   '20261222000000_hardwood_board_widths': hardwoodBoardWidths,
 };
 

@@ -48,6 +48,12 @@ const partsByLevel: Record<number, DemoPart[]> = {
   ],
 };
 
+// Invented pieces already in the demo shop (issue 16), so the demo plan pulls some from the rack and buys the rest.
+const onHand: { stock: string; lengthIn: number; widthIn?: number; count: number }[] = [
+  { stock: '2x4 SPF', lengthIn: 60, count: 1 },
+  { stock: '3/4" Birch plywood', lengthIn: 30, widthIn: 20, count: 1 },
+];
+
 export async function seedDemoStock(trx: Knex.Transaction, channelId: string): Promise<void> {
   const ids = new Map<string, string>();
   for (const item of rack) {
@@ -57,6 +63,11 @@ export async function seedDemoStock(trx: Knex.Transaction, channelId: string): P
     if (row) ids.set(row.name, row.id);
   }
   await trx('cut_settings').insert({ channel_id: channelId }).onConflict('channel_id').ignore();
+  for (const piece of onHand) {
+    const stockId = ids.get(piece.stock);
+    if (!stockId) throw new Error(`demo piece names unknown stock ${piece.stock}`);
+    await trx('on_hand_pieces').insert({ channel_id: channelId, stock_item_id: stockId, length_in: piece.lengthIn, width_in: piece.widthIn ?? null, count: piece.count, source: 'hand' });
+  }
   const builds: { id: string; level: number }[] = await trx('segments as s')
     .join('episodes as e', 'e.id', 's.episode_id')
     .where({ 'e.channel_id': channelId, 'e.title': 'One Stool, Three Ways', 's.kind': 'build' })

@@ -21,6 +21,7 @@ export const queryKeys = {
   invitations: (slug: string) => ['invitations', slug] as const,
 
   stock: (slug: string) => ['stock', slug] as const,
+  onHand: (slug: string) => ['stock', slug, 'on-hand'] as const,
   parts: (segmentId: string) => ['parts', segmentId] as const,
   handoffs: (slug: string, episodeId: string) => ['handoffs', slug, episodeId] as const,
   versionNotes: (slug: string, episodeId: string, version: number) => ['handoffs', slug, episodeId, version, 'notes'] as const,

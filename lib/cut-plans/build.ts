@@ -2,6 +2,8 @@
 import { planLinearCuts, planRipCuts, planSheetCuts } from '@/lib/cutlist';
 import { boardFeet, parseNominalProfile, softwoodBoardFeet } from '@/lib/lumber';
 import { offerSizeKey, type CutSettingsDto, type LumberOffer, type SheetOffer, type StockItemDto } from '@/lib/stock/schemas';
+import type { OnHandStock } from '@/lib/on-hand/schemas';
+import { lumberRackStock, onHandFor, onHandIdOf, pullsOf, sheetRackStock, type PlanPull } from './rack-pulls';
 
 export type PlanPart = {
   id: string;
@@ -27,6 +29,8 @@ export type PlanBoard = {
   keepOffcut: boolean;
   /** Lumber ripped into strips, in cut order; absent when every piece takes the board's full width. */
   strips?: PlanStrip[];
+  /** Pulled from the rack: the on-hand piece this board is. Absent when the board is bought. */
+  onHandId?: string;
 };
 export type PlanPurchase = {
   sizeKey: string;
@@ -54,6 +58,8 @@ export type StockPlan = {
   squareFeet: number | null;
   wastePercent: number;
   unplaced: PlanUnplaced[];
+  /** On-hand pieces pulled from the rack, at no cost; `purchase` lists only what is bought. */
+  pulled: PlanPull[];
 };
 
 export type CutPlan = {
@@ -88,7 +94,7 @@ function lumberBoardFeet(stock: StockItemDto, lengthIn: number, widthIn: number)
   return boardFeet(stock.thicknessIn, widthIn, lengthIn);
 }
 
-function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSettingsDto, timeLimitMs: number): StockPlan {
+function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSettingsDto, timeLimitMs: number, onHand: readonly OnHandStock[] = []): StockPlan {
   const width = stock.widthIn ?? 0;
   const unplaced: PlanUnplaced[] = [];
   const fits = parts.filter((p) => {
@@ -106,12 +112,12 @@ function planLumber(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
   // Parts narrower than the board are ripped side by side from it rather than each taking a board;
   // boards of several widths (hardwood, issue 16) always go to the rip planner, which chooses among them.
   const severalWidths = new Set(offers.map((o) => boardWidth(stock, o))).size > 1;
-  if (severalWidths || fits.some((p) => p.widthIn !== null && p.widthIn < width - EPS)) return planLumberRips(stock, parts, fits, unplaced, offers, settings, timeLimitMs);
+  if (severalWidths || fits.some((p) => p.widthIn !== null && p.widthIn < width - EPS)) return planLumberRips(stock, parts, fits, unplaced, offers, settings, timeLimitMs, onHand);
   const result = planLinearCuts({
     kerf: settings.kerfIn,
     endTrim: settings.endTrimIn,
     parts: fits.map((p) => ({ id: p.id, length: p.lengthIn, quantity: p.quantity, label: p.name })),
-    stock: offers.map((o) => ({ id: boardKey(o), length: o.lengthIn, price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
+    stock: [...lumberRackStock(onHand, width), ...offers.map((o) => ({ id: boardKey(o), length: o.lengthIn, price: lumberUnitCents(stock, o.lengthIn, o) / 100 }))],
     timeLimitMs,
   });
   const names = new Map(parts.map((p) => [p.id, p]));
@@ -143,6 +149,7 @@ function planLumberRips(
   offers: BoardOffer[],
   settings: CutSettingsDto,
   timeLimitMs: number,
+  onHand: readonly OnHandStock[] = [],
 ): StockPlan {
   // A part with no width takes a board's full width; with several widths on sale, the narrowest, so it fits any board.
   const fullWidth = Math.min(...offers.map((o) => boardWidth(stock, o)));
@@ -151,7 +158,11 @@ function planLumberRips(
     jointAllowance: settings.jointIn,
     endTrim: settings.endTrimIn,
     parts: fits.map((p) => ({ id: p.id, length: p.lengthIn, width: p.widthIn ?? fullWidth, quantity: p.quantity, label: p.name })),
-    stock: offers.map((o) => ({ id: boardKey(o), length: o.lengthIn, width: boardWidth(stock, o), price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
+    // A piece on hand records no width; with several widths on sale it counts as the narrowest, so a plan never asks more of it.
+    stock: [
+      ...lumberRackStock(onHand, fullWidth),
+      ...offers.map((o) => ({ id: boardKey(o), length: o.lengthIn, width: boardWidth(stock, o), price: lumberUnitCents(stock, o.lengthIn, o) / 100 })),
+    ],
     timeLimitMs,
   });
   const names = new Map(parts.map((p) => [p.id, p]));
@@ -214,11 +225,12 @@ function lumberStockPlan(
     boardFeet: round4(boards.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn, b.widthIn), 0)),
     squareFeet: null,
     wastePercent: waste.bought > 0 ? round4((100 * (waste.bought - waste.used)) / waste.bought) : 0,
+    pulled: [],
     unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
   };
 }
 
-function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSettingsDto, timeLimitMs: number): StockPlan {
+function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSettingsDto, timeLimitMs: number, onHand: readonly OnHandStock[] = []): StockPlan {
   const unplaced: PlanUnplaced[] = [];
   const fits = parts.filter((p) => {
     if (p.widthIn === null) {
@@ -235,7 +247,7 @@ function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
   const result = planSheetCuts({
     kerf: settings.kerfIn,
     parts: fits.map((p) => ({ id: p.id, width: p.widthIn ?? 0, length: p.lengthIn, quantity: p.quantity, label: p.name, grain: p.grain })),
-    stock: offers.map((o) => ({ id: sizeKey(o.lengthIn, o.widthIn), width: o.widthIn, length: o.lengthIn, price: o.priceCents / 100 })),
+    stock: [...sheetRackStock(onHand), ...offers.map((o) => ({ id: sizeKey(o.lengthIn, o.widthIn), width: o.widthIn, length: o.lengthIn, price: o.priceCents / 100 }))],
     timeLimitMs,
   });
   const names = new Map(parts.map((p) => [p.id, p]));
@@ -269,6 +281,7 @@ function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
     boardFeet: null,
     squareFeet: round4(bought / 144),
     wastePercent: bought > 0 ? round4((100 * (bought - used)) / bought) : 0,
+    pulled: [],
     unplaced: [...unplaced, ...result.unplaced.map((u) => ({ partId: u.partId, name: names.get(u.partId)?.name ?? '', quantity: u.quantity, reason: u.reason }))],
   };
 }
@@ -284,13 +297,36 @@ function cheapestPerSize<T extends { lengthIn: number; widthIn?: number; priceCe
   return [...byKey.values()];
 }
 
+/**
+ * Boards the planner took from the rack (planner stock ids of on-hand pieces) become pulls: they keep
+ * their size key, name their on-hand piece, leave the shopping list, and count in no board or square feet bought.
+ */
+function separatePulls(stock: StockItemDto, plan: StockPlan): StockPlan {
+  const sheet = stock.kind === 'sheet';
+  const boards = plan.boards.map((b) => {
+    const onHandId = onHandIdOf(b.sizeKey);
+    return onHandId ? { ...b, sizeKey: sheet ? sizeKey(b.lengthIn, b.widthIn) : sizeKey(b.lengthIn), onHandId } : b;
+  });
+  const purchase = plan.purchase.filter((p) => onHandIdOf(p.sizeKey) === null);
+  const bought = boards.filter((b) => !b.onHandId);
+  return {
+    ...plan,
+    boards,
+    purchase,
+    costCents: purchase.reduce((a, p) => a + p.costCents, 0),
+    boardFeet: sheet ? null : round4(bought.reduce((a, b) => a + lumberBoardFeet(stock, b.lengthIn, b.widthIn), 0)),
+    squareFeet: sheet ? round4(bought.reduce((a, b) => a + b.lengthIn * b.widthIn, 0) / 144) : null,
+    pulled: pullsOf(boards, sheet),
+  };
+}
+
 const pickStock = (s: StockItemDto): StockPlan['stock'] => ({ id: s.id, kind: s.kind, name: s.name, thicknessIn: s.thicknessIn, widthIn: s.widthIn });
 
 /**
  * One plan per stock item used; parts without stock are listed, not guessed. `timeLimitMs` is the
  * budget of the whole plan: each stock group gets an equal share of what is left when it starts.
  */
-export function buildCutPlan(parts: PlanPart[], stock: StockItemDto[], settings: CutSettingsDto, timeLimitMs = 1000): CutPlan {
+export function buildCutPlan(parts: PlanPart[], stock: StockItemDto[], settings: CutSettingsDto, timeLimitMs = 1000, onHand: readonly OnHandStock[] = []): CutPlan {
   const deadline = Date.now() + timeLimitMs;
   const byStock = new Map<string, PlanPart[]>();
   const noStock: PlanUnplaced[] = [];
@@ -307,7 +343,8 @@ export function buildCutPlan(parts: PlanPart[], stock: StockItemDto[], settings:
   used.forEach((s, i) => {
     const group = byStock.get(s.id) ?? [];
     const share = Math.max(0, deadline - Date.now()) / (used.length - i);
-    groups.push(s.kind === 'sheet' ? planSheets(s, group, settings, share) : planLumber(s, group, settings, share));
+    const rack = onHandFor(onHand, s.id);
+    groups.push(separatePulls(s, s.kind === 'sheet' ? planSheets(s, group, settings, share, rack) : planLumber(s, group, settings, share, rack)));
   });
   return {
     groups,

@@ -2,10 +2,13 @@ import 'server-only';
 import { db } from '@/db/client';
 import { findEpisode } from '@/lib/episodes/queries';
 import { notFound } from '@/lib/errors';
+import { listOnHandStock } from '@/lib/on-hand/queries';
 import { listEpisodeParts, listSegmentParts } from '@/lib/parts/queries';
 import { getCutSettings, listStock } from '@/lib/stock/queries';
 import type { CutPlan } from './build';
+import { partsLeftToCut, type CutRecordDto } from './cut-records';
 import { computePlan } from './plan-pool';
+import { listCutRecords, listSegmentCutRecords } from './record-queries';
 import type { ShoppingTickDto, ShoppingTickInput } from './schemas';
 
 // One budget per request, shared by every plan in it (the whole episode and each level), kept short
@@ -17,6 +20,8 @@ export type EpisodePlanDto = {
   whole: CutPlan;
   levels: { level: number; plan: CutPlan }[];
   ticks: ShoppingTickDto[];
+  /** Stock plans already cut ("Mark these cuts done"); `whole` and `levels` plan only what is left. */
+  records: CutRecordDto[];
   lengthUnit: 'in' | 'mm';
   minOffcutIn: number;
   kerfIn: number;
@@ -24,21 +29,37 @@ export type EpisodePlanDto = {
 
 export async function planEpisode(channelId: string, episodeId: string): Promise<EpisodePlanDto> {
   await findEpisode(channelId, episodeId);
-  const [parts, stock, settings, ticks] = await Promise.all([
+  const [parts, stock, settings, ticks, records, onHand] = await Promise.all([
     listEpisodeParts(channelId, episodeId),
     listStock(channelId),
     getCutSettings(channelId),
     listTicks(episodeId),
+    listCutRecords(channelId, episodeId),
+    listOnHandStock(channelId),
   ]);
-  const { whole, levels } = await computePlan(channelId, { parts, stock, settings, byLevel: true, budgetMs: EPISODE_BUDGET_MS });
-  return { whole, levels, ticks, lengthUnit: settings.lengthUnit, minOffcutIn: settings.minOffcutIn, kerfIn: settings.kerfIn };
+  const { whole, levels } = await computePlan(channelId, { parts: partsLeftToCut(parts, records), stock, settings, onHand, byLevel: true, budgetMs: EPISODE_BUDGET_MS });
+  return { whole: withCutCounts(whole, parts), levels: levels.map((l) => ({ ...l, plan: withCutCounts(l.plan, parts) })), ticks, records, lengthUnit: settings.lengthUnit, minOffcutIn: settings.minOffcutIn, kerfIn: settings.kerfIn };
 }
 
-export async function planSegment(channelId: string, segmentId: string): Promise<{ plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number }> {
-  const [parts, stock, settings] = await Promise.all([listSegmentParts(channelId, segmentId), listStock(channelId), getCutSettings(channelId)]);
-  const { whole } = await computePlan(channelId, { parts, stock, settings, byLevel: false, budgetMs: SEGMENT_BUDGET_MS });
-  return { plan: whole, lengthUnit: settings.lengthUnit, kerfIn: settings.kerfIn };
+/** `allCut`: the segment has parts with stock and cut records have cut every piece of them. */
+export async function planSegment(channelId: string, segmentId: string): Promise<{ plan: CutPlan; lengthUnit: 'in' | 'mm'; kerfIn: number; allCut: boolean }> {
+  const [parts, stock, settings, records, onHand] = await Promise.all([
+    listSegmentParts(channelId, segmentId),
+    listStock(channelId),
+    getCutSettings(channelId),
+    listSegmentCutRecords(channelId, segmentId),
+    listOnHandStock(channelId),
+  ]);
+  const left = partsLeftToCut(parts, records);
+  const { whole } = await computePlan(channelId, { parts: left, stock, settings, onHand, byLevel: false, budgetMs: SEGMENT_BUDGET_MS });
+  return { plan: withCutCounts(whole, parts), allCut: parts.length > 0 && left.length === 0, lengthUnit: settings.lengthUnit, kerfIn: settings.kerfIn };
 }
+
+/** Cut counts of every part, including those a cut record has fully cut (they are not planned again). */
+const withCutCounts = (plan: CutPlan, parts: readonly { id: string; cutCount: number }[]): CutPlan => ({
+  ...plan,
+  cutCounts: Object.fromEntries(parts.map((p) => [p.id, p.cutCount])),
+});
 
 async function listTicks(episodeId: string): Promise<ShoppingTickDto[]> {
   const rows: { stock_item_id: string; size_key: string; board: number }[] = await db('shopping_board_ticks')

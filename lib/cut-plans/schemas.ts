@@ -17,3 +17,7 @@ export type ShoppingTickInput = z.infer<typeof shoppingTickSchema>;
 
 /** A board or sheet ticked as bought: board `board` of size `sizeKey` of the stock item. */
 export type ShoppingTickDto = { stockItemId: string; sizeKey: string; board: number };
+
+/** "Mark these cuts done" for one stock item of an episode's plan. */
+export const markCutsDoneSchema = z.strictObject({ stockItemId: z.uuid({ error: 'Name the stock item.' }) });
+export type MarkCutsDoneInput = z.infer<typeof markCutsDoneSchema>;

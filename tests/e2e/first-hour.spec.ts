@@ -7,6 +7,7 @@ import { DEMO_SLUG, PHONE, expect, expectAccessible, newEpisode, sameOrigin, tes
 import { SegmentPage } from './pages/segment-page';
 import { ShopBoardPage } from './pages/shop-board-page';
 import { expectAnnounced } from './pages/live-region';
+import { StockRackPage } from './pages/stock-rack-page';
 
 // Issue 15, one check per thing a new crew noticed in its first hour (the phone widths are phone-layout.spec.ts).
 const api = `/api/channels/${DEMO_SLUG}`;
@@ -168,7 +169,8 @@ test('Sizes on sale reads a list as people write it, and names what it could not
   await expect(page.getByText('Could not read “ten ft” as a length in “ten ft 6.20”', { exact: false })).toBeVisible();
   await page.getByLabel('Sizes on sale').fill("8' 4.50, 10' 6.20\n12 ft 7.40");
   await page.getByRole('button', { name: 'Add to rack' }).click();
-  await expect(page.getByText(`2x6 ${species}`, { exact: true })).toBeVisible();
+  // The rack item's card; the name is also a choice in the On hand form below.
+  await expect(new StockRackPage(page).item(`2x6 ${species}`)).toBeVisible();
   await expectAccessible(page);
 });
 

@@ -17,6 +17,9 @@ import * as segmentRoute from '@/app/api/channels/[channel]/segments/[segmentId]
 import * as scriptRoute from '@/app/api/channels/[channel]/segments/[segmentId]/script/route';
 import * as cutSettingsRoute from '@/app/api/channels/[channel]/cut-settings/route';
 import * as shoppingRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/shopping/route';
+import * as cutsDoneRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/cut-plan/done/route';
+import * as onHandRoute from '@/app/api/channels/[channel]/on-hand/route';
+import * as onHandPieceRoute from '@/app/api/channels/[channel]/on-hand/[pieceId]/route';
 import * as partRoute from '@/app/api/channels/[channel]/parts/[partId]/route';
 import * as partsRoute from '@/app/api/channels/[channel]/segments/[segmentId]/parts/route';
 import * as stockItemRoute from '@/app/api/channels/[channel]/stock/[stockId]/route';
@@ -56,13 +59,14 @@ import { createInvitation } from '@/lib/crew/queries';
 import { createShot } from '@/lib/shots/queries';
 import { createPart } from '@/lib/parts/queries';
 import { createStock } from '@/lib/stock/queries';
+import { addOnHand } from '@/lib/on-hand/queries';
 import { makeOutlinedEpisode } from './episode-fixtures';
 import { call, makeCrew, makeUser, uniqueEmail } from './helpers';
 import { makeDeal } from './sponsor-fixtures';
 
 // Bodies of every shape: arbitrary JSON, JSON-looking junk, near-miss objects with wrong types and extra keys.
 const nearMiss = fc.dictionary(
-  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'reminderDays', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'jointIn', 'lengthUnit', 'sizeKey', 'board', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', 'clipId', 'timecode', 'body', 'resolved', 'shotId', '__proto__', 'x'),
+  fc.constantFrom('email', 'role', 'name', 'password', 'channelName', 'speakingRateWpm', 'reminderDays', 'title', 'kind', 'level', 'stage', 'targetSeconds', 'shootDate', 'publishDate', 'levelLabels', 'archived', 'actionSeconds', 'afterId', 'doc', 'baseVersion', 'species', 'nominal', 'offers', 'lengthIn', 'widthIn', 'price', 'pricePerBoardFoot', 'plywood', 'quantity', 'thicknessIn', 'stockItemId', 'grain', 'note', 'cutCount', 'count', 'kerfIn', 'endTrimIn', 'minOffcutIn', 'jointIn', 'lengthUnit', 'sizeKey', 'board', 'bought', 'description', 'framing', 'camera', 'assigneeId', 'dueDate', 'notes', 'text', 'state', 'reason', 'tools', 'otherTool', 'reviewed', 'emailOptOut', 'contacts', 'sponsorId', 'feeMinor', 'currency', 'paymentTermsDays', 'invoiceState', 'invoiceSentOn', 'paidOn', 'episodeId', 'segmentId', 'talkingPoints', 'mustSay', 'disclosure', 'tracking', 'readMinSeconds', 'readMaxSeconds', 'placement', 'ownerId', 'dueDates', 'dueOn', 'done', 'contactEmail', 'decision', 'comment', 'scriptVersion', 'clipId', 'timecode', 'body', 'resolved', 'shotId', '__proto__', 'x'),
   fc.oneof(fc.jsonValue(), fc.string({ maxLength: 400 }), fc.integer(), fc.double(), fc.constant(null), fc.constant('nul \u0000 inside')),
 );
 const rawBody = fc.oneof(
@@ -80,6 +84,7 @@ let segmentId: string;
 let buildId: string;
 let stockId: string;
 let partId: string;
+let pieceId: string;
 let shotId: string;
 let sponsor: Awaited<ReturnType<typeof makeDeal>>;
 beforeAll(async () => {
@@ -90,6 +95,7 @@ beforeAll(async () => {
   buildId = outlined.segments.find((x) => x.kind === 'build')!.id;
   stockId = (await createStock(crew.channel.id, { kind: 'softwood', species: 'SPF', nominal: '2x4', offers: [{ lengthIn: 96, price: 448 }] })).id;
   partId = (await createPart(crew.channel.id, buildId, { name: 'Leg', quantity: 4, lengthIn: 20, widthIn: null, thicknessIn: null, stockItemId: stockId, grain: 'any', note: '' })).id;
+  pieceId = (await addOnHand(crew.channel.id, crew.host.id, { stockItemId: stockId, lengthIn: 40, widthIn: null, count: 1 })).id;
   shotId = (await createShot(crew.channel.id, buildId, { description: 'Rip the legs', framing: 'wide', camera: 'a_cam', assigneeId: crew.shopHand.id, dueDate: null, notes: '' })).id;
   invitationId = (await createInvitation(crew.channel.id, crew.host.id, { email: uniqueEmail('fuzz'), role: 'editor' })).invitation.id;
   sponsor = await makeDeal(crew);
@@ -116,6 +122,9 @@ const targets = (): { name: string; fn: Parameters<typeof call>[0]; method: stri
   { name: 'add part', fn: partsRoute.POST, method: 'POST', params: { channel: crew.channel.slug, segmentId: buildId } },
   { name: 'update part', fn: partRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, partId } },
   { name: 'shopping tick', fn: shoppingRoute.PUT, method: 'PUT', params: { channel: crew.channel.slug, episodeId } },
+  { name: 'add on hand', fn: onHandRoute.POST, method: 'POST', params: { channel: crew.channel.slug } },
+  { name: 'on-hand count', fn: onHandPieceRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, pieceId } },
+  { name: 'mark cuts done', fn: cutsDoneRoute.POST, method: 'POST', params: { channel: crew.channel.slug, episodeId } },
   { name: 'add shot', fn: segmentShotsRoute.POST, method: 'POST', params: { channel: crew.channel.slug, segmentId: buildId } },
   { name: 'paste shots', fn: shotBulkRoute.POST, method: 'POST', params: { channel: crew.channel.slug, segmentId: buildId } },
   { name: 'update shot', fn: shotRoute.PATCH, method: 'PATCH', params: { channel: crew.channel.slug, shotId } },
@@ -292,6 +301,9 @@ describe('no rack, part or settings body makes a 500', () => {
       ['add part', partsRoute.POST, 'POST', { channel: ch, segmentId: buildId }, fc.record(partFields(stockId), { requiredKeys: [] })],
       ['update part', partRoute.PATCH, 'PATCH', { channel: ch, partId }, fc.record({ ...partFields(stockId), cutCount: fc.integer({ min: -1, max: 600 }) }, { requiredKeys: [] })],
       ['cut settings', cutSettingsRoute.PATCH, 'PATCH', { channel: ch }, settingsBody],
+      ['add on hand', onHandRoute.POST, 'POST', { channel: ch }, fc.record({ stockItemId: fc.oneof(fc.constant(stockId), fc.uuid(), fc.constant('x')), lengthIn: shopLength, widthIn: fc.oneof(shopLength, fc.constant(null)), count: fc.oneof(fc.integer({ min: -1, max: 1002 }), fc.double()) }, { requiredKeys: [] })],
+      ['on-hand count', onHandPieceRoute.PATCH, 'PATCH', { channel: ch, pieceId }, fc.record({ count: fc.oneof(fc.integer({ min: -1, max: 1002 }), fc.double(), fc.constant('3')) }, { requiredKeys: [] })],
+      ['mark cuts done', cutsDoneRoute.POST, 'POST', { channel: ch, episodeId }, fc.record({ stockItemId: fc.oneof(fc.constant(stockId), fc.uuid(), fc.constant('x'), fc.constant(null)) }, { requiredKeys: [] })],
     ];
     await assertNo500(runs, 80);
   });

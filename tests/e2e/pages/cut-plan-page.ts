@@ -79,6 +79,15 @@ export class CutPlanPage {
     expect((await saved).status()).toBe(200);
   }
 
+  /** "Mark these cuts done" for a stock item, confirmed, waiting for the server to record it. */
+  async markCutsDone(stockName: string) {
+    const group = this.stockGroup(stockName);
+    await group.getByRole('button', { name: 'Mark these cuts done' }).click();
+    const saved = this.page.waitForResponse((r) => r.request().method() === 'POST' && r.url().endsWith('/cut-plan/done'));
+    await group.getByRole('button', { name: 'Yes, cuts done' }).click();
+    expect((await saved).status()).toBe(200);
+  }
+
   async showLevel(level: number) {
     await this.page.getByRole('button', { name: new RegExp(`Level ${level}`) }).click();
   }

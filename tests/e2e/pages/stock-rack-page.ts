@@ -43,8 +43,29 @@ export class StockRackPage {
     await form.getByRole('button', { name: 'Add to rack' }).click();
   }
 
-  /** A rack item's name as its card shows it, e.g. "2x4 SPF". */
+  /** The rack's On hand section: pieces already in the shop. */
+  onHand() {
+    return this.page.getByRole('region', { name: 'On hand' });
+  }
+
+  /** Adds a piece on hand through the section's form and waits for the server to store it. */
+  async addOnHand({ stock, length, count }: { stock: string; length: string; count: string }) {
+    const form = this.page.getByRole('form', { name: 'Add a piece on hand' });
+    await form.getByLabel('Stock').selectOption({ label: stock });
+    await form.getByLabel('Length').fill(length);
+    await form.getByLabel('How many').fill(count);
+    const saved = this.page.waitForResponse((r) => r.request().method() === 'POST' && r.url().endsWith('/on-hand'));
+    await form.getByRole('button', { name: 'Add on hand' }).click();
+    expect((await saved).status()).toBe(201);
+  }
+
+  /** One on-hand line by what it says, e.g. `1 × 2x4 SPF, 108"`. */
+  onHandPiece(text: string | RegExp) {
+    return this.onHand().getByRole('listitem').filter({ hasText: text });
+  }
+
+  /** A rack item's name as its card shows it, e.g. "2x4 SPF" (not the On hand form's choice of stock). */
   item(name: string) {
-    return this.page.getByText(name, { exact: true });
+    return this.page.getByText(name, { exact: true }).and(this.page.locator(':not(option)'));
   }
 }

@@ -1,0 +1,64 @@
+'use client';
+
+import { Badge } from '@/components/ui/badge';
+import type { CutRecordDto } from '@/lib/cut-plans/cut-records';
+import { formatLength } from '@/lib/units';
+import { BoardDiagram } from './board-diagram';
+import { money } from './cut-plan-view';
+
+// UTC, so the server's render and the browser's agree.
+const day = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+/** What an episode's "Mark these cuts done" recorded: per stock item, what was cut, pulled, bought and kept. */
+export function CutRecords({ records, unit }: { records: CutRecordDto[]; unit: 'in' | 'mm' }) {
+  if (records.length === 0) return null;
+  const fmt = (n: number) => formatLength(n, { unit });
+  return (
+    <section aria-labelledby="cuts-done-heading" className="space-y-3">
+      <h2 id="cuts-done-heading" className="text-lg font-bold">
+        Cuts done
+      </h2>
+      <p className="text-sm text-ink-soft">These pieces are cut; the plan above covers only what is left.</p>
+      <ul className="space-y-3">
+        {records.map((r) => {
+          const sheet = r.plan.stock.kind === 'sheet';
+          const pieces = r.plan.boards.reduce((a, b) => a + b.pieces.length, 0);
+          const pulled = r.plan.pulled.reduce((a, p) => a + p.count, 0);
+          const kept = r.plan.boards.filter((b) => b.keepOffcut);
+          return (
+            <li key={r.id} className="rounded-card border border-paper-edge bg-white/60 p-4">
+              <p className="flex flex-wrap items-center gap-2">
+                <Badge tone="ok">Cut</Badge>
+                <span className="font-bold">{r.plan.stock.name}</span>
+                <span className="text-sm text-ink-soft">
+                  {day.format(new Date(r.doneAt))}
+                  {r.doneByName ? `, ${r.doneByName}` : ''}
+                </span>
+              </p>
+              <p className="mt-1 text-sm">
+                {pieces} {pieces === 1 ? 'piece' : 'pieces'} from {r.plan.boards.length} {sheet ? 'sheets' : 'boards'}: {pulled} pulled from the rack, {r.plan.boards.length - pulled} bought ({money(r.plan.costCents)}).{' '}
+                {kept.length > 0 ? (
+                  <>
+                    Kept on hand: <span className="font-mono">{kept.map((b) => fmt(b.offcutIn)).join(', ')}</span>.
+                  </>
+                ) : (
+                  'No offcut kept.'
+                )}
+              </p>
+              <details className="mt-2">
+                <summary className="min-h-touch cursor-pointer py-2 text-sm text-blueprint underline">Show the boards as cut</summary>
+                <ol className="mt-2 space-y-3">
+                  {r.plan.boards.map((b, i) => (
+                    <li key={i}>
+                      <BoardDiagram board={b} sheet={sheet} unit={unit} title={`${sheet ? 'Sheet' : 'Board'} ${i + 1}${b.onHandId ? ' (from the rack)' : ''}: ${sheet ? `${fmt(b.widthIn)} × ` : ''}${fmt(b.lengthIn)}`} />
+                    </li>
+                  ))}
+                </ol>
+              </details>
+            </li>
+          );
+        })}
+      </ul>
+    </section>
+  );
+}

@@ -1,0 +1,74 @@
+import { expect, expectAccessible, test } from './fixtures';
+import { PartsPage } from './pages/cut-plan-page';
+import { StockRackPage } from './pages/stock-rack-page';
+
+const EPISODE = 'One Stool, Three Ways';
+const STARTER = 'Starter: pocket-screwed pine stool';
+
+test('a board on hand is pulled instead of bought, and marking the cuts done puts the offcut on hand', async ({ signedIn }, testInfo) => {
+  test.setTimeout(180_000);
+  const species = `Hemlock ${Date.now().toString(36)}`;
+  const stockName = `2x4 ${species}`;
+  const page = await signedIn('shopHand');
+  const rack = new StockRackPage(page);
+  await rack.goto();
+  await rack.addSoftwood({ species, profile: '2x4', sizes: '10ft 6.20' });
+  await expect(rack.item(stockName)).toBeVisible();
+
+  // Three 30" rails: one 10 ft board to buy while nothing is on hand.
+  const parts = new PartsPage(page);
+  await parts.open(EPISODE, STARTER);
+  await parts.addPart({ name: `Rail ${species}`, quantity: '3', length: '30', stock: stockName });
+  await expect(parts.stockGroup(stockName).getByRole('row', { name: /120" 1 \$6\.20 \$6\.20/ })).toBeVisible();
+
+  // A 9 ft board already in the shop, added by hand with the rack's length notation.
+  await rack.goto();
+  await rack.addOnHand({ stock: stockName, length: "9'", count: '1' });
+  await expect(rack.onHandPiece(`1 × ${stockName}, 108"`)).toBeVisible();
+  await expect(rack.onHandPiece(`1 × ${stockName}, 108"`).getByText('Added by hand')).toBeVisible();
+  await expectAccessible(page);
+  await rack.onHand().scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('on-hand-1280.png'), fullPage: false });
+
+  await parts.open(EPISODE, STARTER);
+  const plan = await parts.openEpisodePlan();
+  const group = plan.stockGroup(stockName);
+  // The plan pulls the 9 ft board from the rack and buys nothing of this stock.
+  await expect(group.getByRole('table', { name: `Pull from rack: ${stockName}` }).getByRole('row', { name: /108" 1 \$0\.00/ })).toBeVisible();
+  await expect(group.getByText('Nothing to buy: every board comes from the rack.')).toBeVisible();
+  await expect(group.getByRole('img', { name: /Board 1 \(from the rack\): 108"/ })).toBeVisible();
+  await expectAccessible(page);
+  await group.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('pull-from-rack-1280.png') });
+
+  await plan.markCutsDone(stockName);
+  // 108" less three 30" rails and their kerfs leaves 17 5/8", longer than the 12" worth keeping.
+  await expect(page.getByRole('status').filter({ hasText: 'Cuts recorded. 1 offcut is now on hand.' })).toBeVisible();
+  await expect(page.getByRole('region', { name: 'Cuts done' }).getByText(stockName)).toBeVisible();
+  await expect(plan.stockGroup(stockName)).toHaveCount(0);
+  await expectAccessible(page);
+
+  await rack.goto();
+  await expect(rack.onHandPiece(`${stockName}, 108"`)).toHaveCount(0);
+  const kept = rack.onHandPiece(`1 × ${stockName}, 17 5/8"`);
+  await expect(kept).toBeVisible();
+  await expect(kept.getByText(`from ${EPISODE}`)).toBeVisible();
+  await expectAccessible(page);
+  await page.setViewportSize({ width: 375, height: 900 });
+  await kept.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('on-hand-375.png') });
+  // On a phone the section fits the screen: nothing runs off to the side.
+  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+  expect(overflow).toBeLessThanOrEqual(0);
+});
+
+test('an editor sees what is on hand but cannot change it', async ({ signedIn }) => {
+  const page = await signedIn('editor');
+  const rack = new StockRackPage(page);
+  await rack.goto();
+  await expect(rack.onHand()).toBeVisible();
+  await expect(rack.onHandPiece(/2x4 SPF, 60"/)).toBeVisible();
+  await expect(rack.onHand().getByRole('button')).toHaveCount(0);
+  await expect(page.getByRole('form', { name: 'Add a piece on hand' })).toHaveCount(0);
+  await expectAccessible(page);
+});

@@ -50,6 +50,30 @@ describe('buildCutPlan with stock on hand', () => {
     expect(pulled?.sizeKey).toBe('70');
   });
 
+  it('with hardwood sold in several widths, a piece on hand counts as the narrowest width and costs nothing', () => {
+    const walnut: StockItemDto = {
+      ...oak,
+      id: 'walnut',
+      widthIn: 7.25,
+      offers: [
+        { widthIn: 4, lengthIn: 96, priceCents: 0 },
+        { widthIn: 7.25, lengthIn: 96, priceCents: 0 },
+      ],
+    };
+    const onHand: OnHandStock[] = [{ id: 'w', stockItemId: 'walnut', lengthIn: 48, widthIn: null, count: 1 }];
+    const parts = [part({ id: 'slat', lengthIn: 40, widthIn: 3, quantity: 2, stockItemId: 'walnut' }), part({ id: 'top', lengthIn: 40, widthIn: 6, quantity: 1, stockItemId: 'walnut' })];
+    const plan = buildCutPlan(parts, [walnut], DEFAULT_CUT_SETTINGS, 500, onHand);
+    const group = plan.groups[0]!;
+    expect(group.unplaced).toEqual([]);
+    expectPullsValid(group, onHand);
+    expect(group.pulled.map((p) => p.onHandId)).toEqual(['w']);
+    // Nothing wider than the narrowest board on sale is asked of the piece on hand.
+    for (const b of group.boards.filter((x) => x.onHandId)) {
+      expect(b.widthIn).toBe(4);
+      for (const c of b.pieces) expect(c.widthIn).toBeLessThanOrEqual(4);
+    }
+  });
+
   it('ignores pieces of other stock items and pieces used up', () => {
     const onHand: OnHandStock[] = [
       { id: 'other', stockItemId: 'oak', lengthIn: 96, widthIn: null, count: 3 },

@@ -11,6 +11,15 @@ const flag = new Int32Array(workerData.flag);
 /** @type {import('node:worker_threads').MessagePort} */
 const port = workerData.port;
 const highsReady = loadHighs();
+// flag[2]: 1 once HiGHS is loaded; the caller skips its stages until then rather than wait for it.
+const loaded = (state) => {
+  Atomics.store(flag, 2, state);
+  Atomics.notify(flag, 2);
+};
+highsReady.then(
+  () => loaded(1),
+  () => loaded(-1),
+);
 
 function reply(id, message) {
   port.postMessage(message);

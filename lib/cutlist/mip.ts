@@ -4,8 +4,9 @@
  * rest of the planner: it posts the model and blocks on a shared flag until the answer or the
  * deadline, whichever comes first, so a solve never carries a call past its limit. HiGHS is asked to
  * stop a little before the deadline so its best solution comes back; if it has not answered by then,
- * the caller goes on and the thread is told to stop, and a later solve that finds it still busy ends
- * it and starts a fresh one (a fresh WebAssembly heap, as after every SOLVES_PER_THREAD solves).
+ * the caller goes on and the thread is told to stop. Until the thread has loaded HiGHS, and while an
+ * abandoned solve still runs, solves are skipped at once (null) rather than waited for; a fresh thread
+ * (a fresh WebAssembly heap) replaces one after SOLVES_PER_THREAD solves, or one stuck past STUCK_MS.
  *
  * Source: Q. Huangfu and J. A. J. Hall, "Parallelizing the dual revised simplex method", Math. Prog.
  * Comp. 10 (2018), the solver of https://highs.dev; the package: https://github.com/lovasoa/highs-js.
@@ -43,6 +44,8 @@ export interface MipResult {
 const HAND_OFF_MS = 10;
 /** Share of the time HiGHS gets before it is asked to stop, so its answer comes back before the deadline. */
 const STOP_SHARE = 0.8;
+/** An abandoned solve still running after this long is ended with its thread (HiGHS's own limit failed). */
+const STUCK_MS = 10_000;
 /** Solves in one thread before a fresh one: a WebAssembly heap grows and never shrinks. */
 const SOLVES_PER_THREAD = 40;
 /** Ending HiGHS needs a worker thread file; every start script runs from the repository root. */
@@ -54,6 +57,7 @@ interface Thread {
   flag: Int32Array;
   solves: number;
   nextId: number;
+  busySince: number;
 }
 
 let thread: Thread | null = null;
@@ -66,14 +70,14 @@ export function mipAvailable(): boolean {
 }
 
 function startThread(): Thread {
-  // [0]: id of the last answer, [1]: id of a solve to stop.
-  const flag = new SharedArrayBuffer(8);
+  // [0]: id of the last answer, [1]: id of a solve to stop, [2]: 1 once HiGHS is loaded (-1 if it failed).
+  const flag = new SharedArrayBuffer(12);
   const { port1, port2 } = new MessageChannel();
   // No tsx or test hooks in this thread: it loads only the plain .mjs and `highs`.
   const worker = new Worker(WORKER_FILE, { workerData: { flag, port: port2 }, transferList: [port2], execArgv: [] });
   worker.unref();
   port1.unref();
-  const t: Thread = { worker, port: port1, flag: new Int32Array(flag), solves: 0, nextId: 0 };
+  const t: Thread = { worker, port: port1, flag: new Int32Array(flag), solves: 0, nextId: 0, busySince: 0 };
   worker.on('error', () => stopThread(t));
   return t;
 }
@@ -92,9 +96,67 @@ export function warmUpMipSolver(): void {
   if (mipAvailable() && !thread) thread = startThread();
 }
 
+// In Node since 16; in TypeScript's lib only from es2024, and tsconfig.json targets ES2022.
+type WaitAsync = (a: Int32Array, index: number, value: number, timeoutMs: number) => { value: Promise<string> | string };
+const waitAsync = (Atomics as unknown as { waitAsync: WaitAsync }).waitAsync;
+
+/**
+ * Resolves once the solver thread has loaded HiGHS and is idle (true), or false if it cannot run here
+ * or `timeoutMs` passes. For benchmarks and tests that measure the integer programs themselves; the
+ * planner never waits for it.
+ */
+export async function waitForMipSolver(timeoutMs = 30_000): Promise<boolean> {
+  warmUpMipSolver();
+  // The thread is unref'd and a pending Atomics.waitAsync does not keep Node running: this timer does.
+  const keepAlive = setTimeout(() => {}, timeoutMs);
+  try {
+    return await waitIdle(Date.now() + timeoutMs);
+  } finally {
+    clearTimeout(keepAlive);
+  }
+}
+
+async function waitIdle(end: number): Promise<boolean> {
+  for (;;) {
+    const t = thread;
+    const left = end - Date.now();
+    if (!t || left <= 0) return false;
+    const loaded = Atomics.load(t.flag, 2);
+    if (loaded < 0) return false;
+    if (loaded === 0) {
+      await waitAsync(t.flag, 2, 0, left).value;
+      continue;
+    }
+    const seen = Atomics.load(t.flag, 0);
+    if (seen === t.nextId) return true;
+    await waitAsync(t.flag, 0, seen, left).value;
+  }
+}
+
 /** Ends the solver thread (tests and scripts that want to exit at once; a later solve starts a new one). */
 export function stopMipSolver(): void {
   if (thread) stopThread(thread);
+}
+
+/**
+ * The solver thread if it can take a solve now; otherwise null, and the caller skips its integer
+ * programs rather than spend its own time waiting: while HiGHS loads (a fresh thread), or while an
+ * abandoned solve still runs (it stops at HiGHS's next check). A thread stuck far longer than any time
+ * limit is ended, and the next one starts loading for later calls.
+ */
+function readyThread(): Thread | null {
+  const t = thread;
+  if (!t) {
+    warmUpMipSolver();
+    return null;
+  }
+  const busy = Atomics.load(t.flag, 0) !== t.nextId;
+  if ((busy && Date.now() - t.busySince > STUCK_MS) || Atomics.load(t.flag, 2) < 0) {
+    stopThread(t);
+    warmUpMipSolver();
+    return null;
+  }
+  return busy || Atomics.load(t.flag, 2) !== 1 ? null : t;
 }
 
 /**
@@ -106,11 +168,12 @@ export function solveMip(model: MipModel, deadline: Deadline, start?: Float64Arr
   const waitUntil = deadline.at - HAND_OFF_MS;
   const budget = waitUntil - Date.now();
   if (budget < 5) return null;
+  const t = readyThread();
+  if (!t) return null;
   // HiGHS is asked to stop early enough to hand back the best solution it has when time runs out.
   const stopAt = Date.now() + STOP_SHARE * budget;
-  if (thread && (thread.solves >= SOLVES_PER_THREAD || Atomics.load(thread.flag, 0) !== thread.nextId)) stopThread(thread);
-  const t = (thread ??= startThread());
   t.solves++;
+  t.busySince = Date.now();
   const id = ++t.nextId;
   t.port.postMessage({ id, model, stopAt, start });
   for (;;) {
@@ -119,13 +182,23 @@ export function solveMip(model: MipModel, deadline: Deadline, start?: Float64Arr
     const left = waitUntil - Date.now();
     if (left <= 0 || Atomics.wait(t.flag, 0, seen, left) === 'timed-out') {
       // Past the deadline: the caller goes on at once and HiGHS stops at its next check of the stop flag
-      // or its time limit, in its own thread; a solve that finds it still busy ends the thread instead.
+      // or its time limit, in its own thread; solves meanwhile are skipped (readyThread).
       if (Atomics.load(t.flag, 0) !== id) {
         Atomics.store(t.flag, 1, id);
         return null;
       }
     }
   }
+  const message = receiveAnswer(t, id);
+  if (t.solves >= SOLVES_PER_THREAD) {
+    // Its heap only grows: the next thread loads while the caller goes on.
+    stopThread(t);
+    warmUpMipSolver();
+  }
+  return message;
+}
+
+function receiveAnswer(t: Thread, id: number): MipResult | null {
   for (let m = receiveMessageOnPort(t.port); m; m = receiveMessageOnPort(t.port)) {
     const answer = m.message as Partial<MipResult> & { id: number; error?: string; solution?: number[] | null };
     if (answer.id !== id) continue;

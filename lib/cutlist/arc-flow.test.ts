@@ -60,7 +60,7 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
 
   it('proves the same least cost as brute force on small lists, with a valid plan', async () => {
     let proved = 0;
-    // Async so each run can wait for the solver thread: a fresh one replaces it every 40 solves.
+    // Async so each run can wait for the solver thread: a fresh one replaces it every 100 solves.
     await fc.assert(
       fc.asyncProperty(smallArb, async (req) => {
         const inst = new Instance(req);

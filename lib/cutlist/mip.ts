@@ -47,7 +47,7 @@ const STOP_SHARE = 0.8;
 /** An abandoned solve still running after this long is ended with its thread (HiGHS's own limit failed). */
 const STUCK_MS = 10_000;
 /** Solves in one thread before a fresh one: a WebAssembly heap grows and never shrinks. */
-const SOLVES_PER_THREAD = 40;
+const SOLVES_PER_THREAD = 100;
 /** Ending HiGHS needs a worker thread file; every start script runs from the repository root. */
 const WORKER_FILE = path.join(process.cwd(), 'lib', 'cutlist', 'mip-worker.mjs');
 

@@ -10,6 +10,10 @@ process.env.TSX_TSCONFIG_PATH ??= fileURLToPath(new URL('../../tsconfig.json', i
 // The project's .ts files are CommonJS to Node (package.json has no "type"), so they load through
 // tsx's require hook.
 register();
-const { runPlanTask } = createRequire(import.meta.url)('./plan-task.ts');
+const require = createRequire(import.meta.url);
+const { runPlanTask } = require('./plan-task.ts');
+// HiGHS loads on a thread of its own; plans skip their integer programs until it has (lib/cutlist/mip.ts),
+// so it starts with this worker rather than with the first plan.
+require('../cutlist/mip.ts').warmUpMipSolver();
 
 export default runPlanTask;

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { firstFitDecreasing, martelloTothL2, planLinearCuts, type LinearCutPlan, type LinearCutRequest } from '.';
+import { bruteForceCost } from './testing/brute-force';
 
 const EPS = 1e-6;
 
@@ -54,46 +55,6 @@ function expectValidPlan(req: LinearCutRequest, plan: LinearCutPlan): void {
 }
 
 const unplacedCount = (plan: LinearCutPlan): number => plan.unplaced.reduce((a, u) => a + u.quantity, 0);
-
-/** Least cost to cut every piece, by trying every grouping and every stock for each group; null if impossible. */
-function bruteForceCost(req: LinearCutRequest): number | null {
-  const lengths = req.parts.flatMap((p) => Array.from({ length: p.quantity }, () => p.length));
-  const trim = req.endTrim ?? 0;
-  const fits = (group: number[], length: number): boolean =>
-    group.reduce((a, b) => a + b, 0) + req.kerf * (group.length - 1) <= length - 2 * trim + EPS;
-  let best: number | null = null;
-  const groups: number[][] = [];
-  const assign = (g: number, used: number[], cost: number): void => {
-    if (g === groups.length) {
-      if (best === null || cost < best) best = cost;
-      return;
-    }
-    const group = groups[g] ?? [];
-    req.stock.forEach((s, i) => {
-      if ((used[i] ?? 0) >= (s.available ?? Infinity) || !fits(group, s.length)) return;
-      used[i] = (used[i] ?? 0) + 1;
-      assign(g + 1, used, cost + s.price);
-      used[i] = (used[i] ?? 0) - 1;
-    });
-  };
-  const partition = (i: number): void => {
-    if (i === lengths.length) {
-      assign(0, req.stock.map(() => 0), 0);
-      return;
-    }
-    const w = lengths[i] ?? 0;
-    for (const g of groups) {
-      g.push(w);
-      partition(i + 1);
-      g.pop();
-    }
-    groups.push([w]);
-    partition(i + 1);
-    groups.pop();
-  };
-  partition(0);
-  return best;
-}
 
 // Lengths in 1/16 in so sums are exact in binary floating point; prices in cents.
 const sixteenths = (min: number, max: number) => fc.integer({ min: min * 16, max: max * 16 }).map((n) => n / 16);

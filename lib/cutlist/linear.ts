@@ -7,6 +7,7 @@
  * sum(length + kerf) <= usable + kerf, so each piece is packed with size `length + kerf` into a bin
  * of capacity `usable + kerf`: the plan is a bin packing with costed bin types.
  */
+import { arcFlowSearch } from './arc-flow';
 import { achievableCost, dualBound, lowerBound } from './bounds';
 import { deadlineIn, shareOf, type Deadline } from './deadline';
 import { diveSearch, type DiveProblem } from './dive';
@@ -15,6 +16,8 @@ import { completionSearch } from './exact-search';
 import { chooserFor, downgrade, greedy, improve, minimumSlack, rng } from './heuristics';
 import { better, Instance, SCALE, toMicro, type Bin, type Solution } from './instance';
 import { kindsOf, knapsack, unitOf, type Kind } from './knapsack';
+import { mipAvailable, warmUpMipSolver } from './mip';
+import { solvePatternMip } from './pattern-mip';
 import { solvePatternLp, type Pattern } from './pattern-lp';
 import type { LinearBoard, LinearCut, LinearCutPlan, LinearCutRequest, LinearPurchase } from './types';
 
@@ -137,7 +140,58 @@ function solutionOf(inst: Instance, kinds: readonly Kind[], patterns: readonly P
     });
     return { stock: p.stock, load, items };
   });
-  return inst.solution(bins, []);
+  // A pattern cut only for pieces already handed out buys nothing.
+  return inst.solution(
+    bins.filter((b) => b.items.length > 0),
+    [],
+  );
+}
+
+/** The boards of a plan as patterns (pieces of each kind per board). */
+function patternsOf(inst: Instance, kinds: readonly Kind[], sol: Solution): Pattern[] {
+  const kindOf = new Map<number, number>();
+  kinds.forEach((k, idx) => k.pieces.forEach((i) => kindOf.set(i, idx)));
+  return sol.bins.map((b) => {
+    const counts = kinds.map(() => 0);
+    for (const i of b.items) {
+      const k = kindOf.get(i);
+      if (k !== undefined) counts[k] = (counts[k] ?? 0) + 1;
+    }
+    return { stock: b.stock, counts };
+  });
+}
+
+interface Stage {
+  best: Solution;
+  lb: number;
+  finished: boolean;
+}
+
+/**
+ * The integer-programming stages (HiGHS, mip.ts), when the searches so far have not closed the gap: first
+ * the integer program over the patterns generated so far (milliseconds; finds plans at the bound the
+ * dives missed), then the exact arc-flow model (arc-flow.ts), whose optimum is a proof and whose dual
+ * bound raises the bound when it stops early. Each keeps the better plan and the higher bound.
+ */
+function mipStages(inst: Instance, kinds: readonly Kind[], problem: DiveProblem, start: Stage, deadline: Deadline): Stage {
+  let { best, lb } = start;
+  const proven = (): boolean => best.score.unplaced === 0 && best.score.cost <= lb;
+  const picked = solvePatternMip(problem.demand, problem.stocks, problem.pool, patternsOf(inst, kinds, best), shareOf(deadline, 0.15));
+  if (picked) {
+    const sol = downgrade(inst, solutionOf(inst, kinds, picked));
+    if (sol.score.unplaced === 0 && better(sol.score, best.score)) best = sol;
+  }
+  if (!proven()) {
+    const exact = arcFlowSearch(inst, kinds, best, shareOf(deadline, 0.7));
+    if (exact) {
+      if (exact.best) {
+        const sol = downgrade(inst, exact.best);
+        if (better(sol.score, best.score)) best = sol;
+      }
+      lb = Math.max(lb, achievableCost(inst.stocks, exact.lb, deadline));
+    }
+  }
+  return { best, lb, finished: proven() };
 }
 
 /**
@@ -160,6 +214,7 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
 
   let finished = proven();
   if (!finished) {
+    warmUpMipSolver();
     const kinds = kindsOf(inst);
     const problem = lpProblem(inst, kinds, deadline);
     // The LP gets a share of the time; its duals are a valid bound wherever it stops.
@@ -182,6 +237,10 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
         if (better(sol.score, best.score)) best = sol;
       }
       finished = proven();
+    }
+    // After the dives, which often close the gap alone in a few milliseconds on a quiet machine.
+    if (!finished && best.score.unplaced === 0 && mipAvailable()) {
+      ({ best, lb, finished } = mipStages(inst, kinds, problem, { best, lb, finished }, shareOf(deadline, 0.6)));
     }
     // Several priced lengths: the gap is in the mix of lengths, so list mixes by cost (cost-levels.ts), then
     // bin completion with the pattern LP of what is left as its node bound.

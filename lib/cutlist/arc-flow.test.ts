@@ -1,0 +1,210 @@
+import fc from 'fast-check';
+import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { planLinearCuts, type LinearCutRequest } from '.';
+import { arcFlowSearch, buildArcFlow, decodeArcFlow } from './arc-flow';
+import { deadlineIn } from './deadline';
+import { Instance, SCALE, type Solution } from './instance';
+import { kindsOf } from './knapsack';
+import { mipAvailable, solveMip, waitForMipSolver } from './mip';
+import { solvePatternMip } from './pattern-mip';
+import { bruteForceCost } from './testing/brute-force';
+
+/** Every piece on exactly one board, no board over its capacity, no stock used beyond what is available. */
+function expectValidSolution(inst: Instance, sol: Solution): void {
+  const seen = new Set<number>();
+  const used = inst.stocks.map(() => 0);
+  for (const bin of sol.bins) {
+    const stock = inst.stocks[bin.stock];
+    expect(stock).toBeDefined();
+    if (!stock) continue;
+    used[bin.stock] = (used[bin.stock] ?? 0) + 1;
+    const load = bin.items.reduce((a, i) => a + (inst.pieces[i]?.size ?? 0), 0);
+    expect(load).toBe(bin.load);
+    expect(load).toBeLessThanOrEqual(stock.cap);
+    for (const i of bin.items) {
+      expect(seen.has(i)).toBe(false);
+      seen.add(i);
+    }
+  }
+  expect(seen.size).toBe(inst.pieces.length);
+  inst.stocks.forEach((s, i) => expect(used[i] ?? 0).toBeLessThanOrEqual(s.available));
+}
+
+const sixteenths = (min: number, max: number) => fc.integer({ min: min * 16, max: max * 16 }).map((n) => n / 16);
+/** Small lists brute force can check: on-hand stock (price 0 with a count) and limited racks included. */
+const smallArb: fc.Arbitrary<LinearCutRequest> = fc
+  .record({
+    kerf: fc.constantFrom(0, 1 / 16, 1 / 8),
+    endTrim: fc.constantFrom(0, 0.5),
+    parts: fc
+      .array(fc.record({ length: sixteenths(2, 60), quantity: fc.integer({ min: 1, max: 3 }) }), { minLength: 1, maxLength: 3 })
+      .map((ps) => ps.map((p, i) => ({ id: `p${i}`, ...p }))),
+    stock: fc
+      .array(
+        fc.record({
+          length: fc.integer({ min: 24, max: 96 }),
+          price: fc.integer({ min: 0, max: 3000 }).map((c) => c / 100),
+          available: fc.option(fc.integer({ min: 0, max: 4 }), { nil: undefined }),
+        }),
+        { minLength: 1, maxLength: 3 },
+      )
+      .map((ss) => ss.map((s, i) => ({ id: `s${i}`, ...s }))),
+  })
+  .filter((r) => r.parts.reduce((a, p) => a + p.quantity, 0) <= 6);
+
+describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
+  // The planner skips its integer programs until HiGHS has loaded; these tests are about them.
+  beforeEach(async () => {
+    expect(await waitForMipSolver()).toBe(true);
+  }, 60_000);
+
+  it('proves the same least cost as brute force on small lists, with a valid plan', async () => {
+    let proved = 0;
+    // Async so each run can wait for the solver thread: a fresh one replaces it every 100 solves.
+    await fc.assert(
+      fc.asyncProperty(smallArb, async (req) => {
+        const inst = new Instance(req);
+        if (inst.unfit.length > 0 || inst.pieces.length === 0) return;
+        expect(await waitForMipSolver()).toBe(true);
+        const best = bruteForceCost(req);
+        const result = arcFlowSearch(inst, kindsOf(inst), null, deadlineIn(5000));
+        expect(result).not.toBeNull();
+        if (!result) return;
+        if (best === null) {
+          // Not enough boards: no plan may come back, and nothing is claimed.
+          expect(result.best).toBeNull();
+          expect(result.optimal).toBe(false);
+          return;
+        }
+        expect(result.lb / SCALE).toBeLessThanOrEqual(best + 1e-6);
+        expect(result.optimal).toBe(true);
+        expect(result.best).not.toBeNull();
+        if (!result.best) return;
+        expectValidSolution(inst, result.best);
+        expect(result.best.score.cost / SCALE).toBeCloseTo(best, 6);
+        proved++;
+      }),
+      { numRuns: 60 },
+    );
+    expect(proved).toBeGreaterThan(15);
+  }, 180_000);
+
+  it('agrees with the planner’s own searches wherever both prove a plan', async () => {
+    let both = 0;
+    await fc.assert(
+      fc.asyncProperty(smallArb, async (req) => {
+        const inst = new Instance(req);
+        if (inst.unfit.length > 0 || inst.pieces.length === 0) return;
+        expect(await waitForMipSolver()).toBe(true);
+        const plan = planLinearCuts({ ...req, timeLimitMs: 500 });
+        const result = arcFlowSearch(inst, kindsOf(inst), null, deadlineIn(5000));
+        if (!plan.optimal || !result?.optimal || !result.best) return;
+        expect(result.best.score.cost / SCALE).toBeCloseTo(plan.totalCost, 6);
+        both++;
+      }),
+      { numRuns: 60 },
+    );
+    expect(both).toBeGreaterThan(15);
+  }, 180_000);
+
+  it('decodes a flow into boards whose pieces are listed once each', () => {
+    // 3 x 40 in and 2 x 28 in from 96 in boards, no kerf: 40+40 and 40+28+28 (exactly full) on two boards.
+    const req: LinearCutRequest = {
+      kerf: 0,
+      parts: [
+        { id: 'a', length: 40, quantity: 3 },
+        { id: 'b', length: 28, quantity: 2 },
+      ],
+      stock: [{ id: 'x', length: 96, price: 5 }],
+    };
+    const inst = new Instance(req);
+    const kinds = kindsOf(inst);
+    const g = buildArcFlow(inst, kinds);
+    expect(g).not.toBeNull();
+    const result = arcFlowSearch(inst, kinds, null, deadlineIn(5000));
+    expect(result?.optimal).toBe(true);
+    expect(result?.best?.bins.length).toBe(2);
+    expect(result?.best?.score.cost).toBe(10 * SCALE);
+    if (result?.best) expectValidSolution(inst, result.best);
+    // A flow that cuts too few pieces is refused rather than shown as a plan.
+    if (g) expect(decodeArcFlow(g, inst, kinds, new Float64Array(g.model.numCols))).toBeNull();
+  });
+
+  it('leaves out graphs too large to solve in time', () => {
+    // 1/1000 in lengths on long boards: a graph of hundreds of thousands of arcs.
+    const req: LinearCutRequest = {
+      kerf: 0.001,
+      parts: Array.from({ length: 40 }, (_, i) => ({ id: `p${i}`, length: 10 + i * 1.237, quantity: 2 })),
+      stock: [
+        { id: 'a', length: 144, price: 8 },
+        { id: 'b', length: 192, price: 11 },
+      ],
+    };
+    const inst = new Instance(req);
+    expect(buildArcFlow(inst, kindsOf(inst))).toBeNull();
+  });
+
+  it('gives up at its deadline even when HiGHS would run on', async () => {
+    // 160 pieces to the 1/16 in on three lengths: HiGHS needs seconds here.
+    let seed = 7;
+    const random = (): number => {
+      seed = (seed * 16807) % 2147483647;
+      return seed / 2147483647;
+    };
+    const parts = Array.from({ length: 30 }, (_, i) => ({ id: `p${i}`, length: Math.round((6 + random() * 80) * 16) / 16, quantity: 1 + Math.floor(random() * 10) }));
+    const req: LinearCutRequest = {
+      kerf: 0.125,
+      parts,
+      stock: [
+        { id: 'a', length: 96, price: 4.5 },
+        { id: 'b', length: 120, price: 6.2 },
+        { id: 'c', length: 144, price: 8.1 },
+      ],
+    };
+    const inst = new Instance(req);
+    const g = buildArcFlow(inst, kindsOf(inst), 1_000_000);
+    expect(g).not.toBeNull();
+    if (!g) return;
+    for (const ms of [1, 40, 120]) {
+      expect(await waitForMipSolver()).toBe(true);
+      const started = performance.now();
+      solveMip(g.model, deadlineIn(ms));
+      // Goal timeLimitMs + 50 ms; generous for a shared two-core machine, far below HiGHS's seconds.
+      expect(performance.now() - started).toBeLessThan(ms + 200);
+    }
+  });
+});
+
+describe.runIf(mipAvailable())('pattern integer program (HiGHS)', () => {
+  beforeAll(async () => {
+    expect(await waitForMipSolver()).toBe(true);
+  }, 60_000);
+
+  it('picks the cheapest cover from the patterns given, never worse than the incumbent', () => {
+    // Kinds: 0 (need 4), 1 (need 2). Stock 0 at 5, stock 1 at 7 with at most one board.
+    const stocks = [
+      { price: 5, available: Number.POSITIVE_INFINITY },
+      { price: 7, available: 1 },
+    ];
+    const pool = [
+      { stock: 0, counts: [2, 0] },
+      { stock: 0, counts: [1, 1] },
+      { stock: 1, counts: [2, 2] },
+    ];
+    const incumbent = [
+      { stock: 0, counts: [2, 0] },
+      { stock: 0, counts: [2, 0] },
+      { stock: 0, counts: [0, 1] },
+      { stock: 0, counts: [0, 1] },
+    ];
+    const picked = solvePatternMip([4, 2], stocks, pool, incumbent, deadlineIn(5000));
+    expect(picked).not.toBeNull();
+    const cost = (picked ?? []).reduce((a, p) => a + (stocks[p.stock]?.price ?? 0), 0);
+    // [2,2] on stock 1 plus one [2,0]: 12, cheaper than the incumbent's 20 and than three stock-0 boards (15).
+    expect(cost).toBe(12);
+    const covered = [0, 0];
+    for (const p of picked ?? []) p.counts.forEach((c, k) => (covered[k] = (covered[k] ?? 0) + c));
+    expect(covered[0]).toBeGreaterThanOrEqual(4);
+    expect(covered[1]).toBeGreaterThanOrEqual(2);
+  });
+});

@@ -1,0 +1,274 @@
+/**
+ * The exact stage: the whole plan as an integer program over an arc-flow graph, solved by HiGHS (mip.ts).
+ *
+ * Nodes are positions along a board in units of the coarsest exact grid (the gcd of the piece sizes;
+ * a capacity rounds down to it, which refuses nothing, since every load is a multiple of it). An arc
+ * p -> p + size_k cuts one piece of kind k; kinds go in decreasing size along every path (any board's
+ * pieces can be put in that order), so an arc of kind k leaves p only if some path reaches p with
+ * kinds no smaller. A board of stock s ends at a node p <= its capacity by a loss arc to the sink of s,
+ * priced at the board; a loss arc is left out where an unlimited stock no dearer also holds p. One
+ * graph serves every stock length: flow conservation at each node, at least the demand of each kind,
+ * at most the boards available of each stock.
+ *
+ * Source: J. M. Valério de Carvalho, "Exact solution of bin-packing problems using column generation
+ * and branch-and-bound", Annals of Operations Research 86 (1999), and "LP models for bin packing and
+ * cutting stock problems", EJOR 141 (2002) §4 (the variable-sized graph with several sinks).
+ */
+import { type Deadline } from './deadline';
+import { gcd, unitOf, type Kind } from './knapsack';
+import { solveMip, type MipModel } from './mip';
+import type { Bin, Instance, Solution } from './instance';
+
+/**
+ * Larger graphs are skipped. Measured (README.md): one length of board (Falkenauer t60, about 6,700
+ * columns) solves in about a second; woodworking lists on three to five lengths (3,000–15,000 columns)
+ * rarely finished their root LP inside a 2 s call, and HiGHS cannot be stopped inside that LP.
+ */
+export const MAX_ARC_FLOW_COLUMNS = { oneLength: 8_000, severalLengths: 2_500 };
+/** Largest board price in objective units, so a bound within HiGHS's tolerance still rounds to the right unit. */
+const MAX_PRICE_UNITS = 100_000;
+/** Positions per board in grid units; beyond this the graph is not built at all. */
+const MAX_POSITIONS = 200_000;
+
+export interface ArcFlowResult {
+  /** The solver's plan, checked against the instance; null if it found none in time. */
+  best: Solution | null;
+  /** Proven lower bound on the cost, micro-dollars (0 when the solver proved nothing). */
+  lb: number;
+  /** HiGHS closed the gap: no plan costs less than `best`. */
+  optimal: boolean;
+}
+
+interface Graph {
+  model: MipModel;
+  /** Item arcs: from, kind (the target is from + size). */
+  arcFrom: Int32Array;
+  arcKind: Int32Array;
+  /** Loss arcs after the item arcs: node position, stock. */
+  lossAt: Int32Array;
+  lossStock: Int32Array;
+  sizes: number[]; // grid units per kind
+  priceUnit: number; // micro-dollars per objective unit
+}
+
+/** The arc-flow model of `inst`, or null when it would exceed `maxColumns`. */
+export function buildArcFlow(
+  inst: Instance,
+  kinds: readonly Kind[],
+  maxColumns = inst.stocks.length === 1 ? MAX_ARC_FLOW_COLUMNS.oneLength : MAX_ARC_FLOW_COLUMNS.severalLengths,
+): Graph | null {
+  const K = kinds.length;
+  const grid = unitOf(kinds.map((k) => k.size));
+  if (K === 0 || grid <= 0) return null;
+  const sizes = kinds.map((k) => k.size / grid);
+  const demand = kinds.map((k) => k.pieces.length);
+  const stocks = inst.stocks;
+  const caps = stocks.map((s) => Math.floor(s.cap / grid));
+  const W = Math.max(0, ...caps);
+  if (W > MAX_POSITIONS) return null;
+  // Objective in whole units of the prices' gcd, so HiGHS sees an integral objective.
+  const priceUnit = stocks.reduce((g, s) => gcd(g, s.price), 0) || 1;
+  // Prices to the micro-dollar would make units too fine for a solver that works to about 1e-6.
+  if (Math.max(0, ...stocks.map((s) => s.price)) / priceUnit > MAX_PRICE_UNITS) return null;
+
+  // minLast[p]: the smallest kind index that ends a decreasing path to p (K when p is not reached).
+  const minLast = new Int32Array(W + 1).fill(K);
+  minLast[0] = 0;
+  const arcFrom: number[] = [];
+  const arcKind: number[] = [];
+  for (let p = 0; p <= W; p++) {
+    const first = minLast[p] ?? K;
+    for (let k = first; k < K; k++) {
+      const q = p + (sizes[k] ?? 0);
+      if (q > W) continue;
+      arcFrom.push(p);
+      arcKind.push(k);
+      if (k < (minLast[q] ?? K)) minLast[q] = k;
+    }
+    if (arcFrom.length > maxColumns) return null;
+  }
+  const nodeRow = new Int32Array(W + 1).fill(-1);
+  let nodes = 0;
+  for (let p = 1; p <= W; p++) if ((minLast[p] ?? K) < K) nodeRow[p] = nodes++;
+
+  const lossAt: number[] = [];
+  const lossStock: number[] = [];
+  for (let p = 1; p <= W; p++) {
+    if ((nodeRow[p] ?? -1) < 0) continue;
+    stocks.forEach((s, i) => {
+      if ((caps[i] ?? 0) < p) return;
+      const dominated = stocks.some(
+        (t, j) => j !== i && (caps[j] ?? 0) >= p && !Number.isFinite(t.available) && (t.price < s.price || (t.price === s.price && j < i)),
+      );
+      if (!dominated) {
+        lossAt.push(p);
+        lossStock.push(i);
+      }
+    });
+  }
+  const numCols = arcFrom.length + lossAt.length;
+  if (numCols > maxColumns) return null;
+
+  // Rows: one per node (flow in = flow out), one per kind (demand), one per stock with a limit.
+  const availRow = stocks.map(() => -1);
+  let numRows = nodes + K;
+  stocks.forEach((s, i) => {
+    if (Number.isFinite(s.available)) availRow[i] = numRows++;
+  });
+  const totalPieces = demand.reduce((a, b) => a + b, 0);
+  const starts = new Int32Array(numCols + 1);
+  const indices: number[] = [];
+  const values: number[] = [];
+  const colCost = new Float64Array(numCols);
+  const colUpper = new Float64Array(numCols);
+  let col = 0;
+  arcFrom.forEach((p, a) => {
+    const k = arcKind[a] ?? 0;
+    const q = p + (sizes[k] ?? 0);
+    if (p > 0) {
+      indices.push(nodeRow[p] ?? 0);
+      values.push(-1);
+    }
+    indices.push(nodeRow[q] ?? 0, nodes + k);
+    values.push(1, 1);
+    colUpper[col] = demand[k] ?? 0;
+    starts[++col] = indices.length;
+  });
+  lossAt.forEach((p, a) => {
+    const s = lossStock[a] ?? 0;
+    const stock = stocks[s];
+    indices.push(nodeRow[p] ?? 0);
+    values.push(-1);
+    const row = availRow[s] ?? -1;
+    if (row >= 0) {
+      indices.push(row);
+      values.push(1);
+    }
+    colCost[col] = (stock?.price ?? 0) / priceUnit;
+    colUpper[col] = Math.min(stock?.available ?? totalPieces, totalPieces);
+    starts[++col] = indices.length;
+  });
+  const rowLower = new Float64Array(numRows);
+  const rowUpper = new Float64Array(numRows);
+  for (let k = 0; k < K; k++) {
+    rowLower[nodes + k] = demand[k] ?? 0;
+    rowUpper[nodes + k] = Number.POSITIVE_INFINITY;
+  }
+  stocks.forEach((s, i) => {
+    const row = availRow[i] ?? -1;
+    if (row < 0) return;
+    rowLower[row] = Number.NEGATIVE_INFINITY;
+    rowUpper[row] = s.available;
+  });
+  return {
+    model: {
+      numCols,
+      numRows,
+      colCost,
+      colLower: new Float64Array(numCols),
+      colUpper,
+      rowLower,
+      rowUpper,
+      matrix: { format: 'csc', numRows, numCols, starts, indices: Int32Array.from(indices), values: Float64Array.from(values) },
+      integrality: new Int32Array(numCols).fill(1),
+    },
+    arcFrom: Int32Array.from(arcFrom),
+    arcKind: Int32Array.from(arcKind),
+    lossAt: Int32Array.from(lossAt),
+    lossStock: Int32Array.from(lossStock),
+    sizes,
+    priceUnit,
+  };
+}
+
+/** The column values of `sol` in graph `g` (every board a decreasing path), or undefined if one has no arc. */
+function startOf(g: Graph, inst: Instance, kinds: readonly Kind[], sol: Solution): Float64Array | undefined {
+  const kindOf = new Map<number, number>();
+  kinds.forEach((k, idx) => k.pieces.forEach((i) => kindOf.set(i, idx)));
+  const K = kinds.length;
+  const itemCol = new Map<number, number>();
+  g.arcFrom.forEach((p, a) => itemCol.set(p * K + (g.arcKind[a] ?? 0), a));
+  const lossCol = new Map<number, number>();
+  const S = inst.stocks.length;
+  g.lossAt.forEach((p, a) => lossCol.set(p * S + (g.lossStock[a] ?? 0), g.arcFrom.length + a));
+  const x = new Float64Array(g.model.numCols);
+  for (const bin of sol.bins) {
+    const ks = bin.items.map((i) => kindOf.get(i) ?? -1).sort((a, b) => a - b);
+    let p = 0;
+    for (const k of ks) {
+      const a = itemCol.get(p * K + k);
+      if (a === undefined) return undefined;
+      x[a] = (x[a] ?? 0) + 1;
+      p += g.sizes[k] ?? 0;
+    }
+    const l = lossCol.get(p * S + bin.stock);
+    if (l === undefined) return undefined;
+    x[l] = (x[l] ?? 0) + 1;
+  }
+  return x;
+}
+
+/** Boards from the flow: paths from position 0 to a sink, pieces handed out by kind; null if not a full plan. */
+export function decodeArcFlow(g: Graph, inst: Instance, kinds: readonly Kind[], x: Float64Array): Solution | null {
+  const flow = Int32Array.from(x, (v) => Math.round(v));
+  const out = new Map<number, number[]>(); // position -> columns leaving it
+  const add = (p: number, c: number): void => {
+    const list = out.get(p);
+    if (list) list.push(c);
+    else out.set(p, [c]);
+  };
+  g.arcFrom.forEach((p, a) => add(p, a));
+  g.lossAt.forEach((p, a) => add(p, g.arcFrom.length + a));
+  const queues = kinds.map((k) => [...k.pieces]);
+  const bins: Bin[] = [];
+  const used = inst.stocks.map(() => 0);
+  for (let guard = 0; guard <= inst.pieces.length; guard++) {
+    let p = 0;
+    const items: number[] = [];
+    let load = 0;
+    let stock = -1;
+    for (;;) {
+      const c = (out.get(p) ?? []).find((col) => (flow[col] ?? 0) > 0);
+      if (c === undefined) break;
+      flow[c] = (flow[c] ?? 0) - 1;
+      if (c >= g.arcFrom.length) {
+        stock = g.lossStock[c - g.arcFrom.length] ?? -1;
+        break;
+      }
+      const k = g.arcKind[c] ?? 0;
+      p += g.sizes[k] ?? 0;
+      // More pieces than wanted of a kind (the demand rows are ">="): the extra is simply not cut.
+      const i = queues[k]?.pop();
+      if (i === undefined) continue;
+      items.push(i);
+      load += inst.pieces[i]?.size ?? 0;
+    }
+    if (p === 0) break; // no flow left at the start
+    const st = inst.stocks[stock];
+    if (!st || load > st.cap || (used[stock] ?? 0) >= st.available) return null;
+    used[stock] = (used[stock] ?? 0) + 1;
+    if (items.length > 0) bins.push({ stock, load, items });
+  }
+  if (queues.some((q) => q.length > 0)) return null;
+  return inst.solution(bins, []);
+}
+
+/**
+ * Solves the arc-flow model until `deadline`, starting from `incumbent`. The plan is decoded and checked;
+ * the bound is HiGHS's dual bound rounded up to a whole price unit (the objective is integral).
+ */
+export function arcFlowSearch(inst: Instance, kinds: readonly Kind[], incumbent: Solution | null, deadline: Deadline): ArcFlowResult | null {
+  const g = buildArcFlow(inst, kinds);
+  if (!g) return null;
+  const start = incumbent ? startOf(g, inst, kinds, incumbent) : undefined;
+  const result = solveMip(g.model, deadline, start);
+  if (!result) return null;
+  const best = result.solution ? decodeArcFlow(g, inst, kinds, result.solution) : null;
+  const dual = result.dualBound;
+  // HiGHS works to tolerances near 1e-7, so a bound a hair above a whole unit is not rounded up past it;
+  // mip-worker.mjs stops at a gap of 0.99 units, well inside what this rounding still closes.
+  const units = dual !== null && Number.isFinite(dual) ? Math.ceil(dual - 1e-3) : 0;
+  const lb = Math.max(0, units * g.priceUnit);
+  const optimal = result.optimal && best !== null && best.score.cost <= lb;
+  return { best, lb: optimal ? (best?.score.cost ?? lb) : lb, optimal };
+}

@@ -405,7 +405,11 @@ describe('planSheetCuts: properties', () => {
   }, 60_000);
 
   it('on tiny cases never claims optimal when brute force finds a cheaper plan, and its bound holds', () => {
-    const tiny = requestArb(3, 2, 2, 40).filter((r) => r.parts.reduce((a, p) => a + p.quantity, 0) <= 5);
+    // Where a proof is asserted (no stock limits), the deadline is only a safety net so a loaded machine
+    // cannot decide the outcome; with limits the search may use its whole time, so it stays short.
+    const tiny = requestArb(3, 2, 2, 40)
+      .filter((r) => r.parts.reduce((a, p) => a + p.quantity, 0) <= 5)
+      .map((r) => (r.stock.every((s) => s.available === undefined) ? { ...r, timeLimitMs: 20_000 } : r));
     fc.assert(
       fc.property(tiny, (req) => {
         const plan = planSheetCuts(req);

@@ -22,7 +22,7 @@ function ColumnFrame({ state, count, children, over = false, movable = false, re
       ref={frameRef}
       aria-label={label}
       className={`flex min-w-0 flex-col gap-3 rounded-card border border-t-4 border-paper-edge p-3 transition-colors ${accents[state]} ${
-        refusal ? 'bg-paper-deep/80 opacity-80' : over ? 'bg-blueprint-soft/70' : 'bg-paper-deep/50'
+        refusal ? 'bg-paper-deep' : over ? 'bg-blueprint-soft/70' : 'bg-paper-deep/50'
       }`}
     >
       <h2 className={`flex items-baseline justify-between gap-2 text-base font-bold ${state === 'retake' ? 'text-attention-ink' : ''}`}>

@@ -26,15 +26,14 @@ export function ClipFiling({ slug, clip, shots, segments, onFiled }: Props) {
   function submit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const body = moving ? { segmentId } : { shotId: shotId || null };
-    file.mutate(
-      { clip, body },
-      {
-        onSuccess: () => {
-          const target = moving ? segments.find((s) => s.id === segmentId)?.label : shots.find((s) => s.id === shotId)?.label;
-          onFiled(moving ? `Moved ${clip.originalName} to ${target ?? 'another segment'}.` : shotId ? `Tied ${clip.originalName} to ${target ?? 'the shot'}.` : `${clip.originalName} is no longer tied to a shot.`);
-        },
-      },
-    );
+    const target = moving ? segments.find((s) => s.id === segmentId)?.label : shots.find((s) => s.id === shotId)?.label;
+    // mutateAsync, not mutate's onSuccess: a moved clip leaves this list once the list refetches, and
+    // TanStack Query skips mutate's own callbacks when the component has unmounted by then.
+    file
+      .mutateAsync({ clip, body })
+      .then(() => onFiled(moving ? `Moved ${clip.originalName} to ${target ?? 'another segment'}.` : shotId ? `Tied ${clip.originalName} to ${target ?? 'the shot'}.` : `${clip.originalName} is no longer tied to a shot.`))
+      // The error is shown from the mutation's state below.
+      .catch(() => undefined);
   }
 
   return (

@@ -1,5 +1,6 @@
 // Linear cut planner benchmark (issue: linear cut planning). Pure, no services:
-//   npx tsx bench/cutlist/run.ts [--large]
+//   npx tsx bench/cutlist/run.ts [--large] [--only=wood|falkenauer] [--trace]
+// --trace adds, for the woodworking lists, the time spent in each stage of the planner and which stage proved the plan.
 // Prints boards against the proven optimum and the time for the Falkenauer u120 and t60 instances (u250 and
 // t120 too with --large), then the median time to a proven optimum for generated woodworking cut lists.
 import { readFileSync } from 'node:fs';
@@ -7,6 +8,7 @@ import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { planLinearCuts, type LinearCutPlan, type LinearCutRequest } from '@/lib/cutlist';
 import { waitForMipSolver } from '@/lib/cutlist/mip';
+import { setStageTrace, type StageLap } from '@/lib/cutlist/trace';
 
 const DATA = process.env.KERFLINE_BENCH_DATA ?? join(process.cwd(), '..', 'shared', 'bench-data');
 const BINPACKING = join(DATA, 'binpacking');
@@ -139,6 +141,38 @@ function woodworkingRequest(random: () => number, c: number): LinearCutRequest {
   return { kerf: 0.125, endTrim: c % 2 === 0 ? 0 : 0.5, parts, stock, timeLimitMs: TIME_LIMIT_MS };
 }
 
+const TRACE = process.argv.includes('--trace');
+
+interface StageTotals {
+  calls: number;
+  ms: number;
+  provenCallsMs: number;
+  proved: number;
+}
+
+/** Per stage: how often it ran, its total time, its time in calls that ended proven, and how many plans it proved. */
+function printStageTable(laps: readonly { laps: StageLap[]; optimal: boolean }[]): void {
+  const totals = new Map<string, StageTotals>();
+  for (const call of laps) {
+    for (const lap of call.laps) {
+      const t = totals.get(lap.stage) ?? { calls: 0, ms: 0, provenCallsMs: 0, proved: 0 };
+      t.calls++;
+      t.ms += lap.ms;
+      if (call.optimal) t.provenCallsMs += lap.ms;
+      totals.set(lap.stage, t);
+    }
+    const first = call.laps.find((l) => l.proven);
+    const t = first ? totals.get(first.stage) : undefined;
+    if (t) t.proved++;
+  }
+  console.log('  stage               runs   total ms  in proven calls  proved here');
+  for (const [stage, t] of totals) {
+    console.log(
+      `  ${stage.padEnd(18)} ${String(t.calls).padStart(5)} ${t.ms.toFixed(0).padStart(10)} ${t.provenCallsMs.toFixed(0).padStart(16)} ${String(t.proved).padStart(12)}`,
+    );
+  }
+}
+
 const ONLY = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length);
 
 function main(): void {
@@ -186,11 +220,16 @@ function main(): void {
   const gaps: number[] = [];
   let woodInvalid = 0;
   let woodPieces = 0;
+  const traced: { laps: StageLap[]; optimal: boolean }[] = [];
+  let current: StageLap[] = [];
+  if (TRACE) setStageTrace((lap) => current.push(lap));
   for (let c = 0; c < WOOD_CASES; c++) {
     const req = woodworkingRequest(random, c);
     const pieces = req.parts.reduce((a, p) => a + p.quantity, 0);
     woodPieces += pieces;
+    current = [];
     const { plan, ms } = timed(req);
+    traced.push({ laps: current, optimal: plan.optimal });
     over = Math.max(over, ms - TIME_LIMIT_MS);
     if (checkPlan(req, plan)) woodInvalid++;
     woodTimes.push(ms);
@@ -210,6 +249,7 @@ function main(): void {
   console.log(
     `  proved optimal ${provedTimes.length}/${WOOD_CASES}, ${woodInvalid} invalid; median time ${median(woodTimes).toFixed(1)} ms (proved cases only ${median(provedTimes).toFixed(1)} ms), max ${Math.max(...woodTimes).toFixed(0)} ms; unproven at most ${gaps.length > 0 ? Math.max(...gaps).toFixed(2) : '0'} % over their bound`,
   );
+  if (TRACE) printStageTable(traced);
   console.log(
     `Hard limit: the slowest call ran ${over.toFixed(0)} ms of wall time past timeLimitMs (goal <= 50); the most CPU time past it was ${cpuOver.toFixed(0)} ms (load average now ${loadavg()[0]?.toFixed(1)} on ${availableParallelism()} cores).`,
   );

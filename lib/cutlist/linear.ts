@@ -19,6 +19,7 @@ import { kindsOf, knapsack, unitOf, type Kind } from './knapsack';
 import { mipAvailable, warmUpMipSolver } from './mip';
 import { solvePatternMip } from './pattern-mip';
 import { solvePatternLp, type Pattern } from './pattern-lp';
+import { startStageClock } from './trace';
 import type { LinearBoard, LinearCut, LinearCutPlan, LinearCutRequest, LinearPurchase } from './types';
 
 export { martelloTothL2 } from './bounds';
@@ -161,6 +162,9 @@ function patternsOf(inst: Instance, kinds: readonly Kind[], sol: Solution): Patt
   });
 }
 
+/** Share of the time left that the LP dives get on a rack of several lengths (see the call). */
+const DIVE_SHARE_SEVERAL_LENGTHS = 0.1;
+
 interface Stage {
   best: Solution;
   lb: number;
@@ -173,7 +177,14 @@ interface Stage {
  * dives missed), then the exact arc-flow model (arc-flow.ts), whose optimum is a proof and whose dual
  * bound raises the bound when it stops early. Each keeps the better plan and the higher bound.
  */
-function mipStages(inst: Instance, kinds: readonly Kind[], problem: DiveProblem, start: Stage, deadline: Deadline): Stage {
+function mipStages(
+  inst: Instance,
+  kinds: readonly Kind[],
+  problem: DiveProblem,
+  start: Stage,
+  deadline: Deadline,
+  lap: (stage: string, proven: boolean) => void,
+): Stage {
   let { best, lb } = start;
   const proven = (): boolean => best.score.unplaced === 0 && best.score.cost <= lb;
   const picked = solvePatternMip(problem.demand, problem.stocks, problem.pool, patternsOf(inst, kinds, best), shareOf(deadline, 0.15));
@@ -181,6 +192,7 @@ function mipStages(inst: Instance, kinds: readonly Kind[], problem: DiveProblem,
     const sol = downgrade(inst, solutionOf(inst, kinds, picked));
     if (sol.score.unplaced === 0 && better(sol.score, best.score)) best = sol;
   }
+  lap('pattern-mip', proven());
   if (!proven()) {
     const exact = arcFlowSearch(inst, kinds, best, shareOf(deadline, 0.7));
     if (exact) {
@@ -190,6 +202,7 @@ function mipStages(inst: Instance, kinds: readonly Kind[], problem: DiveProblem,
       }
       lb = Math.max(lb, achievableCost(inst.stocks, exact.lb, deadline));
     }
+    lap(exact ? 'arc-flow' : 'arc-flow-skipped', proven());
   }
   return { best, lb, finished: proven() };
 }
@@ -201,6 +214,7 @@ function mipStages(inst: Instance, kinds: readonly Kind[], problem: DiveProblem,
  */
 export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
   const deadline = deadlineIn(req.timeLimitMs ?? 2000);
+  const lap = startStageClock();
   const inst = new Instance(req);
   const all = inst.pieces.map((_, i) => i);
   let lb = lowerBound(inst, all);
@@ -211,6 +225,7 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
     const mbs = downgrade(inst, minimumSlack(inst, deadline));
     if (better(mbs.score, best.score)) best = mbs;
   }
+  lap('greedy', proven());
 
   let finished = proven();
   if (!finished) {
@@ -222,6 +237,7 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
     const dual = dualBound(inst, kinds, root.duals, deadline);
     lb = Math.max(lb, achievableCost(inst.stocks, Math.ceil(dual.value - 1e-3 - 1e-9 * Math.abs(dual.value)), deadline));
     finished = proven();
+    lap('root-lp', finished);
     const single = inst.stocks.length === 1;
     if (!finished && single) {
       // One length (Falkenauer's sets): bin completion on the root duals is quick on exactly-full instances
@@ -229,18 +245,24 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
       const result = completionSearch(inst, kinds, dual, best.score.unplaced === 0 ? best : null, shareOf(deadline, 0.3));
       if (result.best && better(result.best.score, best.score)) best = result.best;
       finished = result.finished || proven();
+      lap('completion-1', finished);
     }
     if (!finished && best.score.unplaced === 0) {
-      const dived = diveSearch(problem, lb, shareOf(deadline, single ? 0.6 : 0.3), rng(7));
+      // Several lengths: a tenth of the time. Dives prove a plan early or not at all; the rest of a larger
+      // share only delayed the cost levels and the arc-flow, which prove most of these lists (measured with
+      // bench/cutlist/run.ts --trace: 0.3 -> 0.1 took the median from 850-950 ms to 410-450 ms and proofs
+      // from 71-73 to 77 of 100, back to back at load 8-10; 0.05 proved no more).
+      const dived = diveSearch(problem, lb, shareOf(deadline, single ? 0.6 : DIVE_SHARE_SEVERAL_LENGTHS), rng(7));
       if (dived) {
         const sol = downgrade(inst, solutionOf(inst, kinds, dived.patterns));
         if (better(sol.score, best.score)) best = sol;
       }
       finished = proven();
+      lap('dives', finished);
     }
     // After the dives, which often close the gap alone in a few milliseconds on a quiet machine.
     if (!finished && best.score.unplaced === 0 && mipAvailable()) {
-      ({ best, lb, finished } = mipStages(inst, kinds, problem, { best, lb, finished }, shareOf(deadline, 0.6)));
+      ({ best, lb, finished } = mipStages(inst, kinds, problem, { best, lb, finished }, shareOf(deadline, 0.6), lap));
     }
     // Several priced lengths: the gap is in the mix of lengths, so list mixes by cost (cost-levels.ts), then
     // bin completion with the pattern LP of what is left as its node bound.
@@ -249,17 +271,20 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
       best = levels.best;
       lb = Math.max(lb, levels.lb);
       finished = levels.finished || proven();
+      lap('cost-levels', finished);
     }
     if (!finished && !single) {
       const result = completionSearch(inst, kinds, dual, best.score.unplaced === 0 ? best : null, shareOf(deadline, 0.6), problem);
       if (result.best && better(result.best.score, best.score)) best = result.best;
       finished = result.finished || proven();
+      lap('completion', finished);
     }
     // A depth-first search that has not closed the gap is usually stuck deep in the tree, where ruin and
     // recreate still finds better plans, so it gets what time is left.
     if (!finished && best.score.unplaced === 0) {
       best = improve(inst, best, lb, deadline);
       finished = proven();
+      lap('improve', finished);
     }
   }
 

@@ -365,3 +365,26 @@ describe('planRipCuts: hardwood of several widths priced by the board foot (issu
     expect(plan.purchase.map((p) => p.stockId).sort()).toEqual(['5.5x72', '7.25x72']);
   });
 });
+
+describe('planRipCuts: an exhausted time limit still gives a whole plan', () => {
+  it('places every piece at timeLimitMs 0 (the first greedy start once opened no board at all, so a loaded machine got an empty plan)', () => {
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 0.0625,
+      endTrim: 0.5,
+      parts: [
+        { id: 'slat', length: 30, width: 1.5, quantity: 6 },
+        { id: 'rail', length: 20, width: 2.5, quantity: 3 },
+      ],
+      stock: [
+        { id: '96', length: 96, width: 5.5, price: 10 },
+        { id: '120', length: 120, width: 5.5, price: 13 },
+      ],
+      timeLimitMs: 0,
+    };
+    const plan = planRipCuts(req);
+    expect(plan.unplaced).toEqual([]);
+    expect(plan.boards.reduce((a, b) => a + b.strips.reduce((s, st) => s + st.cuts.length, 0), 0)).toBe(9);
+    expect(plan.lowerBound).toBeLessThanOrEqual(plan.totalCost);
+  });
+});

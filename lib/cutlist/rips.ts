@@ -257,7 +257,8 @@ function greedyRips(model: Model, start: GreedyStart = { prefer: -1, byLength: f
         stocks.forEach((st, i) => {
           if (st.capL < kind.size || st.capW < kind.width + rip || (used[i] ?? 0) >= st.available) return;
           const p = stocks[pick];
-          if (pick === start.prefer) return;
+          // Once the preferred stock is picked it stays; with no preference (-1) the cheapest per area wins.
+          if (pick >= 0 && pick === start.prefer) return;
           if (i === start.prefer || !p || st.price / (st.capL * st.capW) < p.price / (p.capL * p.capW)) pick = i;
         });
         if (pick < 0) {

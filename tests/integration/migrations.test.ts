@@ -1,24 +1,13 @@
-import { randomBytes } from 'node:crypto';
-import knex, { type Knex } from 'knex';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import config from '../../knexfile';
+import type { Knex } from 'knex';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { createScratchDatabase } from '../support/scratch-database';
 import { setUpDatabase } from '@/db/setup';
 
-// A throwaway database on the same server, so rolling back cannot disturb the other tests.
-const name = `kerfline_mig_${randomBytes(4).toString('hex')}`;
-const serverUrl = new URL(process.env.DATABASE_URL ?? '');
-const admin = knex({ client: 'pg', connection: { connectionString: new URL('/postgres', serverUrl).href }, pool: { min: 0, max: 1 } });
+// A throwaway database, so stepping migrations down and up cannot disturb the other tests.
+const scratchDb = createScratchDatabase('kerfline_mig');
 let scratch: Knex;
-
-beforeAll(async () => {
-  await admin.raw(`create database ${name}`);
-  scratch = knex({ ...config, connection: new URL(`/${name}`, serverUrl).href });
-});
-
-afterAll(async () => {
-  await scratch.destroy();
-  await admin.raw(`drop database if exists ${name}`);
-  await admin.destroy();
+beforeAll(() => {
+  scratch = scratchDb();
 });
 
 describe('migrations', () => {

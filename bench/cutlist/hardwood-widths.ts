@@ -7,23 +7,12 @@
 import { loadavg } from 'node:os';
 import { planRipCuts, type RipCutRequest, type RipStock } from '@/lib/cutlist';
 import { boardFeet } from '@/lib/lumber';
+import { rng } from '@/lib/cutlist/random';
 
 const CASES = 30;
 const TIME_LIMIT_MS = 1000;
 const ONE_WIDTH_LIMIT_MS = 500;
 const CENTS_PER_BOARD_FOOT = 950;
-
-// mulberry32, a public-domain 32-bit PRNG: the same lists on every run.
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const median = (xs: readonly number[]): number => {
   const s = [...xs].sort((a, b) => a - b);
@@ -47,7 +36,7 @@ function hardwoodRequest(r: () => number, c: number): RipCutRequest {
 }
 
 function main(): void {
-  const r = mulberry32(20261222);
+  const r = rng(20261222);
   const times: number[] = [];
   const gaps: number[] = [];
   const savings: number[] = [];

@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { planLinearCuts, type LinearCutPlan, type LinearCutRequest } from '@/lib/cutlist';
 import { waitForMipSolver } from '@/lib/cutlist/mip';
 import { setStageTrace, type StageLap } from '@/lib/cutlist/trace';
+import { rng } from '@/lib/cutlist/random';
 
 const DATA = process.env.KERFLINE_BENCH_DATA ?? join(process.cwd(), '..', 'shared', 'bench-data');
 const BINPACKING = join(DATA, 'binpacking');
@@ -100,18 +101,6 @@ function median(xs: readonly number[]): number {
   if (s.length === 0) return Number.NaN;
   const mid = Math.floor(s.length / 2);
   return s.length % 2 === 1 ? (s[mid] ?? Number.NaN) : ((s[mid - 1] ?? 0) + (s[mid] ?? 0)) / 2;
-}
-
-/** mulberry32 (Tommy Ettinger's public-domain generator): tiny, seedable, good enough for test data. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const WOOD_CASES = 100;
@@ -214,7 +203,7 @@ function main(): void {
     return;
   }
 
-  const random = mulberry32(20240611);
+  const random = rng(20240611);
   const woodTimes: number[] = [];
   const provedTimes: number[] = [];
   const gaps: number[] = [];

@@ -4,21 +4,10 @@
 // bound reaches their cost), the median time and how far the unproved ones can be over their bound.
 import { loadavg } from 'node:os';
 import { planSheetCuts, type SheetCutRequest } from '@/lib/cutlist';
+import { rng } from '@/lib/cutlist/random';
 
 const CASES = 40;
 const TIME_LIMIT_MS = 1000;
-
-// mulberry32, a public-domain 32-bit PRNG: the same lists on every run.
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const median = (xs: readonly number[]): number => {
   const s = [...xs].sort((a, b) => a - b);
@@ -46,7 +35,7 @@ function sheetRequest(r: () => number, c: number): SheetCutRequest {
 }
 
 function main(): void {
-  const r = mulberry32(20261220);
+  const r = rng(20261220);
   const times: number[] = [];
   const gaps: number[] = [];
   let proved = 0;

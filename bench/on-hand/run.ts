@@ -8,21 +8,10 @@ import { loadavg } from 'node:os';
 import { buildCutPlan, type PlanPart } from '@/lib/cut-plans/build';
 import type { OnHandStock } from '@/lib/on-hand/schemas';
 import { DEFAULT_CUT_SETTINGS, type StockItemDto } from '@/lib/stock/schemas';
+import { rng } from '@/lib/cutlist/random';
 
 const BUDGET_MS = 1000;
 const CASES = 30;
-
-/** mulberry32 (Tommy Ettinger's public-domain generator): tiny, seedable, good enough for test data. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 // Invented prices in a home-centre range.
 const spf: StockItemDto = {
@@ -46,7 +35,7 @@ function rack(random: () => number, n: number): OnHandStock[] {
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? 0;
 
 function main() {
-  const random = mulberry32(16);
+  const random = rng(16);
   const lists = Array.from({ length: CASES }, () => parts(random));
   const racks = [0, 4, 16].map((n) => ({ n, pieces: lists.map(() => rack(random, n)) }));
   const buying = lists.map((l) => buildCutPlan(l, [spf], DEFAULT_CUT_SETTINGS, BUDGET_MS).costCents);

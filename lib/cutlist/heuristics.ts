@@ -1,4 +1,5 @@
 /** Fast plans: greedy fits, minimum slack, and ruin-and-recreate improvement. */
+import { rng } from './random';
 import { expired, expiredEvery, type Deadline } from './deadline';
 import { type Bin, type Instance, type Solution, better } from './instance';
 
@@ -157,18 +158,6 @@ export function minimumSlack(inst: Instance, deadline: Deadline): Solution {
     for (let k = remaining.length - 1; k >= 0; k--) if (taken.has(remaining[k] ?? -1)) remaining.splice(k, 1);
   }
   return inst.solution(bins, unplaced);
-}
-
-/** Small deterministic PRNG (mulberry32) so plans are reproducible. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /** Ruin and recreate: empty a few boards, refill them best-fit into the rest, keep the result if not worse. */

@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { firstFitDecreasing, martelloTothL2, planLinearCuts, type LinearCutPlan, type LinearCutRequest } from '.';
 import { bruteForceCost } from './testing/brute-force';
+import { rng } from './random';
 
 const EPS = 1e-6;
 
@@ -290,13 +291,7 @@ describe('planLinearCuts: properties', () => {
 });
 
 describe('planLinearCuts: time limit (issue 12)', () => {
-  // mulberry32 (a public-domain 32-bit PRNG): the same 160 pieces on every run.
-  const rng = (seed: number) => () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  // The same 160 pieces on every run.
   /** 46 part lengths to the 1/16 in, 160 pieces, three board lengths: before the fix this took 3–6 s at timeLimitMs 0. */
   function hardRequest(): LinearCutRequest {
     const r = rng(5);

@@ -17,7 +17,7 @@
 import { achievableCost } from './bounds';
 import { deadlineIn, expired, shareOf, type Deadline } from './deadline';
 import { diveSearch, type DiveProblem } from './dive';
-import { rng } from './heuristics';
+import { rng } from './random';
 import { SCALE, toMicro } from './instance';
 import { gcd, knapsack, unitOf } from './knapsack';
 import { lagrangianBound, solvePatternLp, type Pattern } from './pattern-lp';

@@ -12,6 +12,7 @@
  * along y.
  */
 import { dffSheetBound } from './sheet-dff';
+import { rng } from './random';
 
 export type SheetGrain = 'length' | 'any';
 
@@ -787,18 +788,6 @@ function polish(inst: Instance, sol: Solution, rules: Rules, deadline: number): 
   let s = eliminate(inst, sol, rules.fit, rules.split);
   s = downgrade(inst, s, deadline);
   return mergePairs(inst, s, deadline);
-}
-
-/** Small deterministic PRNG (mulberry32) so plans are reproducible. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 // ---------- lower bounds ----------

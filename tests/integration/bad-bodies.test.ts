@@ -306,7 +306,9 @@ describe('no rack, part or settings body makes a 500', () => {
       ['mark cuts done', cutsDoneRoute.POST, 'POST', { channel: ch, episodeId }, fc.record({ stockItemId: fc.oneof(fc.constant(stockId), fc.uuid(), fc.constant('x'), fc.constant(null)) }, { requiredKeys: [] })],
     ];
     await assertNo500(runs, 80);
-  });
+    // Each accepted "mark cuts done" plans the episode's parts (as the other runs left them) on the worker
+    // pool with the route's full time budget, so 80 of them can take far longer than Vitest's 30 s default.
+  }, 180_000);
 });
 
 // Shot bodies near the real shape: framings, cameras and states right and wrong, dates real and not.

@@ -6,7 +6,7 @@ import type { Page } from '@playwright/test';
 import { DEMO_SLUG, PHONE, expect, expectAccessible, newEpisode, sameOrigin, test } from './fixtures';
 import { SegmentPage } from './pages/segment-page';
 import { ShopBoardPage } from './pages/shop-board-page';
-import { expectAnnounced } from './pages/live-region';
+import { expectAnnounced, pressUntilAnnounced } from './pages/live-region';
 import { StockRackPage } from './pages/stock-rack-page';
 
 // Issue 15, one check per thing a new crew noticed in its first hour (the phone widths are phone-layout.spec.ts).
@@ -100,8 +100,7 @@ test('on a desktop board, a card waiting for its safety review cannot be dropped
   await host.getByRole('button', { name: `Move: ${description}` }).focus();
   await host.keyboard.press('Space');
   await expectAnnounced(host, /Picked up|is over/);
-  await host.keyboard.press('ArrowRight');
-  await expectAnnounced(host, `${description} cannot go to Captured.`);
+  await pressUntilAnnounced(host, 'ArrowRight', `${description} cannot go to Captured.`);
   await expect(board.column('Captured').getByRole('note')).toHaveText(/Captured waits for the safety review of this segment’s tools/);
   await host.keyboard.press('Space');
   await expectAnnounced(host, `${description} stays where it was.`);

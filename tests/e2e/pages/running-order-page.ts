@@ -1,6 +1,6 @@
 import { expect, type Page } from '@playwright/test';
 import { DEMO_SLUG } from '../fixtures';
-import { expectAnnounced } from './live-region';
+import { expectAnnounced, pressUntilAnnounced } from './live-region';
 
 /** An episode's page: its running order of segment cards. */
 export class RunningOrderPage {
@@ -51,8 +51,7 @@ export class RunningOrderPage {
     await this.moveHandle(title).focus();
     await keyboard.press('Space');
     await expectAnnounced(this.page, `Picked up ${title}`);
-    await keyboard.press(key);
-    await expectAnnounced(this.page, `${title} moved to position`);
+    await pressUntilAnnounced(this.page, key, `${title} moved to position`);
     await keyboard.press('Space');
     await expectAnnounced(this.page, `${title} dropped at position`);
   }

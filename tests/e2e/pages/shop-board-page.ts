@@ -1,6 +1,6 @@
 import type { Page } from '@playwright/test';
 import { DEMO_SLUG } from '../fixtures';
-import { expectAnnounced } from './live-region';
+import { expectAnnounced, pressUntilAnnounced } from './live-region';
 
 /** The shop board: shots laid out by shot state (columns on a desktop, one list on a phone). */
 export class ShopBoardPage {
@@ -33,8 +33,7 @@ export class ShopBoardPage {
     await keyboard.press('Space');
     // The pick-up is announced, then at once where the card is over (its own column).
     await expectAnnounced(this.page, /Picked up|is over/);
-    await keyboard.press('ArrowRight');
-    await expectAnnounced(this.page, `is over ${to}`);
+    await pressUntilAnnounced(this.page, 'ArrowRight', `is over ${to}`);
     const saved = this.page.waitForResponse((r) => r.url().includes('/state') && r.request().method() === 'PUT');
     await keyboard.press('Space');
     return (await saved).status();

@@ -10,7 +10,8 @@ type Props = { board: PlanBoard; sheet: boolean; unit: 'in' | 'mm'; title: strin
 /**
  * One board or sheet drawn to scale, its length running left to right. Gaps between pieces are the
  * kerfs; the hatched tail of a board is its offcut. A ripped board shows its strips across the width,
- * the dashed rip lines numbered in cut order, and lists "rip to …, then crosscut" per strip.
+ * the dashed rip lines numbered in cut order, and lists "rip to …, then crosscut" per strip; a length
+ * left past the longest strip is crosscut off first and shown as the board's offcut.
  */
 export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
   const fmt = (n: number) => formatLength(n, { unit });
@@ -21,6 +22,9 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
   const w = board.lengthIn * scale;
   const h = strips ? board.widthIn * scaleY : Math.max(board.widthIn * scale, sheet ? 0 : 60);
   const labelSize = Math.max(14, Math.min(28, h / 4));
+  // A ripped board with an offcut is first crosscut just past its longest strip, so the rips stop there.
+  const crosscutAt = strips && board.offcutIn > 0 ? Math.max(0, ...board.pieces.map((p) => p.y + p.lengthIn)) : null;
+  const ripEnd = crosscutAt === null ? w : crosscutAt * scale;
   return (
     <figure className={`break-inside-avoid ${sheet ? 'max-w-xl' : ''}`}>
       <svg viewBox={`-2 -2 ${w + 4} ${h + 4}`} role="img" aria-label={title} className="h-auto w-full">
@@ -56,17 +60,23 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
         {strips?.map((st, i) => (
           // Rip line after each strip, numbered in cut order.
           <g key={`rip-${i}`}>
-            <line x1="0" x2={w} y1={(st.x + st.widthIn) * scaleY} y2={(st.x + st.widthIn) * scaleY} className="stroke-blueprint" strokeWidth="2" strokeDasharray="10 6" />
+            <line x1="0" x2={ripEnd} y1={(st.x + st.widthIn) * scaleY} y2={(st.x + st.widthIn) * scaleY} className="stroke-blueprint" strokeWidth="2" strokeDasharray="10 6" />
             <text x="6" y={st.x * scaleY + Math.min(labelSize, st.widthIn * scaleY * 0.8)} fontSize={Math.min(labelSize, st.widthIn * scaleY * 0.8)} className="fill-blueprint font-mono">
               {i + 1}
             </text>
           </g>
         ))}
+        {crosscutAt !== null ? <line x1={ripEnd} x2={ripEnd} y1="0" y2={h} className="stroke-blueprint" strokeWidth="3" /> : null}
       </svg>
       <figcaption className="mt-1 text-xs text-ink-faint">
         {title}
         {!sheet && board.offcutIn > 0 ? ` · offcut ${fmt(board.offcutIn)}${board.keepOffcut ? ' (keep)' : ' (scrap)'}` : ''}
       </figcaption>
+      {crosscutAt !== null ? (
+        <p className="mt-1 text-sm">
+          First crosscut at <span className="font-mono">{fmt(crosscutAt)}</span>; the rest is the offcut ({board.keepOffcut ? 'keep' : 'scrap'}). Then:
+        </p>
+      ) : null}
       {strips && strips.length > 0 ? (
         <ol className="mt-1 list-decimal pl-6 text-sm">
           {strips.map((st, i) => (

@@ -125,6 +125,15 @@ describe('buildCutPlan', () => {
     expect(plan.optimal).toBe(true);
   });
 
+  it('keeps the full-width length past the longest strip of a ripped board, so marking the cuts done puts it on hand', () => {
+    // One 30" x 1 1/2" leg ripped from a 6" x 8' board: 96 - 30 - 1/8" kerf = 65 7/8" left at full width,
+    // over the 12" minimum offcut; a 90" leg leaves 5 7/8", scrap.
+    const kept = buildCutPlan([part({ id: 'leg', lengthIn: 30, widthIn: 1.5, quantity: 1, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, 300);
+    expect(kept.groups[0]?.boards[0]).toMatchObject({ offcutIn: 65.875, keepOffcut: true });
+    const scrap = buildCutPlan([part({ id: 'leg', lengthIn: 90, widthIn: 1.5, quantity: 1, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, 300);
+    expect(scrap.groups[0]?.boards[0]).toMatchObject({ offcutIn: 5.875, keepOffcut: false });
+  });
+
   describe('hardwood in several widths (issue 16)', () => {
     it('buys one 7 1/4" board for six 2" slats where 4" boards would cost more per slat', () => {
       // Source: USDA FPL Wood Handbook, 1 board foot = 144 in³. At $10.00 a board foot:

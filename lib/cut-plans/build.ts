@@ -178,9 +178,10 @@ function planLumberRips(
         return { partId: c.partId, name: names.get(c.partId)?.name ?? '', pieceIndex: index, x: strip.offset, y: c.start, lengthIn: c.length, widthIn: c.width, rotated: false };
       }),
     ),
-    // The leftover is a strip along the board, not a length off its end.
-    offcutIn: 0,
-    keepOffcut: false,
+    // The full-width length past the longest strip, crosscut off before ripping; the narrow strip left
+    // beside the last rip stays scrap, since a piece on hand records no width.
+    offcutIn: b.offcut,
+    keepOffcut: b.offcut >= settings.minOffcutIn && b.offcut > 0,
     strips: b.strips.map((s) => ({ x: s.offset, widthIn: s.width })),
   }));
   // Waste by area: strips leave room across the width too.

@@ -42,6 +42,9 @@ function expectValidRipPlan(req: RipCutRequest, plan: RipCutPlan): void {
       });
       expect(sum + req.kerf * (cuts.length - 1)).toBeLessThanOrEqual(stock.length - 2 * trim + EPS);
     });
+    // The full-width offcut starts a kerf past the longest strip and ends at the far end trim.
+    const longest = Math.max(...board.strips.map((st) => st.cuts.reduce((a, c) => a + c.length + req.kerf, 0)));
+    expect(board.offcut).toBeCloseTo(Math.max(0, stock.length - 2 * trim - longest), 6);
   }
   for (const part of req.parts) {
     const missing = plan.unplaced.filter((u) => u.partId === part.id).reduce((a, u) => a + u.quantity, 0);
@@ -119,6 +122,20 @@ describe('planRipCuts: common practice', () => {
     // Two strips of 1 1/2 in, each crosscut into legs; three strips would fit too (4.875 in), two suffice.
     expect(plan.boards[0]?.strips.every((s) => s.width === 1.5)).toBe(true);
     expect(plan.boards[0]?.strips.reduce((a, s) => a + s.cuts.length, 0)).toBe(4);
+  });
+
+  it('leaves the length past the longest strip as a full-width offcut: one 30 in leg from a 96 in board', () => {
+    const req: RipCutRequest = {
+      kerf: 0.125,
+      jointAllowance: 1 / 16,
+      endTrim: 0.5,
+      parts: [{ id: 'leg', length: 30, width: 1.5, quantity: 1 }],
+      stock: [{ id: '5x96', length: 96, width: 5, price: 18 }],
+    };
+    const plan = planRipCuts(req);
+    expectValidRipPlan(req, plan);
+    // By hand: 96 less two 1/2 in end trims, the 30 in leg and its 1/8 in kerf.
+    expect(plan.boards[0]?.offcut).toBeCloseTo(64.875, 9);
   });
 
   it('loses a rip kerf and a jointed edge per rip: three 1 5/8 in strips do not fit a 5 in board', () => {

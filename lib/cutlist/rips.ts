@@ -77,6 +77,11 @@ export interface RipBoard {
   strips: RipStrip[];
   /** Width left after the last strip's rip, if any. */
   offcutWidth: number;
+  /**
+   * Full-width length left past the longest strip: the board is crosscut there before it is ripped,
+   * measured like a crosscut board's offcut (after both end trims and the kerf of that cut).
+   */
+  offcut: number;
 }
 
 export interface RipCutPlan {
@@ -378,6 +383,7 @@ function render(req: RipCutRequest, model: Model, patterns: readonly Pattern[], 
     // Widest strip first, off the board's straight reference edge.
     const strips = [...(p.strips ?? [])].sort((a, b) => stripWidth(model, b.counts) - stripWidth(model, a.counts));
     let offset = 0;
+    let longest = 0;
     const out: RipStrip[] = [];
     for (const s of strips) {
       const pieces: { part: RipPart; size: number }[] = [];
@@ -396,10 +402,13 @@ function render(req: RipCutRequest, model: Model, patterns: readonly Pattern[], 
         return cut;
       });
       const width = Math.max(...pieces.map((x) => x.part.width));
+      longest = Math.max(longest, at - model.trim);
       out.push({ width, offset, cuts });
       offset += width + ripIn;
     }
-    boards.push({ stockId: stock.id, length: stock.length, width: stock.width, strips: out, offcutWidth: Math.max(0, stock.width - offset) });
+    // As a crosscut board's offcut (instance.ts offcutOf): capacity less the longest strip's load less the kerf.
+    const offcut = Math.max(0, st.capL - longest - model.kerf) / SCALE;
+    boards.push({ stockId: stock.id, length: stock.length, width: stock.width, strips: out, offcutWidth: Math.max(0, stock.width - offset), offcut });
   }
   const purchase: LinearPurchase[] = [];
   req.stock.forEach((s, index) => {

@@ -1,4 +1,5 @@
 import type { PlanBoard } from '@/lib/cut-plans/build';
+import { offcutSize } from '@/lib/cut-plans/cut-records';
 import { fitPieceLabel } from '@/lib/cut-plans/piece-label';
 import { formatLength } from '@/lib/units';
 
@@ -25,6 +26,8 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
   // A ripped board with an offcut is first crosscut just past its longest strip, so the rips stop there.
   const crosscutAt = strips && board.offcutIn > 0 ? Math.max(0, ...board.pieces.map((p) => p.y + p.lengthIn)) : null;
   const ripEnd = crosscutAt === null ? w : crosscutAt * scale;
+  // A sheet's offcut is freed by one cut right through it: across (the full width) or along (the full length).
+  const sheetCut = sheet && board.offcutWidthIn !== undefined && board.offcutIn > 0 ? sheetOffcutLine(board, scale) : null;
   return (
     <figure className={`break-inside-avoid ${sheet ? 'max-w-xl' : ''}`}>
       <svg viewBox={`-2 -2 ${w + 4} ${h + 4}`} role="img" aria-label={title} className="h-auto w-full">
@@ -66,11 +69,12 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
             </text>
           </g>
         ))}
+        {sheetCut ? <line {...sheetCut} className="stroke-blueprint" strokeWidth="3" /> : null}
         {crosscutAt !== null ? <line x1={ripEnd} x2={ripEnd} y1="0" y2={h} className="stroke-blueprint" strokeWidth="3" /> : null}
       </svg>
       <figcaption className="mt-1 text-xs text-ink-faint">
         {title}
-        {!sheet && board.offcutIn > 0 ? ` · offcut ${fmt(board.offcutIn)}${board.keepOffcut ? ' (keep)' : ' (scrap)'}` : ''}
+        {board.offcutIn > 0 ? ` · offcut ${offcutSize(board, fmt)}${board.keepOffcut ? ' (keep)' : ' (scrap)'}` : ''}
       </figcaption>
       {crosscutAt !== null ? (
         <p className="mt-1 text-sm">
@@ -88,4 +92,17 @@ export function BoardDiagram({ board, sheet, unit, title, cutCounts }: Props) {
       ) : null}
     </figure>
   );
+}
+
+/** Where the through-cut that frees a sheet's offcut runs, drawn with the sheet's length horizontal. */
+function sheetOffcutLine(board: PlanBoard, scale: number) {
+  const w = board.lengthIn * scale;
+  const h = board.widthIn * scale;
+  // Across the sheet: the offcut keeps the full width and is the last `offcutIn` of the length.
+  if (board.offcutWidthIn === board.widthIn && board.offcutIn < board.lengthIn) {
+    const x = (board.lengthIn - board.offcutIn) * scale;
+    return { x1: x, x2: x, y1: 0, y2: h };
+  }
+  const y = (board.widthIn - (board.offcutWidthIn ?? 0)) * scale;
+  return { x1: 0, x2: w, y1: y, y2: y };
 }

@@ -1,7 +1,7 @@
 'use client';
 
 import { Badge } from '@/components/ui/badge';
-import type { CutRecordDto } from '@/lib/cut-plans/cut-records';
+import { offcutSize, type CutRecordDto } from '@/lib/cut-plans/cut-records';
 import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
 import { money } from './cut-plan-view';
@@ -39,7 +39,7 @@ export function CutRecords({ records, unit }: { records: CutRecordDto[]; unit: '
                 {pieces} {pieces === 1 ? 'piece' : 'pieces'} from {r.plan.boards.length} {sheet ? 'sheets' : 'boards'}: {pulled} pulled from the rack, {r.plan.boards.length - pulled} bought ({money(r.plan.costCents)}).{' '}
                 {kept.length > 0 ? (
                   <>
-                    Kept on hand: <span className="font-mono">{kept.map((b) => fmt(b.offcutIn)).join(', ')}</span>.
+                    Kept on hand: <span className="font-mono">{kept.map((b) => offcutSize(b, fmt)).join(', ')}</span>.
                   </>
                 ) : (
                   'No offcut kept.'

@@ -174,8 +174,16 @@ describe('cut records', () => {
   it('keeps only the offcuts the plan marks worth keeping, grouped by length', () => {
     const plan = { boards: [board(['a'], 20, true), board(['b'], 20, true), board(['c'], 8, false), board(['d'], 40.5, true)] };
     expect(keptOffcuts(plan)).toEqual([
-      { lengthIn: 40.5, count: 1 },
-      { lengthIn: 20, count: 2 },
+      { lengthIn: 40.5, widthIn: null, count: 1 },
+      { lengthIn: 20, widthIn: null, count: 2 },
+    ]);
+  });
+
+  it('keeps a sheet offcut with its own width, grouped by length and width', () => {
+    const sheet = (offcutIn: number, offcutWidthIn: number) => ({ ...board(['p'], offcutIn, true), widthIn: 48, offcutWidthIn });
+    expect(keptOffcuts({ boards: [sheet(30, 48), sheet(30, 20), sheet(30, 48)] })).toEqual([
+      { lengthIn: 30, widthIn: 48, count: 2 },
+      { lengthIn: 30, widthIn: 20, count: 1 },
     ]);
   });
 });

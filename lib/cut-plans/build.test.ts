@@ -108,6 +108,12 @@ describe('buildCutPlan', () => {
     expect(g?.boards[0]?.pieces.every((p) => !p.rotated)).toBe(true);
   });
 
+  it('keeps the rest of a sheet past its last piece, with its width, so marking the cuts done puts it on hand', () => {
+    // A 30" x 48" panel from a 48" x 96" sheet: 96 - 30 - 1/8" kerf = 65 7/8" of the whole width is left.
+    const plan = buildCutPlan([part({ id: 'top', lengthIn: 30, widthIn: 48, quantity: 1, stockItemId: 'ply', grain: 'length' })], [ply], DEFAULT_CUT_SETTINGS, 300);
+    expect(plan.groups[0]?.boards[0]).toMatchObject({ offcutIn: 65.875, offcutWidthIn: 48, keepOffcut: true });
+  });
+
   it('rips narrow parts side by side from one hardwood board instead of one board each', () => {
     // 1 1/2" legs from a 6" board: 1.5 x 3 + 2 x (1/8" kerf + 1/16" jointing) = 4.875" <= 6", so three strips.
     const plan = buildCutPlan([part({ id: 'leg', lengthIn: 28, widthIn: 1.5, quantity: 4, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, 300);

@@ -4,6 +4,7 @@ import { boardFeet, parseNominalProfile, softwoodBoardFeet } from '@/lib/lumber'
 import { offerSizeKey, type CutSettingsDto, type LumberOffer, type SheetOffer, type StockItemDto } from '@/lib/stock/schemas';
 import type { OnHandStock } from '@/lib/on-hand/schemas';
 import { lumberRackStock, onHandFor, onHandIdOf, pullsOf, sheetRackStock, type PlanPull } from './rack-pulls';
+import { keepsSheetOffcut, sheetOffcut } from './sheet-offcut';
 
 export type PlanPart = {
   id: string;
@@ -26,6 +27,8 @@ export type PlanBoard = {
   widthIn: number;
   pieces: PlanPiece[];
   offcutIn: number;
+  /** Sheets: the offcut's width across the sheet (its length is `offcutIn`). Absent for lumber, whose offcut is full width. */
+  offcutWidthIn?: number;
   keepOffcut: boolean;
   /** Lumber ripped into strips, in cut order; absent when every piece takes the board's full width. */
   strips?: PlanStrip[];
@@ -253,18 +256,23 @@ function planSheets(stock: StockItemDto, parts: PlanPart[], settings: CutSetting
   });
   const names = new Map(parts.map((p) => [p.id, p]));
   const seen = new Map<string, number>();
-  const boards: PlanBoard[] = result.sheets.map((s) => ({
-    sizeKey: s.stockId,
-    lengthIn: s.length,
-    widthIn: s.width,
-    pieces: s.placements.map((c) => {
+  const boards: PlanBoard[] = result.sheets.map((s) => {
+    const pieces = s.placements.map((c) => {
       const index = seen.get(c.partId) ?? 0;
       seen.set(c.partId, index + 1);
       return { partId: c.partId, name: names.get(c.partId)?.name ?? '', pieceIndex: index, x: c.x, y: c.y, lengthIn: c.length, widthIn: c.width, rotated: c.rotated };
-    }),
-    offcutIn: 0,
-    keepOffcut: false,
-  }));
+    });
+    const offcut = sheetOffcut({ lengthIn: s.length, widthIn: s.width }, pieces, settings.kerfIn);
+    return {
+      sizeKey: s.stockId,
+      lengthIn: s.length,
+      widthIn: s.width,
+      pieces,
+      offcutIn: offcut?.lengthIn ?? 0,
+      ...(offcut ? { offcutWidthIn: offcut.widthIn } : {}),
+      keepOffcut: keepsSheetOffcut(offcut, settings.minOffcutIn),
+    };
+  });
   const purchase = result.purchase.map((p) => {
     const offer = offers.find((o) => sizeKey(o.lengthIn, o.widthIn) === p.stockId);
     const unitCents = offer?.priceCents ?? 0;

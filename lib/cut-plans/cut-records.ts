@@ -40,9 +40,23 @@ export function partsLeftToCut<T extends { id: string; quantity: number }>(parts
   });
 }
 
-/** The offcuts a plan keeps, one line per size, longest first: they go on hand when its cuts are done. */
-export function keptOffcuts(plan: Pick<StockPlan, 'boards'>): { lengthIn: number; count: number }[] {
-  const bySize = new Map<number, number>();
-  for (const b of plan.boards) if (b.keepOffcut && b.offcutIn > 0) bySize.set(b.offcutIn, (bySize.get(b.offcutIn) ?? 0) + 1);
-  return [...bySize.entries()].sort((a, b) => b[0] - a[0]).map(([lengthIn, count]) => ({ lengthIn, count }));
+/**
+ * The offcuts a plan keeps, one line per size, longest first: they go on hand when its cuts are done.
+ * A sheet's offcut has its own width; a board's is full width (null: the stock item's width).
+ */
+export function keptOffcuts(plan: Pick<StockPlan, 'boards'>): { lengthIn: number; widthIn: number | null; count: number }[] {
+  const bySize = new Map<string, { lengthIn: number; widthIn: number | null; count: number }>();
+  for (const b of plan.boards) {
+    if (!b.keepOffcut || b.offcutIn <= 0) continue;
+    const widthIn = b.offcutWidthIn ?? null;
+    const key = `${b.offcutIn}x${widthIn ?? ''}`;
+    const seen = bySize.get(key);
+    if (seen) seen.count += 1;
+    else bySize.set(key, { lengthIn: b.offcutIn, widthIn, count: 1 });
+  }
+  return [...bySize.values()].sort((a, b) => b.lengthIn - a.lengthIn || (b.widthIn ?? 0) - (a.widthIn ?? 0));
 }
+
+/** An offcut's size as the plan shows it: length, and for a sheet also its width. */
+export const offcutSize = (b: Pick<StockPlan['boards'][number], 'offcutIn' | 'offcutWidthIn'>, fmt: (inches: number) => string): string =>
+  b.offcutWidthIn === undefined ? fmt(b.offcutIn) : `${fmt(b.offcutIn)} × ${fmt(b.offcutWidthIn)}`;

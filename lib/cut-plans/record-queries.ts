@@ -95,7 +95,7 @@ export async function markCutsDone(channelId: string, episodeId: string, userId:
     const kept = keptOffcuts(plan);
     if (kept.length > 0) {
       await trx('on_hand_pieces').insert(
-        kept.map((k) => ({ channel_id: channelId, stock_item_id: stockItemId, length_in: k.lengthIn, width_in: null, count: k.count, source: 'kept', episode_id: episodeId, cut_record_id: row.id, created_by: userId })),
+        kept.map((k) => ({ channel_id: channelId, stock_item_id: stockItemId, length_in: k.lengthIn, width_in: k.widthIn, count: k.count, source: 'kept', episode_id: episodeId, cut_record_id: row.id, created_by: userId })),
       );
     }
     // The cut list tick-off agrees: every piece a record cut counts as cut.

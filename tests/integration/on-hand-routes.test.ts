@@ -176,6 +176,25 @@ describe('mark these cuts done', () => {
     expect((await episodePlan(c, episode.id)).whole.pieceCount).toBe(3);
   });
 
+  it('puts a sheet remnant on hand with its width, and a later part is cut from it', async () => {
+    const c = await makeCrew();
+    const { episode, segments } = await makeOutlinedEpisode(c);
+    const build = segments.find((s) => s.kind === 'build' && s.level === 1)!;
+    const ply = await addPly(c);
+    // A 30" x 48" top from a 48" x 96" sheet: 96 - 30 - 1/8" kerf = 65 7/8" of the whole width is left.
+    const top = await createPart(c.channel.id, build.id, { name: 'Top', quantity: 1, lengthIn: 30, widthIn: 48, thicknessIn: null, stockItemId: ply.id, grain: 'length', note: '' });
+    const done = await markDone(c, episode.id, ply.id);
+    expect(done.json.keptPieces).toBe(1);
+    const onHand = await onHandOf(c);
+    expect(onHand).toMatchObject([{ kind: 'sheet', lengthIn: 65.875, widthIn: 48, count: 1, source: 'kept', episodeId: episode.id }]);
+    expect((done.json.record as CutRecordDto).plan.boards[0]).toMatchObject({ offcutIn: 65.875, offcutWidthIn: 48, keepOffcut: true });
+
+    await createPart(c.channel.id, top.segmentId, { name: 'Shelf', quantity: 1, lengthIn: 40, widthIn: 46, thicknessIn: null, stockItemId: ply.id, grain: 'length', note: '' });
+    const plan = await episodePlan(c, episode.id);
+    expect(plan.whole.groups[0]?.pulled).toEqual([{ onHandId: onHand[0]!.id, lengthIn: 65.875, widthIn: 48, count: 1 }]);
+    expect(plan.whole.costCents).toBe(0);
+  });
+
   it('happens exactly once when four people press it at the same moment', async () => {
     const c = await makeCrew();
     const { episode, stock } = await planned(c);

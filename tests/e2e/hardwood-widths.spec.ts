@@ -34,6 +34,10 @@ test('a hardwood item in two widths: the plan buys the wider board when it is ch
   await expect(group.getByRole('row', { name: /^4" × 8'/ })).toHaveCount(0);
   await expect(group.getByRole('img', { name: `Board 1: 7 1/4" × 8'` })).toBeVisible();
   await expect(group.getByText('Rip to 2", then crosscut')).toHaveCount(3);
+  // Each strip holds two 40" slats (80 1/8" with the kerfs): the board is crosscut there first, and the
+  // 96 - 80 1/4 = 15 3/4" left at full width is over the 12" minimum offcut, so it is kept.
+  await expect(group.getByText('First crosscut at 80 1/8"; the rest is the offcut (keep). Then:')).toBeVisible();
+  await expect(group.getByText(`Board 1: 7 1/4" × 8' · offcut 15 3/4" (keep)`)).toBeVisible();
   await expectAccessible(page);
   await group.scrollIntoViewIfNeeded();
   await page.screenshot({ path: testInfo.outputPath('hardwood-widths-1280.png') });

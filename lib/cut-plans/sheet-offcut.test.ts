@@ -1,4 +1,6 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { planSheetCuts } from '@/lib/cutlist';
 import { keepsSheetOffcut, sheetOffcut } from './sheet-offcut';
 
 const sheet = { lengthIn: 96, widthIn: 48 };
@@ -38,4 +40,34 @@ describe('keepsSheetOffcut', () => {
     expect(keepsSheetOffcut({ lengthIn: 11, widthIn: 48 }, 12)).toBe(false);
     expect(keepsSheetOffcut(null, 12)).toBe(false);
   });
+});
+
+describe('sheetOffcut on planned layouts (property)', () => {
+  it('lies inside the sheet, a kerf clear of every piece the planner placed', () => {
+    const sixteenths = (min: number, max: number) => fc.integer({ min: min * 16, max: max * 16 }).map((n) => n / 16);
+    fc.assert(
+      fc.property(
+        fc.constantFrom(0, 1 / 16, 1 / 8),
+        fc.array(fc.record({ width: sixteenths(1, 30), length: sixteenths(1, 50), quantity: fc.integer({ min: 1, max: 3 }) }), { minLength: 1, maxLength: 5 }),
+        (kerf, parts) => {
+          const plan = planSheetCuts({ kerf, parts: parts.map((p, i) => ({ id: `p${i}`, ...p, grain: 'any' })), stock: [{ id: 'ply', width: 48, length: 96, price: 52 }], timeLimitMs: 20 });
+          for (const s of plan.sheets) {
+            const pieces = s.placements.map((c) => ({ x: c.x, y: c.y, lengthIn: c.length, widthIn: c.width }));
+            const off = sheetOffcut({ lengthIn: s.length, widthIn: s.width }, pieces, kerf);
+            if (!off) continue;
+            // Across the sheet it is the last offcutIn of the length; along it, the last widthIn of the width.
+            const across = off.widthIn === s.width && off.lengthIn < s.length;
+            const rect = across ? { x: 0, y: s.length - off.lengthIn, w: s.width, l: off.lengthIn } : { x: s.width - off.widthIn, y: 0, w: off.widthIn, l: s.length };
+            expect(rect.x).toBeGreaterThanOrEqual(-1e-9);
+            expect(rect.y).toBeGreaterThanOrEqual(-1e-9);
+            for (const p of pieces) {
+              const clear = across ? p.y + p.lengthIn + kerf <= rect.y + 1e-6 : p.x + p.widthIn + kerf <= rect.x + 1e-6;
+              expect(clear).toBe(true);
+            }
+          }
+        },
+      ),
+      { numRuns: 60 },
+    );
+  }, 60_000);
 });

@@ -172,7 +172,8 @@ const DIVE_SHARE_SEVERAL_LENGTHS = 0.1;
  * 16th counted at downgraded cost; the rest ran their whole share (about 200 ms) for a plan a few
  * dollars over the bound. Back to back at load 11-13: median CPU time per call 157/163 ms -> 102/89 ms
  * (8) and 98 ms (4), median wall time 472/351 -> 271/249 ms, proofs 79/85 -> 77/81 (82 with 4), the
- * proof count moving as much between two base runs.
+ * proof count moving as much between two base runs. Again at load 5-6, interleaved: median wall time
+ * 295/278 -> 102/104 ms, CPU 186/170 -> 66/60 ms, proofs 87/89 -> 88/89.
  */
 const DIVE_STALL = 8;
 

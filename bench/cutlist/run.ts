@@ -1,6 +1,7 @@
 // Linear cut planner benchmark (issue: linear cut planning). Pure, no services:
-//   npx tsx bench/cutlist/run.ts [--large] [--only=wood|falkenauer] [--trace]
-// --trace adds, for the woodworking lists, the time spent in each stage of the planner and which stage proved the plan.
+//   npx tsx bench/cutlist/run.ts [--large] [--only=wood|falkenauer] [--trace] [--cases]
+// --trace adds, for the woodworking lists, the time spent in each stage of the planner and which stage proved the plan;
+// --cases also prints each case's stages (ms, * once proven).
 // Prints boards against the proven optimum and the time for the Falkenauer u120 and t60 instances (u250 and
 // t120 too with --large), then the median time to a proven optimum for generated woodworking cut lists.
 import { readFileSync } from 'node:fs';
@@ -87,13 +88,14 @@ function checkPlan(req: LinearCutRequest, plan: LinearCutPlan): string | null {
 let cpuOver = 0;
 
 /** Wall time of one call; also tracks how far its CPU time ran past the limit, to tell a busy machine from a slow loop. */
-function timed(req: LinearCutRequest): { plan: LinearCutPlan; ms: number } {
+function timed(req: LinearCutRequest): { plan: LinearCutPlan; ms: number; cpuMs: number } {
   const t0 = performance.now();
   const c0 = process.cpuUsage();
   const plan = planLinearCuts(req);
   const cpu = process.cpuUsage(c0);
-  cpuOver = Math.max(cpuOver, (cpu.user + cpu.system) / 1000 - (req.timeLimitMs ?? 2000));
-  return { plan, ms: performance.now() - t0 };
+  const cpuMs = (cpu.user + cpu.system) / 1000;
+  cpuOver = Math.max(cpuOver, cpuMs - (req.timeLimitMs ?? 2000));
+  return { plan, ms: performance.now() - t0, cpuMs };
 }
 
 function median(xs: readonly number[]): number {
@@ -130,7 +132,8 @@ function woodworkingRequest(random: () => number, c: number): LinearCutRequest {
   return { kerf: 0.125, endTrim: c % 2 === 0 ? 0 : 0.5, parts, stock, timeLimitMs: TIME_LIMIT_MS };
 }
 
-const TRACE = process.argv.includes('--trace');
+const CASES = process.argv.includes('--cases');
+const TRACE = CASES || process.argv.includes('--trace');
 
 interface StageTotals {
   calls: number;
@@ -205,6 +208,7 @@ function main(): void {
 
   const random = rng(20240611);
   const woodTimes: number[] = [];
+  const woodCpu: number[] = [];
   const provedTimes: number[] = [];
   const gaps: number[] = [];
   let woodInvalid = 0;
@@ -217,8 +221,13 @@ function main(): void {
     const pieces = req.parts.reduce((a, p) => a + p.quantity, 0);
     woodPieces += pieces;
     current = [];
-    const { plan, ms } = timed(req);
+    const { plan, ms, cpuMs } = timed(req);
+    woodCpu.push(cpuMs);
     traced.push({ laps: current, optimal: plan.optimal });
+    if (CASES) {
+      const laps = current.map((l) => `${l.stage}${l.proven ? '*' : ''} ${l.ms.toFixed(0)}`).join(', ');
+      console.log(`  case ${c}: ${pieces} pieces, ${req.stock.length} lengths, ${plan.optimal ? 'proven' : 'open'}, ${ms.toFixed(0)} ms (CPU ${cpuMs.toFixed(0)}): ${laps}`);
+    }
     over = Math.max(over, ms - TIME_LIMIT_MS);
     if (checkPlan(req, plan)) woodInvalid++;
     woodTimes.push(ms);
@@ -238,6 +247,9 @@ function main(): void {
   console.log(
     `  proved optimal ${provedTimes.length}/${WOOD_CASES}, ${woodInvalid} invalid; median time ${median(woodTimes).toFixed(1)} ms (proved cases only ${median(provedTimes).toFixed(1)} ms), max ${Math.max(...woodTimes).toFixed(0)} ms; unproven at most ${gaps.length > 0 ? Math.max(...gaps).toFixed(2) : '0'} % over their bound`,
   );
+  // CPU time of the process (planner and HiGHS thread) per call: on a loaded machine it moves far less than
+  // wall time, so it tells a change that does less work from a quieter minute.
+  console.log(`  median CPU time per call ${median(woodCpu).toFixed(1)} ms`);
   if (TRACE) printStageTable(traced);
   console.log(
     `Hard limit: the slowest call ran ${over.toFixed(0)} ms of wall time past timeLimitMs (goal <= 50); the most CPU time past it was ${cpuOver.toFixed(0)} ms (load average now ${loadavg()[0]?.toFixed(1)} on ${availableParallelism()} cores).`,

@@ -69,15 +69,41 @@ export function diveOnce(problem: DiveProblem, deadline: Deadline, choiceAt: (de
   return { patterns, cost };
 }
 
+export interface DiveLimits {
+  /** Stop after this many dives in a row that found no cheaper plan (work, not time; default: none). */
+  stall?: number;
+  /** The plan's cost as the caller will count it (e.g. after downgrading boards); default its pattern cost. */
+  costOf?: (plan: DivePlan) => number;
+}
+
 /**
- * Dives until one reaches `target` (a proven bound) or the deadline: first the LP's own choices, then one
- * discrepancy at each depth, then random choices. Returns the cheapest plan found.
+ * Dives until one reaches `target` (a proven bound), the deadline, or `limits.stall` dives in a row
+ * without a cheaper plan: first the LP's own choices, then one discrepancy at each depth, then random
+ * choices. Returns the cheapest plan found.
  */
-export function diveSearch(problem: DiveProblem, target: number, deadline: Deadline, random: () => number): DivePlan | null {
+export function diveSearch(
+  problem: DiveProblem,
+  target: number,
+  deadline: Deadline,
+  random: () => number,
+  limits: DiveLimits = {},
+): DivePlan | null {
   let best: DivePlan | null = null;
+  let bestCost = Number.POSITIVE_INFINITY;
+  let since = 0;
+  const stall = limits.stall ?? Number.POSITIVE_INFINITY;
+  // True when the search should stop: the target is reached or the dives have stalled.
   const consider = (plan: DivePlan | null): boolean => {
-    if (plan && (!best || plan.cost < best.cost)) best = plan;
-    return best !== null && best.cost <= target;
+    since++;
+    if (plan) {
+      const cost = limits.costOf ? limits.costOf(plan) : plan.cost;
+      if (cost < bestCost) {
+        best = plan;
+        bestCost = cost;
+        since = 0;
+      }
+    }
+    return bestCost <= target || since >= stall;
   };
   if (consider(diveOnce(problem, deadline, () => 0))) return best;
   const depths = best ? (best as DivePlan).patterns.length : 20;

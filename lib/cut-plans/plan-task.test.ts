@@ -10,10 +10,10 @@ const parts = loadParts(ids).map((p, i) => ({ ...p, id: `part-${i}` }));
 
 // Issue 12: 8 stock items of 9 parts each gave every stock group the full time limit, 8 s in all
 // for a 1 s limit. This only tells a shared budget (about 1x) from one per group (8x, 3.2 s here); it is
-// no speed check, so the bound is 3x: at 2x a loaded two-core run measured 865 ms and failed. How close a
-// plan keeps to its limit is measured by bench/cutlist (the overrun) and bench/cut-plan-load.
+// no speed check, so the bound is 4x: at 2x loaded two-core runs measured 865, 958 and 1,121 ms and failed.
+// How close a plan keeps to its limit is measured by bench/cutlist (the overrun) and bench/cut-plan-load.
 const BUDGET_MS = 400;
-const SLACK_MS = 2 * BUDGET_MS;
+const SLACK_MS = 3 * BUDGET_MS;
 
 function timed<T>(run: () => T): { value: T; ms: number } {
   const started = performance.now();

@@ -37,7 +37,7 @@ const PART_MEMORY_BYTES = 24 * 1024 * 1024;
 // the one being filled streamed, so three in the memory of two (part-streamer.ts). Measured against the
 // buffered 2 + 1 filling in bench/upload/s3.ts (docs/scaling.md): tus/SDK(4) 0.80 against 0.70 (9 runs
 // each, interleaved), RSS growth 49 against 61 MiB. Every part streamed (no buffers) was slower (0.69);
-// three buffers and a fourth part streamed were no faster than two (0.71) and back at 60 MiB.
+// three buffers and a fourth part streamed were no faster (0.79) and back at 57-60 MiB.
 const STREAMED_IN_FLIGHT = 3;
 
 /** What the last look at an upload under this process's lock saw: its parts and the size of its `.part` tail (undefined: none). */

@@ -1,10 +1,12 @@
 import { pipeline, Readable } from 'node:stream';
 import { pipeline as pipelineDone } from 'node:stream/promises';
-import type { Part } from '@aws-sdk/client-s3';
+import { S3, type Part } from '@aws-sdk/client-s3';
 import { S3Store, type MetadataValue } from '@tus/s3-store';
 import { ERRORS, Upload } from '@tus/server';
 import type { S3Settings } from './config';
 import { PartBufferPool, PartSplitter } from './part-splitter';
+import { PartStreamer } from './part-streamer';
+import { declaredBodyLength } from './patch-length';
 import { addDeleteObjectsMd5, addUnsignedPartPayload, s3ClientConfig } from './s3-client';
 import { digestKey, emptyChain, parseVerifiedDigest, PartDigestTap, verifiedSha256, type DigestChain } from './upload-digest';
 
@@ -31,6 +33,13 @@ const MAX_CHAINS = 10_000;
 // costing the app more than the upload's MD5 and SHA-256.
 const PART_MEMORY_BYTES = 24 * 1024 * 1024;
 
+// Parts on their way at once when a PATCH's length is known (no tail before it): two in part buffers and
+// the one being filled streamed, so three in the memory of two (part-streamer.ts). Measured against the
+// buffered 2 + 1 filling in bench/upload/s3.ts (docs/scaling.md): tus/SDK(4) 0.80 against 0.70 (9 runs
+// each, interleaved), RSS growth 49 against 61 MiB. Every part streamed (no buffers) was slower (0.69);
+// three buffers and a fourth part streamed were no faster (0.79) and back at 57-60 MiB.
+const STREAMED_IN_FLIGHT = 3;
+
 /** What the last look at an upload under this process's lock saw: its parts and the size of its `.part` tail (undefined: none). */
 type Seen = { lease: object; parts: Part[]; tailSize: number | undefined };
 
@@ -38,7 +47,8 @@ type Seen = { lease: object; parts: Part[]; tailSize: number | undefined };
  * @tus/s3-store with the Content-MD5 fix on its own client, a way to drop one upload from its cache,
  * the upload's SHA-256 computed while the parts stream out (upload-digest.ts), so finishing a clip
  * does not read the whole object back from S3, and two changes for throughput:
- * - parts are cut in memory and sent while the PATCH goes on (part-splitter.ts) instead of through temp files;
+ * - parts are cut in memory and sent while the PATCH goes on (part-splitter.ts) instead of through temp files,
+ *   and when the PATCH's length is known one more is streamed as it arrives (part-streamer.ts);
  * - a PATCH asks S3 about the upload once (ListParts and the tail's size, under the upload lock), where
  *   @tus/s3-store asks again before writing, and the upload record (`<id>.info`, which does not change
  *   once the upload's length is known) stays cached across requests.
@@ -49,6 +59,12 @@ export class TusS3Store extends S3Store {
   private readonly leases = new Map<string, object>();
   private readonly seen = new Map<string, Seen>();
   private readonly pool: PartBufferPool;
+  /**
+   * Sends streamed parts. One attempt: a part's bytes stream from the request and cannot be sent again, so
+   * a failure fails the PATCH and the client resends from the offset S3 kept (the SDK would otherwise retry
+   * with a body already consumed).
+   */
+  private readonly streamClient: S3;
 
   constructor(s: S3Settings) {
     super({
@@ -58,6 +74,8 @@ export class TusS3Store extends S3Store {
     });
     addDeleteObjectsMd5(this.client.middlewareStack);
     addUnsignedPartPayload(this.client.middlewareStack);
+    this.streamClient = new S3({ ...s3ClientConfig(s), maxAttempts: 1 });
+    addUnsignedPartPayload(this.streamClient.middlewareStack);
     this.pool = new PartBufferPool(this.preferredPartSize, Math.floor(PART_MEMORY_BYTES / this.preferredPartSize));
   }
 
@@ -138,7 +156,9 @@ export class TusS3Store extends S3Store {
     if (tail) await this.deleteIncompletePart(id);
     const source = tail ? Readable.from(prepend(tail, src)) : src;
     const tailBytes = tail?.length ?? 0;
-    const uploaded = await this.uploadParts(metadata, source, nextPartNumber, offset - tailBytes);
+    // With no tail in front, the body's declared length is the stream's: its parts can be streamed.
+    const length = tail ? undefined : declaredBodyLength();
+    const uploaded = await this.uploadParts(metadata, source, nextPartNumber, offset - tailBytes, length);
     const newOffset = offset + uploaded - tailBytes;
     if (metadata.file.size === newOffset) {
       await this.finishMultipartUpload(metadata, await this.retrieveParts(id));
@@ -163,16 +183,16 @@ export class TusS3Store extends S3Store {
    * of the parts S3 did store. An upload whose previous PATCH ran on another process has no chain here,
    * and its finish reads the object back.
    */
-  protected override async uploadParts(metadata: MetadataValue, readStream: Readable, currentPartNumber: number, offset: number): Promise<number> {
+  protected override async uploadParts(metadata: MetadataValue, readStream: Readable, currentPartNumber: number, offset: number, length?: number): Promise<number> {
     const id = metadata.file.id;
     const partSize = this.calcOptimalPartSize(metadata.file.size);
     const start = this.chainAt(id, offset, currentPartNumber - 1);
-    if (!start) return this.sendParts(metadata, readStream, currentPartNumber, offset, partSize);
+    if (!start) return this.sendParts(metadata, readStream, currentPartNumber, offset, partSize, length);
     const tap = new PartDigestTap(start, partSize);
     let uploaded: number;
     try {
       // pipeline() carries an aborted request's error on to the tap, so the splitter behind it fails as it would have.
-      uploaded = await this.sendParts(metadata, pipeline(readStream, tap, () => {}), currentPartNumber, offset, partSize);
+      uploaded = await this.sendParts(metadata, pipeline(readStream, tap, () => {}), currentPartNumber, offset, partSize, length);
     } catch (err) {
       const stored = await this.retrieveParts(id).catch(() => null);
       if (stored) this.keep(id, tap.chainAfter(start, metadata.file.size, this.minPartSize, stored.map((p) => p.ETag)));
@@ -187,10 +207,12 @@ export class TusS3Store extends S3Store {
    * @tus/s3-store 2.0.7 uploadParts for which piece becomes a part (at least the minimum part size, or the
    * upload's last) and which the tail. Parts too large for the budget go through its temp files.
    */
-  private async sendParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number): Promise<number> {
+  private async sendParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number, length?: number): Promise<number> {
+    const size = metadata.file.size;
+    if (length !== undefined && (size === undefined || offset + length <= size)) return this.streamParts(metadata, stream, firstPart, offset, partSize, length);
     const inFlight = Math.floor(PART_MEMORY_BYTES / partSize) - 1;
     if (inFlight < 1) return super.uploadParts(metadata, stream, firstPart, offset);
-    const { id, size } = metadata.file;
+    const { id } = metadata.file;
     const pool = partSize === this.pool.partSize ? this.pool : new PartBufferPool(partSize, inFlight + 1);
     let uploaded = 0;
     const splitter = new PartSplitter(pool, inFlight, async (bytes, start) => {
@@ -207,6 +229,46 @@ export class TusS3Store extends S3Store {
     });
     // Every part already started finishes (or fails) before the write answers, as in @tus/s3-store.
     await splitter.settled();
+    if (failure) throw failure;
+    return uploaded;
+  }
+
+  /**
+   * The parts of one write of `length` bytes (part-streamer.ts): in the two part buffers while they are
+   * free, otherwise streamed into their UploadPart as the request's bytes arrive, three on their way at
+   * once; the same rule as sendParts for which piece becomes a part and which the tail. A body that ends
+   * short drops the part it was filling (a streamed one's UploadPart is aborted), so S3 keeps only whole
+   * parts and the upload's offset is the sum of what it kept; the write then fails as a cut-off request does.
+   */
+  private async streamParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number, length: number): Promise<number> {
+    const { id, size } = metadata.file;
+    const isPart = (start: number, bytes: number) => bytes >= this.minPartSize || offset + start + bytes === size;
+    let uploaded = 0;
+    const streamed = async (body: Readable, start: number, bytes: number, abortSignal: AbortSignal) => {
+      if (isPart(start, bytes)) {
+        const UploadId = metadata['upload-id'];
+        await this.streamClient.uploadPart({ Bucket: this.bucket, Key: id, UploadId, PartNumber: firstPart + start / partSize, Body: body, ContentLength: bytes }, { abortSignal });
+      } else {
+        const Tagging = this.useCompleteTag('false');
+        await this.streamClient.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: body, ContentLength: bytes, Tagging }, { abortSignal });
+      }
+      uploaded += bytes;
+    };
+    const buffered = async (bytes: Buffer, start: number) => {
+      if (isPart(start, bytes.length)) await this.uploadPart(metadata, bytes, firstPart + start / partSize);
+      else await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
+      uploaded += bytes.length;
+    };
+    // Parts larger than the pool's (uploads above about 11 GiB) are all streamed.
+    const buffers = partSize === this.pool.partSize ? { pool: this.pool, max: STREAMED_IN_FLIGHT - 1, send: buffered } : undefined;
+    const streamer = new PartStreamer(length, partSize, STREAMED_IN_FLIGHT, streamed, buffers);
+    let failure: unknown = null;
+    await pipelineDone(stream, streamer).catch((err: unknown) => {
+      failure = err;
+    });
+    await streamer.settled().catch((err: unknown) => {
+      failure ??= err;
+    });
     if (failure) throw failure;
     return uploaded;
   }

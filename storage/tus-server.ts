@@ -8,6 +8,7 @@ import { displayName } from '@/lib/clips/names';
 import type { ClipStore } from './clip-store';
 import { maxUploadBytes, posterDirectory, s3Settings, storageKind, uploadDirectory } from './config';
 import { DiskClipStore } from './disk-store';
+import { withDeclaredBodyLength } from './patch-length';
 import { PgLocker, type LockPool } from './upload-lock-queries';
 import { S3ClipStore } from './s3-store';
 import { uploadHooks } from './upload-hooks';
@@ -29,6 +30,9 @@ export function createTusServer(store: ClipStore, lockPool: LockPool): Server {
     ...uploadHooks(store),
   });
   server.handlers.GET.filterContentType = downloadHeaders;
+  const patch = server.handlers.PATCH;
+  const send = patch.send.bind(patch);
+  patch.send = (req, context, headers) => withDeclaredBodyLength(req, () => send(req, context, headers));
   return server;
 }
 

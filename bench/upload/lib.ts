@@ -121,3 +121,25 @@ export async function benchChannel() {
   };
   return { cookie, metadata, remove };
 }
+
+const FIELDS = ['rss', 'heapTotal', 'heapUsed', 'external', 'arrayBuffers'] as const;
+
+/**
+ * What the app's memory grew by between `from` and `to` (ms since the epoch), from memory-probe.cjs's samples:
+ * per field of process.memoryUsage(), the peak in that window less the last sample before it.
+ */
+export function memoryGrowth(file: string, from: number, to: number): Record<(typeof FIELDS)[number], number> | null {
+  const rows = fs
+    .readFileSync(file, 'utf8')
+    .split('\n')
+    .filter(Boolean)
+    .map((line) => line.split(' ').map(Number));
+  const before = rows.filter((r) => (r[0] ?? 0) < from).at(-1);
+  const during = rows.filter((r) => (r[0] ?? 0) >= from && (r[0] ?? 0) <= to);
+  if (!before || during.length === 0) return null;
+  const out = {} as Record<(typeof FIELDS)[number], number>;
+  FIELDS.forEach((field, i) => {
+    out[field] = Math.max(...during.map((r) => r[i + 1] ?? 0)) - (before[i + 1] ?? 0);
+  });
+  return out;
+}

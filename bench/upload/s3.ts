@@ -11,6 +11,8 @@
 //      to the same server, four parts at a time (the SDK default) and one at a time;
 //   3. reading the SDK's copy back from S3 with its SHA-256 (what a finish without a verified digest adds);
 //   4. two simultaneous tus uploads into one process, then one into each of two processes: aggregate MiB/s.
+// --memory also loads memory-probe.cjs into the app and prints what each tus upload's RSS growth is made of
+// (V8 heap, Buffers and other memory outside it, the rest: native allocations, code, stacks).
 // --runs N repeats 1 and 2 N times, interleaved so a change in the machine's load hits both alike, and prints
 // each run's ratios with the load average, then the median and the spread; --no-pairs skips 4.
 import './bench-env';
@@ -26,7 +28,7 @@ import { sha256Of } from '@/storage/ingest';
 import { makeS3Client } from '@/storage/s3-client';
 import { S3ClipStore } from '@/storage/s3-store';
 import { startTraceProxy } from './s3-trace-proxy';
-import { benchChannel, makeSource, mibps, peakRssGrowth, startApp, tusUpload } from './lib';
+import { benchChannel, makeSource, memoryGrowth, mibps, peakRssGrowth, startApp, tusUpload } from './lib';
 
 const argMib = process.argv.indexOf('--mib');
 const MIB = argMib > 0 ? Number(process.argv[argMib + 1]) : 1024;
@@ -34,6 +36,7 @@ const SIZE = MIB * 1024 * 1024;
 const argRuns = process.argv.indexOf('--runs');
 const RUNS = argRuns > 0 ? Math.max(1, Number(process.argv[argRuns + 1])) : 1;
 const PAIRS = !process.argv.includes('--no-pairs');
+const MEMORY = process.argv.includes('--memory');
 const argTrace = process.argv.indexOf('--trace');
 const TRACE = argTrace > 0 ? path.resolve(process.argv[argTrace + 1] ?? 'bench-trace') : null;
 const PORT_A = Number(process.env.BENCH_APP_PORT ?? 3198);
@@ -112,6 +115,11 @@ async function main() {
   const { cookie, metadata, remove } = await benchChannel();
   // --trace DIR: the app talks to S3 through a logging proxy; PATCH, S3 request and part timestamps go to DIR (trace-report.ts reads them).
   const proxy = TRACE ? await startTrace(TRACE, settings.endpoint ?? '') : null;
+  const memoryFile = path.join(WORK, 'memory.log');
+  if (MEMORY) {
+    process.env.BENCH_MEMORY_FILE = memoryFile;
+    process.env.BENCH_APP_NODE_ARGS = `${process.env.BENCH_APP_NODE_ARGS ?? ''} --require ${path.resolve('bench/upload/memory-probe.cjs')}`;
+  }
   const apps = [await startApp(PORT_A, appEnv(proxy ? { ...settings, endpoint: proxy.endpoint } : settings))];
   // Stopped by hand (Ctrl-C, kill): the app processes and Swift go too, rather than hold their ports.
   const onSignal = () => {
@@ -131,8 +139,15 @@ async function main() {
     for (let i = 0; i < RUNS; i++) {
       const load = os.loadavg()[0] ?? 0;
       const t0 = performance.now();
+      const from = Date.now();
       const rss = await peakRssGrowth(apps[0]!.pid!, () => tusUpload(PORT_A, src, cookie, metadata));
       const tusMs = performance.now() - t0;
+      const memory = MEMORY ? memoryGrowth(memoryFile, from, Date.now()) : null;
+      if (memory) {
+        const mib = (b: number) => (b / 1048576).toFixed(1);
+        const rest = memory.rss - memory.heapTotal - memory.external;
+        console.log(`  run ${i + 1} memory growth (peaks, MiB): rss ${mib(memory.rss)} = V8 heap ${mib(memory.heapTotal)} (used ${mib(memory.heapUsed)}) + outside the heap ${mib(memory.external)} (Buffers ${mib(memory.arrayBuffers)}) + the rest about ${mib(rest)}`);
+      }
       base = rss.base;
       const sdk4Ms = await sdkMultipart(client, settings.bucket, src, 4);
       const sdk1Ms = await sdkMultipart(client, settings.bucket, src, 1);

@@ -6,6 +6,8 @@ import { Upload } from '@tus/server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { S3Settings } from '@/storage/config';
 import { sha256Of } from '@/storage/ingest';
+import { withDeclaredBodyLength } from '@/storage/patch-length';
+import { IncompleteBodyError } from '@/storage/part-streamer';
 import { S3ClipStore } from '@/storage/s3-store';
 import { newTestBucket } from './s3-bucket';
 
@@ -50,13 +52,19 @@ async function newUpload(store: S3ClipStore, size: number): Promise<string> {
   return id;
 }
 
-/** One PATCH as @tus/server runs it: lock, look, write, unlock. */
-async function patch(store: S3ClipStore, id: string, bytes: Buffer, start: number, end: number): Promise<number> {
+/**
+ * One PATCH as @tus/server runs it: lock, look, write, unlock. With `declared`, the PATCH says its
+ * Content-Length (end - start), as tus-js-client's do, and only the first `declared.arrives` bytes come.
+ */
+async function patch(store: S3ClipStore, id: string, bytes: Buffer, start: number, end: number, declared?: { arrives: number }): Promise<number> {
   await store.uploadLocked(id);
   try {
     const { offset } = await store.tus.getUpload(id);
     expect(offset).toBe(start);
-    return await store.tus.write(Readable.from([bytes.subarray(start, end)]), id, offset);
+    const body = Readable.from([bytes.subarray(start, start + (declared?.arrives ?? end - start))]);
+    if (!declared) return await store.tus.write(body, id, offset);
+    const headers = new Headers({ 'content-length': String(end - start) });
+    return await withDeclaredBodyLength({ headers }, () => store.tus.write(body, id, offset));
   } finally {
     store.uploadUnlocked(id);
   }
@@ -113,5 +121,32 @@ describe('the S3 tus store between the steps of a PATCH', () => {
     expect((await store.tus.getUpload(id)).offset).toBe(bytes.length);
     store.uploadUnlocked(id);
     expect((await new S3ClipStore(settings).tus.getUpload(id)).offset).toBe(bytes.length);
+  });
+
+  it('streams the parts of a PATCH whose length it declares, and hashes them on the way in', async () => {
+    const store = new S3ClipStore(proxied);
+    const bytes = randomBytes(21 * MiB + 5);
+    const id = await newUpload(store, bytes.length);
+    requests.length = 0;
+    await patch(store, id, bytes, 0, 16 * MiB, { arrives: 16 * MiB });
+    expect(requests.filter((r) => r === 'UploadPart')).toHaveLength(2);
+    expect(await patch(store, id, bytes, 16 * MiB, bytes.length, { arrives: bytes.length - 16 * MiB })).toBe(bytes.length);
+    expect(await store.verifiedSha256(id, bytes.length)).toBe(sha256(bytes));
+    expect(await sha256Of(await store.read(id))).toBe(sha256(bytes));
+  });
+
+  it('keeps only whole parts when a streamed PATCH ends short, and the upload resumes from what S3 kept', async () => {
+    const store = new S3ClipStore(settings);
+    const bytes = randomBytes(20 * MiB);
+    const id = await newUpload(store, bytes.length);
+    // An aborted PATCH: 13 MiB of the 20 it declared arrive. Part 1 is whole; part 2 must not reach S3 with 5 MiB.
+    await expect(patch(store, id, bytes, 0, 20 * MiB, { arrives: 13 * MiB })).rejects.toBeInstanceOf(IncompleteBodyError);
+    await store.uploadLocked(id);
+    expect((await store.tus.getUpload(id)).offset).toBe(8 * MiB);
+    store.uploadUnlocked(id);
+    expect(await patch(store, id, bytes, 8 * MiB, bytes.length, { arrives: 12 * MiB })).toBe(bytes.length);
+    // The chain kept the part S3 stored, so the hash still came on the way in, and it is right.
+    expect(await store.verifiedSha256(id, bytes.length)).toBe(sha256(bytes));
+    expect(await sha256Of(await store.read(id))).toBe(sha256(bytes));
   });
 });

@@ -304,6 +304,28 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
       expect(performance.now() - started).toBeLessThan(ms + 200);
     }
   });
+
+  it('waits for a solve it told to stop before the next one, within a share of that one’s time', async () => {
+    let seed = 11;
+    const random = (): number => {
+      seed = (seed * 16807) % 2147483647;
+      return seed / 2147483647;
+    };
+    const parts = Array.from({ length: 30 }, (_, i) => ({ id: `p${i}`, length: Math.round((6 + random() * 80) * 16) / 16, quantity: 1 + Math.floor(random() * 10) }));
+    const big = new Instance({ kerf: 0.125, parts, stock: [{ id: 'a', length: 96, price: 4.5 }, { id: 'b', length: 144, price: 8.1 }] });
+    const g = buildArcFlow(big, kindsOf(big), 1_000_000);
+    const small = new Instance({ kerf: 0, parts: [{ id: 'a', length: 40, quantity: 3 }], stock: [{ id: 'x', length: 96, price: 5 }] });
+    const h = buildArcFlow(small, kindsOf(small));
+    expect(g && h).toBeTruthy();
+    if (!g || !h) return;
+    expect(await waitForMipSolver()).toBe(true);
+    // Too little time for the large model: the caller gives up on it and HiGHS is told to stop.
+    expect(solveMip(g.model, deadlineIn(30))).toBeNull();
+    const started = performance.now();
+    const next = solveMip(h.model, deadlineIn(4000));
+    expect(next?.optimal).toBe(true);
+    expect(performance.now() - started).toBeLessThan(4000 + 50);
+  });
 });
 
 describe.runIf(mipAvailable())('pattern integer program (HiGHS)', () => {

@@ -87,7 +87,11 @@ export function buildArcFlow(
   const sizes = kinds.map((k) => k.size / grid);
   const demand = kinds.map((k) => k.pieces.length);
   const stocks = inst.stocks;
-  const caps = stocks.map((s) => Math.floor(s.cap / grid));
+  // No board holds more than all the pieces: positions past their total length are never reached by a
+  // plan, and leaving them out keeps short lists on long boards small (two 2 in pieces on an 89 in board
+  // made 2,600 columns, more than the limit, for a plan of one board).
+  const total = sizes.reduce((a, size, k) => a + size * (demand[k] ?? 0), 0);
+  const caps = stocks.map((s) => Math.min(total, Math.floor(s.cap / grid)));
   const W = Math.max(0, ...caps);
   if (W > MAX_POSITIONS) return null;
   const priceUnit = priceUnitOf(inst);

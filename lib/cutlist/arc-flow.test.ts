@@ -1,13 +1,57 @@
 import fc from 'fast-check';
 import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { planLinearCuts, type LinearCutRequest } from '.';
-import { arcFlowSearch, buildArcFlow, decodeArcFlow } from './arc-flow';
+import { arcFlowSearch, buildArcFlow, decodeArcFlow, graphHolds } from './arc-flow';
 import { deadlineIn } from './deadline';
 import { Instance, SCALE, type Solution } from './instance';
 import { kindsOf } from './knapsack';
 import { mipAvailable, solveMip, waitForMipSolver } from './mip';
 import { solvePatternMip } from './pattern-mip';
 import { bruteForceCost } from './testing/brute-force';
+import { dualBound } from './bounds';
+import { chooserFor, greedy } from './heuristics';
+import { knapsack, unitOf, type Kind } from './knapsack';
+import { solvePatternLp } from './pattern-lp';
+
+/** The root LP's duals as the planner computes them (linear.ts): the bound reduced-cost fixing starts from. */
+function rootDuals(inst: Instance, kinds: readonly Kind[]): ReturnType<typeof dualBound> {
+  const sizes = kinds.map((k) => k.size);
+  const unit = unitOf(sizes);
+  const maxCap = Math.max(0, ...inst.stocks.map((s) => s.cap));
+  const deadline = deadlineIn(5000);
+  const root = solvePatternLp(
+    kinds.map((k) => k.pieces.length),
+    inst.stocks.map((s) => ({ price: s.price, available: s.available })),
+    (s, y, limit) => knapsack(sizes, y, limit, inst.stocks[s]?.cap ?? 0, unit, deadline, maxCap),
+    [],
+    deadline,
+  );
+  return dualBound(inst, kinds, root.duals, deadline);
+}
+
+/**
+ * A plan by first fit with one stock preferred: a deliberately plain incumbent, sometimes far from the
+ * optimum. Each board then moves to the cheapest unlimited stock that holds it, if that is no dearer, as
+ * the planner's own plans do (heuristics.ts `downgrade`), since the graph leaves such boards out.
+ */
+function plainPlan(inst: Instance, preferred: number | null): Solution {
+  const sol = greedy(
+    inst,
+    inst.pieces.map((_, i) => i),
+    false,
+    chooserFor(inst, preferred),
+  );
+  const bins = sol.bins.map((b) => {
+    let stock = b.stock;
+    inst.stocks.forEach((t, j) => {
+      const cur = inst.stocks[stock];
+      if (!cur || Number.isFinite(t.available) || t.cap < b.load) return;
+      if (t.price < cur.price || (t.price === cur.price && j < stock)) stock = j;
+    });
+    return { ...b, stock };
+  });
+  return inst.solution(bins, sol.unplaced);
+}
 
 /** Every piece on exactly one board, no board over its capacity, no stock used beyond what is available. */
 function expectValidSolution(inst: Instance, sol: Solution): void {
@@ -107,6 +151,93 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
     expect(both).toBeGreaterThan(15);
   }, 180_000);
 
+  it('with reduced-cost fixing, proves the same least cost as brute force from a plain or a least-cost incumbent', async () => {
+    let proved = 0;
+    let infeasibleProofs = 0;
+    await fc.assert(
+      fc.asyncProperty(smallArb, fc.nat(3), async (req, pref) => {
+        const inst = new Instance(req);
+        if (inst.unfit.length > 0 || inst.pieces.length === 0) return;
+        expect(await waitForMipSolver()).toBe(true);
+        const best = bruteForceCost(req);
+        const kinds = kindsOf(inst);
+        const duals = rootDuals(inst, kinds);
+        const plain = plainPlan(inst, pref < inst.stocks.length ? pref : null);
+        const exact = arcFlowSearch(inst, kinds, null, deadlineIn(5000));
+        const incumbents = [plain, ...(exact?.best ? [exact.best] : [])].filter((s) => s.score.unplaced === 0);
+        for (const incumbent of incumbents) {
+          const holding = buildArcFlow(inst, kinds, 1_000_000, { duals, target: incumbent.score.cost });
+          expect(holding && graphHolds(holding, inst, kinds, incumbent)).toBe(true);
+          expect(await waitForMipSolver()).toBe(true);
+          const result = arcFlowSearch(inst, kinds, incumbent, deadlineIn(5000), duals);
+          expect(result).not.toBeNull();
+          if (!result || best === null) continue;
+          // Never a bound above the least cost, whatever the incumbent.
+          expect(result.lb / SCALE).toBeLessThanOrEqual(best + 1e-6);
+          expect(result.optimal).toBe(true);
+          const plan = result.best ?? incumbent;
+          if (result.best) expectValidSolution(inst, result.best);
+          else infeasibleProofs++;
+          expect(plan.score.cost / SCALE).toBeCloseTo(best, 6);
+          expect(result.lb).toBe(plan.score.cost);
+          proved++;
+        }
+      }),
+      { numRuns: 60 },
+    );
+    expect(proved).toBeGreaterThan(30);
+    // The least-cost incumbent is proven by a model with no cheaper plan in it.
+    expect(infeasibleProofs).toBeGreaterThan(10);
+  }, 240_000);
+
+  it('reduced-cost fixing keeps the least cost of lists too large for brute force, with far fewer columns', async () => {
+    const lists = fc.record({
+      kerf: fc.constantFrom(0, 1 / 8),
+      parts: fc
+        .array(fc.record({ length: sixteenths(6, 50), quantity: fc.integer({ min: 1, max: 6 }) }), { minLength: 3, maxLength: 7 })
+        .map((ps) => ps.map((p, i) => ({ id: `p${i}`, ...p }))),
+      available: fc.option(fc.integer({ min: 1, max: 6 }), { nil: undefined }),
+    });
+    let smaller = 0;
+    let runs = 0;
+    await fc.assert(
+      fc.asyncProperty(lists, async ({ kerf, parts, available }) => {
+        const req: LinearCutRequest = {
+          kerf,
+          parts,
+          stock: [
+            { id: 'a', length: 48, price: 2.4 },
+            { id: 'b', length: 72, price: 3.6 },
+            { id: 'c', length: 96, price: 4.5, available },
+            { id: 'd', length: 60, price: 0, available: 2 },
+          ],
+        };
+        const inst = new Instance(req);
+        const kinds = kindsOf(inst);
+        const full = buildArcFlow(inst, kinds, 1_000_000);
+        expect(await waitForMipSolver()).toBe(true);
+        const exact = arcFlowSearch(inst, kinds, null, deadlineIn(10_000));
+        if (!full || !exact?.optimal || !exact.best) return;
+        const duals = rootDuals(inst, kinds);
+        for (const incumbent of [plainPlan(inst, 1), plainPlan(inst, null), exact.best]) {
+          // The fixing lemma itself: a plan costing at most the target keeps every arc of every board.
+          const holding = buildArcFlow(inst, kinds, 1_000_000, { duals, target: incumbent.score.cost });
+          expect(holding && graphHolds(holding, inst, kinds, incumbent)).toBe(true);
+          expect(await waitForMipSolver()).toBe(true);
+          const fixed = buildArcFlow(inst, kinds, 1_000_000, { duals, target: incumbent.score.cost - 100_000 });
+          if (fixed && fixed.model.numCols < full.model.numCols) smaller++;
+          const result = arcFlowSearch(inst, kinds, incumbent, deadlineIn(10_000), duals);
+          if (!result?.optimal) continue;
+          expect((result.best ?? incumbent).score.cost).toBe(exact.best.score.cost);
+          runs++;
+        }
+      }),
+      { numRuns: 15 },
+    );
+    expect(runs).toBeGreaterThan(25);
+    expect(smaller).toBeGreaterThan(20);
+  }, 240_000);
+
   it('decodes a flow into boards whose pieces are listed once each', () => {
     // 3 x 40 in and 2 x 28 in from 96 in boards, no kerf: 40+40 and 40+28+28 (exactly full) on two boards.
     const req: LinearCutRequest = {
@@ -172,6 +303,28 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
       // Goal timeLimitMs + 50 ms; generous for a shared two-core machine, far below HiGHS's seconds.
       expect(performance.now() - started).toBeLessThan(ms + 200);
     }
+  });
+
+  it('waits for a solve it told to stop before the next one, within a share of that one’s time', async () => {
+    let seed = 11;
+    const random = (): number => {
+      seed = (seed * 16807) % 2147483647;
+      return seed / 2147483647;
+    };
+    const parts = Array.from({ length: 30 }, (_, i) => ({ id: `p${i}`, length: Math.round((6 + random() * 80) * 16) / 16, quantity: 1 + Math.floor(random() * 10) }));
+    const big = new Instance({ kerf: 0.125, parts, stock: [{ id: 'a', length: 96, price: 4.5 }, { id: 'b', length: 144, price: 8.1 }] });
+    const g = buildArcFlow(big, kindsOf(big), 1_000_000);
+    const small = new Instance({ kerf: 0, parts: [{ id: 'a', length: 40, quantity: 3 }], stock: [{ id: 'x', length: 96, price: 5 }] });
+    const h = buildArcFlow(small, kindsOf(small));
+    expect(g && h).toBeTruthy();
+    if (!g || !h) return;
+    expect(await waitForMipSolver()).toBe(true);
+    // Too little time for the large model: the caller gives up on it and HiGHS is told to stop.
+    expect(solveMip(g.model, deadlineIn(30))).toBeNull();
+    const started = performance.now();
+    const next = solveMip(h.model, deadlineIn(4000));
+    expect(next?.optimal).toBe(true);
+    expect(performance.now() - started).toBeLessThan(4000 + 50);
   });
 });
 

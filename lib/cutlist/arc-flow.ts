@@ -18,13 +18,21 @@ import { type Deadline } from './deadline';
 import { gcd, unitOf, type Kind } from './knapsack';
 import { solveMip, type MipModel } from './mip';
 import type { Bin, Instance, Solution } from './instance';
+import { fixByReducedCost, type FixingDuals } from './reduced-cost-fixing';
 
 /**
  * Larger graphs are skipped. Measured (README.md): one length of board (Falkenauer t60, about 6,700
  * columns) solves in about a second; woodworking lists on three to five lengths (3,000–15,000 columns)
- * rarely finished their root LP inside a 2 s call, and HiGHS cannot be stopped inside that LP.
+ * rarely finished their root LP inside a 2 s call, and HiGHS cannot be stopped inside that LP. With
+ * reduced-cost fixing the limit counts the columns left after it (0–1,000 on those lists); 6,000 for
+ * several lengths proved 95, 97, 94 of 100 against 92, 96, 99 at 2,500 (interleaved, load 5–8), so it stays.
  */
 export const MAX_ARC_FLOW_COLUMNS = { oneLength: 8_000, severalLengths: 2_500 };
+/**
+ * Item arcs built before reduced-cost fixing: building and labelling them is linear and takes a few
+ * milliseconds (woodworking lists on five lengths make up to about 21,000, bench/cutlist/run.ts).
+ */
+const MAX_CANDIDATE_ARCS = 60_000;
 /** Largest board price in objective units, so a bound within HiGHS's tolerance still rounds to the right unit. */
 const MAX_PRICE_UNITS = 100_000;
 /** Positions per board in grid units; beyond this the graph is not built at all. */
@@ -51,11 +59,27 @@ interface Graph {
   priceUnit: number; // micro-dollars per objective unit
 }
 
-/** The arc-flow model of `inst`, or null when it would exceed `maxColumns`. */
+/** Objective in whole units of the prices' gcd, so HiGHS sees an integral objective; every plan costs a multiple. */
+function priceUnitOf(inst: Instance): number {
+  return inst.stocks.reduce((g, s) => gcd(g, s.price), 0) || 1;
+}
+
+/** Reduced-cost fixing (reduced-cost-fixing.ts): the duals and the dearest plan still wanted. */
+export interface ArcFlowFixing {
+  duals: FixingDuals;
+  /** Micro-dollars: arcs only plans dearer than this can use are left out. */
+  target: number;
+}
+
+/**
+ * The arc-flow model of `inst`, or null when it would exceed `maxColumns`. With `fixing`, arcs that no
+ * plan costing at most `fixing.target` can use are left out first, and `maxColumns` counts what is left.
+ */
 export function buildArcFlow(
   inst: Instance,
   kinds: readonly Kind[],
   maxColumns = inst.stocks.length === 1 ? MAX_ARC_FLOW_COLUMNS.oneLength : MAX_ARC_FLOW_COLUMNS.severalLengths,
+  fixing?: ArcFlowFixing,
 ): Graph | null {
   const K = kinds.length;
   const grid = unitOf(kinds.map((k) => k.size));
@@ -63,19 +87,23 @@ export function buildArcFlow(
   const sizes = kinds.map((k) => k.size / grid);
   const demand = kinds.map((k) => k.pieces.length);
   const stocks = inst.stocks;
-  const caps = stocks.map((s) => Math.floor(s.cap / grid));
+  // No board holds more than all the pieces: positions past their total length are never reached by a
+  // plan, and leaving them out keeps short lists on long boards small (two 2 in pieces on an 89 in board
+  // made 2,600 columns, more than the limit, for a plan of one board).
+  const total = sizes.reduce((a, size, k) => a + size * (demand[k] ?? 0), 0);
+  const caps = stocks.map((s) => Math.min(total, Math.floor(s.cap / grid)));
   const W = Math.max(0, ...caps);
   if (W > MAX_POSITIONS) return null;
-  // Objective in whole units of the prices' gcd, so HiGHS sees an integral objective.
-  const priceUnit = stocks.reduce((g, s) => gcd(g, s.price), 0) || 1;
+  const priceUnit = priceUnitOf(inst);
   // Prices to the micro-dollar would make units too fine for a solver that works to about 1e-6.
   if (Math.max(0, ...stocks.map((s) => s.price)) / priceUnit > MAX_PRICE_UNITS) return null;
 
   // minLast[p]: the smallest kind index that ends a decreasing path to p (K when p is not reached).
   const minLast = new Int32Array(W + 1).fill(K);
   minLast[0] = 0;
-  const arcFrom: number[] = [];
-  const arcKind: number[] = [];
+  const candidateLimit = fixing ? MAX_CANDIDATE_ARCS : maxColumns;
+  let arcFrom: number[] = [];
+  let arcKind: number[] = [];
   for (let p = 0; p <= W; p++) {
     const first = minLast[p] ?? K;
     for (let k = first; k < K; k++) {
@@ -85,22 +113,31 @@ export function buildArcFlow(
       arcKind.push(k);
       if (k < (minLast[q] ?? K)) minLast[q] = k;
     }
-    if (arcFrom.length > maxColumns) return null;
+    if (arcFrom.length > candidateLimit) return null;
   }
+  // Loss arcs: a board of stock i may end at p unless an unlimited stock no dearer also holds p.
+  const dominated = (p: number, i: number): boolean =>
+    stocks.some((t, j) => j !== i && (caps[j] ?? 0) >= p && !Number.isFinite(t.available) && (t.price < (stocks[i]?.price ?? 0) || (t.price === stocks[i]?.price && j < i)));
+  let keepLoss = (p: number, i: number): boolean => (caps[i] ?? 0) >= p;
+  if (fixing) {
+    const fixed = fixByReducedCost({ W, arcFrom, arcKind, sizes, caps, prices: stocks.map((s) => s.price) }, fixing.duals, fixing.target);
+    const kept = pruneDeadArcs(W, arcFrom, arcKind, sizes, fixed.keepArc, (p) => stocks.some((_, i) => fixed.keepLoss(p, i)));
+    arcFrom = kept.arcFrom;
+    arcKind = kept.arcKind;
+    keepLoss = fixed.keepLoss;
+  }
+  const reached = new Uint8Array(W + 1);
+  arcFrom.forEach((p, a) => (reached[p + (sizes[arcKind[a] ?? 0] ?? 0)] = 1));
   const nodeRow = new Int32Array(W + 1).fill(-1);
   let nodes = 0;
-  for (let p = 1; p <= W; p++) if ((minLast[p] ?? K) < K) nodeRow[p] = nodes++;
+  for (let p = 1; p <= W; p++) if (reached[p]) nodeRow[p] = nodes++;
 
   const lossAt: number[] = [];
   const lossStock: number[] = [];
   for (let p = 1; p <= W; p++) {
     if ((nodeRow[p] ?? -1) < 0) continue;
-    stocks.forEach((s, i) => {
-      if ((caps[i] ?? 0) < p) return;
-      const dominated = stocks.some(
-        (t, j) => j !== i && (caps[j] ?? 0) >= p && !Number.isFinite(t.available) && (t.price < s.price || (t.price === s.price && j < i)),
-      );
-      if (!dominated) {
+    stocks.forEach((_, i) => {
+      if (keepLoss(p, i) && !dominated(p, i)) {
         lossAt.push(p);
         lossStock.push(i);
       }
@@ -181,6 +218,34 @@ export function buildArcFlow(
   };
 }
 
+/**
+ * The arcs on some path from position 0 to a board end: `keep` marks the candidates, `canEnd(p)` whether
+ * a board may end at p. Arcs come in increasing order of their tail, and so do the ones returned.
+ */
+function pruneDeadArcs(
+  W: number,
+  arcFrom: readonly number[],
+  arcKind: readonly number[],
+  sizes: readonly number[],
+  keep: Uint8Array,
+  canEnd: (p: number) => boolean,
+): { arcFrom: number[]; arcKind: number[] } {
+  const head = (a: number): number => (arcFrom[a] ?? 0) + (sizes[arcKind[a] ?? 0] ?? 0);
+  const alive = new Uint8Array(W + 1);
+  for (let p = 1; p <= W; p++) if (canEnd(p)) alive[p] = 1;
+  for (let a = arcFrom.length - 1; a >= 0; a--) if (keep[a] && alive[head(a)]) alive[arcFrom[a] ?? 0] = 1;
+  const reach = new Uint8Array(W + 1);
+  reach[0] = 1;
+  const out = { arcFrom: [] as number[], arcKind: [] as number[] };
+  arcFrom.forEach((p, a) => {
+    if (!keep[a] || !reach[p] || !alive[head(a)]) return;
+    reach[head(a)] = 1;
+    out.arcFrom.push(p);
+    out.arcKind.push(arcKind[a] ?? 0);
+  });
+  return out;
+}
+
 /** The column values of `sol` in graph `g` (every board a decreasing path), or undefined if one has no arc. */
 function startOf(g: Graph, inst: Instance, kinds: readonly Kind[], sol: Solution): Float64Array | undefined {
   const kindOf = new Map<number, number>();
@@ -206,6 +271,11 @@ function startOf(g: Graph, inst: Instance, kinds: readonly Kind[], sol: Solution
     x[l] = (x[l] ?? 0) + 1;
   }
   return x;
+}
+
+/** Whether every board of `sol` is a path of graph `g` (after reduced-cost fixing, for tests). */
+export function graphHolds(g: Graph, inst: Instance, kinds: readonly Kind[], sol: Solution): boolean {
+  return startOf(g, inst, kinds, sol) !== undefined;
 }
 
 /** Boards from the flow: paths from position 0 to a sink, pieces handed out by kind; null if not a full plan. */
@@ -256,19 +326,45 @@ export function decodeArcFlow(g: Graph, inst: Instance, kinds: readonly Kind[], 
 /**
  * Solves the arc-flow model until `deadline`, starting from `incumbent`. The plan is decoded and checked;
  * the bound is HiGHS's dual bound rounded up to a whole price unit (the objective is integral).
+ *
+ * With `duals` (bounds.ts `dualBound`) and an incumbent, the model is only asked for a cheaper plan:
+ * arcs that only plans costing at least the incumbent can use are left out (reduced-cost-fixing.ts),
+ * which on woodworking lists of five lengths leaves a fraction of the graph. Then a model with no plan
+ * proves the incumbent least-cost, and HiGHS's bound holds only up to the incumbent's cost.
  */
-export function arcFlowSearch(inst: Instance, kinds: readonly Kind[], incumbent: Solution | null, deadline: Deadline): ArcFlowResult | null {
-  const g = buildArcFlow(inst, kinds);
+export function arcFlowSearch(
+  inst: Instance,
+  kinds: readonly Kind[],
+  incumbent: Solution | null,
+  deadline: Deadline,
+  duals?: FixingDuals,
+): ArcFlowResult | null {
+  const fixTo = duals && incumbent && incumbent.score.unplaced === 0 ? incumbent.score.cost - priceUnitOf(inst) : null;
+  const g = buildArcFlow(inst, kinds, undefined, duals && fixTo !== null ? { duals, target: fixTo } : undefined);
   if (!g) return null;
-  const start = incumbent ? startOf(g, inst, kinds, incumbent) : undefined;
+  const ceiling = fixTo !== null && incumbent ? incumbent.score.cost : Number.POSITIVE_INFINITY;
+  // A kind no arc cuts any more: no plan cheaper than the incumbent exists.
+  const cut = new Uint8Array(kinds.length);
+  g.arcKind.forEach((k) => (cut[k] = 1));
+  if (fixTo !== null && cut.includes(0)) return { best: null, lb: ceiling, optimal: true };
+  const start = incumbent && fixTo === null ? startOf(g, inst, kinds, incumbent) : undefined;
   const result = solveMip(g.model, deadline, start);
   if (!result) return null;
+  if (result.infeasible) {
+    // With fixing, no plan below the incumbent; without, no plan at all (too few boards available).
+    return fixTo !== null ? { best: null, lb: ceiling, optimal: true } : { best: null, lb: 0, optimal: false };
+  }
   const best = result.solution ? decodeArcFlow(g, inst, kinds, result.solution) : null;
   const dual = result.dualBound;
   // HiGHS works to tolerances near 1e-7, so a bound a hair above a whole unit is not rounded up past it;
   // mip-worker.mjs stops at a gap of 0.99 units, well inside what this rounding still closes.
   const units = dual !== null && Number.isFinite(dual) ? Math.ceil(dual - 1e-3) : 0;
-  const lb = Math.max(0, units * g.priceUnit);
-  const optimal = result.optimal && best !== null && best.score.cost <= lb;
-  return { best, lb: optimal ? (best?.score.cost ?? lb) : lb, optimal };
+  const bound = Math.max(0, units * g.priceUnit);
+  // Paths of the fixed graph may still make plans dearer than the target (its path worths ignore the
+  // demand limits): a bound at the incumbent's cost or above still proves that nothing is cheaper.
+  if (bound >= ceiling) return { best: null, lb: ceiling, optimal: true };
+  const cheaper = best && best.score.cost < ceiling ? best : null;
+  const lb = Math.min(ceiling, bound);
+  const optimal = result.optimal && cheaper !== null && cheaper.score.cost <= lb;
+  return { best: cheaper, lb: optimal ? (cheaper?.score.cost ?? lb) : lb, optimal };
 }

@@ -8,7 +8,7 @@
  * of capacity `usable + kerf`: the plan is a bin packing with costed bin types.
  */
 import { arcFlowSearch } from './arc-flow';
-import { achievableCost, dualBound, lowerBound } from './bounds';
+import { achievableCost, dualBound, lowerBound, type DualBound } from './bounds';
 import { deadlineIn, shareOf, type Deadline } from './deadline';
 import { diveSearch, type DivePlan, type DiveProblem } from './dive';
 import { searchCostLevels } from './cost-levels';
@@ -193,6 +193,7 @@ function mipStages(
   inst: Instance,
   kinds: readonly Kind[],
   problem: DiveProblem,
+  dual: DualBound,
   start: Stage,
   deadline: Deadline,
   lap: (stage: string, proven: boolean) => void,
@@ -206,7 +207,7 @@ function mipStages(
   }
   lap('pattern-mip', proven());
   if (!proven()) {
-    const exact = arcFlowSearch(inst, kinds, best, shareOf(deadline, 0.7));
+    const exact = arcFlowSearch(inst, kinds, best, shareOf(deadline, 0.7), dual);
     if (exact) {
       if (exact.best) {
         const sol = downgrade(inst, exact.best);
@@ -279,7 +280,7 @@ export function planLinearCuts(req: LinearCutRequest): LinearCutPlan {
     }
     // After the dives, which often close the gap alone in a few milliseconds on a quiet machine.
     if (!finished && best.score.unplaced === 0 && mipAvailable()) {
-      ({ best, lb, finished } = mipStages(inst, kinds, problem, { best, lb, finished }, shareOf(deadline, 0.6), lap));
+      ({ best, lb, finished } = mipStages(inst, kinds, problem, dual, { best, lb, finished }, shareOf(deadline, 0.6), lap));
     }
     // Several priced lengths: the gap is in the mix of lengths, so list mixes by cost (cost-levels.ts), then
     // bin completion with the pattern LP of what is left as its node bound.

@@ -16,7 +16,7 @@
  */
 import { type Deadline } from './deadline';
 import { gcd, unitOf, type Kind } from './knapsack';
-import { solveMip, type MipModel } from './mip';
+import { integerModel, solveMip, type MipModel } from './mip';
 import type { Bin, Instance, Solution } from './instance';
 import { fixByReducedCost, type FixingDuals } from './reduced-cost-fixing';
 
@@ -198,17 +198,7 @@ export function buildArcFlow(
     rowUpper[row] = s.available;
   });
   return {
-    model: {
-      numCols,
-      numRows,
-      colCost,
-      colLower: new Float64Array(numCols),
-      colUpper,
-      rowLower,
-      rowUpper,
-      matrix: { format: 'csc', numRows, numCols, starts, indices: Int32Array.from(indices), values: Float64Array.from(values) },
-      integrality: new Int32Array(numCols).fill(1),
-    },
+    model: integerModel({ colCost, colUpper, rowLower, rowUpper, starts, indices, values }),
     arcFrom: Int32Array.from(arcFrom),
     arcKind: Int32Array.from(arcKind),
     lossAt: Int32Array.from(lossAt),

@@ -30,6 +30,34 @@ export interface MipModel {
   integrality: Int32Array;
 }
 
+/**
+ * An all-integer program with every column bounded below by 0, its matrix given by columns (CSC):
+ * column j's entries are `indices`/`values` from `starts[j]` to `starts[j + 1]`. The sizes follow from the arrays.
+ */
+export function integerModel(m: {
+  colCost: Float64Array;
+  colUpper: Float64Array;
+  rowLower: Float64Array;
+  rowUpper: Float64Array;
+  starts: Int32Array;
+  indices: readonly number[];
+  values: readonly number[];
+}): MipModel {
+  const numCols = m.colCost.length;
+  const numRows = m.rowLower.length;
+  return {
+    numCols,
+    numRows,
+    colCost: m.colCost,
+    colLower: new Float64Array(numCols),
+    colUpper: m.colUpper,
+    rowLower: m.rowLower,
+    rowUpper: m.rowUpper,
+    matrix: { format: 'csc', numRows, numCols, starts: m.starts, indices: Int32Array.from(m.indices), values: Float64Array.from(m.values) },
+    integrality: new Int32Array(numCols).fill(1),
+  };
+}
+
 export interface MipResult {
   /** HiGHS closed the gap: `objective` is the least cost (whole units, see `mip-worker.mjs`). */
   optimal: boolean;

@@ -11,7 +11,7 @@
 import type { Deadline } from './deadline';
 import type { LpStock, Pattern } from './pattern-lp';
 import { gcd } from './knapsack';
-import { solveMip } from './mip';
+import { integerModel, solveMip } from './mip';
 
 /** The cheapest whole number of boards of each pattern (the incumbent's boards and the pool) covering `demand`, or null. */
 export function solvePatternMip(
@@ -73,17 +73,7 @@ export function solvePatternMip(
     if (j !== undefined) start[j] = (start[j] ?? 0) + 1;
   }
   const result = solveMip(
-    {
-      numCols,
-      numRows,
-      colCost,
-      colLower: new Float64Array(numCols),
-      colUpper,
-      rowLower,
-      rowUpper,
-      matrix: { format: 'csc', numRows, numCols, starts, indices: Int32Array.from(indices), values: Float64Array.from(values) },
-      integrality: new Int32Array(numCols).fill(1),
-    },
+    integerModel({ colCost, colUpper, rowLower, rowUpper, starts, indices, values }),
     deadline,
     incumbent.length > 0 ? start : undefined,
   );

@@ -1,4 +1,5 @@
 import { Writable } from 'node:stream';
+import { SendSlots } from './send-slots';
 
 /** Sends one part: its bytes and where it starts in the split stream. */
 export type SendPart = (bytes: Buffer, start: number) => Promise<void>;
@@ -21,8 +22,6 @@ export class PartBufferPool {
   }
 }
 
-const noop = () => {};
-
 /**
  * Cuts a byte stream into parts of `pool.partSize` bytes held in memory and hands each to `send` as soon
  * as it is whole, at most `maxInFlight` sends at once. While that many run it takes no more bytes, so
@@ -35,15 +34,15 @@ export class PartSplitter extends Writable {
   private part: Buffer | null = null;
   private filled = 0;
   private start = 0;
-  private readonly running = new Set<Promise<void>>();
-  private readonly sends: Promise<void>[] = [];
+  private readonly slots: SendSlots;
 
   constructor(
     private readonly pool: PartBufferPool,
-    private readonly maxInFlight: number,
+    maxInFlight: number,
     private readonly send: SendPart,
   ) {
     super();
+    this.slots = new SendSlots(maxInFlight, (error) => this.destroy(error));
   }
 
   override _write(chunk: Buffer, _encoding: BufferEncoding, done: (error?: Error | null) => void): void {
@@ -61,9 +60,8 @@ export class PartSplitter extends Writable {
     done(error);
   }
 
-  async settled(): Promise<void> {
-    await Promise.allSettled(this.sends);
-    await Promise.all(this.sends);
+  settled(): Promise<void> {
+    return this.slots.settled();
   }
 
   private async take(chunk: Buffer): Promise<void> {
@@ -78,7 +76,7 @@ export class PartSplitter extends Writable {
   }
 
   private async seal(): Promise<void> {
-    while (this.running.size >= this.maxInFlight) await Promise.race(this.running);
+    await this.slots.free();
     if (this.destroyed || !this.part) return;
     const buffer = this.part;
     const bytes = buffer.subarray(0, this.filled);
@@ -86,13 +84,7 @@ export class PartSplitter extends Writable {
     this.start += this.filled;
     this.part = null;
     this.filled = 0;
-    const sent = this.send(bytes, start);
-    this.sends.push(sent);
     // A buffer goes back to the pool only after a send that succeeded: a failed one may still be read by a retry in flight.
-    const slot: Promise<void> = sent.then(
-      () => this.pool.give(buffer),
-      (err: unknown) => this.destroy(err instanceof Error ? err : new Error(String(err))),
-    ).then(() => void this.running.delete(slot), noop);
-    this.running.add(slot);
+    this.slots.track(this.send(bytes, start), () => this.pool.give(buffer));
   }
 }

@@ -1,5 +1,6 @@
 import { PassThrough, Writable, type Readable } from 'node:stream';
 import type { PartBufferPool, SendPart } from './part-splitter';
+import { SendSlots } from './send-slots';
 
 /**
  * Sends one piece of the split stream: `body` carries exactly `length` bytes starting at `start`.
@@ -22,8 +23,6 @@ export type BufferedSends = { pool: PartBufferPool; max: number; send: SendPart 
 type Streamed = { kind: 'stream'; body: PassThrough; length: number; written: number; abort: AbortController };
 type Buffered = { kind: 'buffer'; buffer: Buffer; start: number; length: number; written: number };
 type Piece = Streamed | Buffered;
-
-const noop = () => {};
 
 /** Resolves on the next 'drain' or 'close' of `body`, whichever comes first. */
 const drainedOrClosed = (body: PassThrough) =>
@@ -56,19 +55,19 @@ export class PartStreamer extends Writable {
   private piece: Piece | null = null;
   private start = 0;
   private received = 0;
-  private readonly running = new Set<Promise<void>>();
-  private readonly sends: Promise<void>[] = [];
+  private readonly slots: SendSlots;
   /** Part buffers taken: being filled, or on their way. */
   private buffersOut = 0;
 
   constructor(
     private readonly total: number,
     private readonly partSize: number,
-    private readonly maxInFlight: number,
+    maxInFlight: number,
     private readonly send: StreamPiece,
     private readonly buffered?: BufferedSends,
   ) {
     super();
+    this.slots = new SendSlots(maxInFlight, (error) => this.destroy(error));
   }
 
   override _write(chunk: Buffer, _encoding: BufferEncoding, done: (error?: Error | null) => void): void {
@@ -87,9 +86,8 @@ export class PartStreamer extends Writable {
     done(error);
   }
 
-  async settled(): Promise<void> {
-    await Promise.allSettled(this.sends);
-    await Promise.all(this.sends);
+  settled(): Promise<void> {
+    return this.slots.settled();
   }
 
   private async take(chunk: Buffer): Promise<void> {
@@ -120,7 +118,7 @@ export class PartStreamer extends Writable {
 
   /** The next piece once fewer than `maxInFlight` sends run: in a free part buffer, else streamed; null when the streamer failed meanwhile. */
   private async open(): Promise<Piece | null> {
-    while (this.running.size >= this.maxInFlight) await Promise.race(this.running);
+    await this.slots.free();
     if (this.destroyed) return null;
     const length = Math.min(this.partSize, this.total - this.start);
     if (this.buffered && this.buffersOut < this.buffered.max) {
@@ -134,7 +132,7 @@ export class PartStreamer extends Writable {
     const sent = this.send(piece.body, this.start, length, piece.abort.signal);
     this.start += length;
     // The send stopped reading its body: the body goes too, so a write waiting for it to drain wakes up.
-    this.track(sent, noop, () => piece.body.destroy());
+    this.slots.track(sent, () => {}, () => piece.body.destroy());
     this.piece = piece;
     return piece;
   }
@@ -145,7 +143,7 @@ export class PartStreamer extends Writable {
     this.piece = null;
     const sent = buffered.send(piece.buffer.subarray(0, piece.length), piece.start);
     // A buffer goes back to the pool only after a send that succeeded: a failed one may still be read by a retry in flight.
-    this.track(
+    this.slots.track(
       sent,
       () => {
         this.buffersOut -= 1;
@@ -153,17 +151,6 @@ export class PartStreamer extends Writable {
       },
       () => void (this.buffersOut -= 1),
     );
-  }
-
-  private track(sent: Promise<void>, onDone: () => void, onFailed: () => void): void {
-    this.sends.push(sent);
-    const slot: Promise<void> = sent
-      .then(onDone, (err: unknown) => {
-        onFailed();
-        this.destroy(err instanceof Error ? err : new Error(String(err)));
-      })
-      .then(() => void this.running.delete(slot));
-    this.running.add(slot);
   }
 
   /** Drops the piece being filled: a buffered one is never sent, a streamed one's send is aborted, so neither reaches the server short. */

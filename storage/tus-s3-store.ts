@@ -70,11 +70,15 @@ export class TusS3Store extends S3Store {
     super({
       partSize: s.partSize,
       maxMultipartParts: s.maxParts,
-      s3ClientConfig: { ...s3ClientConfig(s), bucket: s.bucket },
+      // No `Expect: 100-continue` on part uploads (the SDK adds it to bodies of 2 MB and more): each part would
+      // wait a round trip to S3 before its first byte, and a streamed part holds the browser's bytes meanwhile.
+      // A refused request (bad keys, a gone upload) then costs one part's bytes sent in vain.
+      // Source: @aws-sdk/middleware-sdk-s3 3.1175 addExpectContinueMiddleware, option expectContinueHeader.
+      s3ClientConfig: { ...s3ClientConfig(s), bucket: s.bucket, expectContinueHeader: false },
     });
     addDeleteObjectsMd5(this.client.middlewareStack);
     addUnsignedPartPayload(this.client.middlewareStack);
-    this.streamClient = new S3({ ...s3ClientConfig(s), maxAttempts: 1 });
+    this.streamClient = new S3({ ...s3ClientConfig(s), maxAttempts: 1, expectContinueHeader: false });
     addUnsignedPartPayload(this.streamClient.middlewareStack);
     this.pool = new PartBufferPool(this.preferredPartSize, Math.floor(PART_MEMORY_BYTES / this.preferredPartSize));
   }

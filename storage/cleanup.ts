@@ -1,5 +1,5 @@
 import 'server-only';
-import { uploadIdsInUse } from '@/lib/clips/queries';
+import { removeUploadMarks, uploadIdsInUse } from '@/lib/clips/queries';
 import type { ClipStore } from './clip-store';
 import { staleUploadMs } from './config';
 
@@ -7,6 +7,8 @@ import { staleUploadMs } from './config';
 export async function removeStaleUploads(store: ClipStore, olderThanMs = staleUploadMs(), now = Date.now()): Promise<string[]> {
   const stale = (await store.listUnfinished()).filter((u) => now - u.touchedAt.getTime() > olderThanMs);
   const recorded = await uploadIdsInUse(stale.map((s) => s.uploadId));
+  // Removed outside the upload lock: a process that last wrote one of these must not trust its view of it (tus-s3-store.ts).
+  await removeUploadMarks(stale.filter((s) => !recorded.has(s.uploadId)).map((s) => s.uploadId), new Date(now - olderThanMs));
   const removed: string[] = [];
   for (const { uploadId } of stale) {
     if (recorded.has(uploadId)) continue;

@@ -1,5 +1,6 @@
 import type { Readable } from 'node:stream';
 import type { DataStore } from '@tus/server';
+import type { LockMarks } from './upload-lock-queries';
 
 /**
  * What the app needs from wherever clip bytes live: local disk (disk-store.ts) or an S3-compatible
@@ -27,9 +28,12 @@ export interface ClipStore {
   verifiedSha256(uploadId: string, size: number): Promise<string | null>;
   /** Forgets what this process cached about an upload. */
   forget(uploadId: string): Promise<void>;
-  /** The cross-process upload lock is now held by this process (storage/upload-lock-queries.ts): drop what another process may have changed. */
-  uploadLocked(uploadId: string): Promise<void>;
-  /** The lock is about to be released: nothing seen under it may be trusted after. */
+  /**
+   * The cross-process upload lock is now held by this process (storage/upload-lock-queries.ts): drop what
+   * another process may have changed, which `marks` tell (unchanged since this process's last release: nothing).
+   */
+  uploadLocked(uploadId: string, marks: LockMarks): Promise<void>;
+  /** The lock is about to be released: what this process knows of the upload now carries the lock's mark. */
   uploadUnlocked(uploadId: string): void;
   /** The tus metadata of an upload (who uploads it, to which channel), or null when there is no such upload. */
   uploadMetadata(uploadId: string): Promise<Record<string, string | null> | null>;

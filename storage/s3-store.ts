@@ -18,6 +18,7 @@ import { checkClipId, checkUploadId, isClipId, isUploadId, type ClipStore } from
 import type { S3Settings } from './config';
 import { makeS3Client } from './s3-client';
 import { TusS3Store } from './tus-s3-store';
+import type { LockMarks } from './upload-lock-queries';
 import { digestKey } from './upload-digest';
 
 const notFound = (err: unknown): boolean => {
@@ -143,8 +144,8 @@ export class S3ClipStore implements ClipStore {
     return this.tus.forget(uploadId);
   }
 
-  uploadLocked(uploadId: string): Promise<void> {
-    return this.tus.lockTaken(uploadId);
+  uploadLocked(uploadId: string, marks: LockMarks): Promise<void> {
+    return this.tus.lockTaken(uploadId, marks);
   }
 
   uploadUnlocked(uploadId: string): void {

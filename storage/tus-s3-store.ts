@@ -9,6 +9,7 @@ import { PartStreamer } from './part-streamer';
 import { declaredBodyLength } from './patch-length';
 import { addDeleteObjectsMd5, addUnsignedPartPayload, s3ClientConfig } from './s3-client';
 import { digestKey, emptyChain, parseVerifiedDigest, PartDigestTap, verifiedSha256, type DigestChain } from './upload-digest';
+import type { LockMarks } from './upload-lock-queries';
 
 const isNotFound = (err: unknown): boolean => {
   const e = err as { name?: string; $metadata?: { httpStatusCode?: number } };
@@ -40,8 +41,17 @@ const PART_MEMORY_BYTES = 24 * 1024 * 1024;
 // three buffers and a fourth part streamed were no faster (0.79) and back at 57-60 MiB.
 const STREAMED_IN_FLIGHT = 3;
 
-/** What the last look at an upload under this process's lock saw: its parts and the size of its `.part` tail (undefined: none). */
-type Seen = { lease: object; parts: Part[]; tailSize: number | undefined };
+// Views of uploads left stamped at release (a few hundred bytes per GiB of parts); the oldest go first.
+const MAX_STAMPED = 1000;
+
+/** An upload as this process last saw it in S3 or left it: its parts and the size of its `.part` tail (undefined: none). */
+type View = { parts: Part[]; tailSize: number | undefined };
+/** One hold of an upload's lock by this process, and the mark it set (upload-lock-queries.ts). */
+type Lease = { mark: string };
+/** The view good for the requests of the hold `lease`. */
+type Seen = View & { lease: Lease };
+/** What one write sent: its parts, in any order, and the tail it left. */
+type WriteRecord = { parts: Part[]; tailSize: number | undefined };
 
 /**
  * @tus/s3-store with the Content-MD5 fix on its own client, a way to drop one upload from its cache,
@@ -49,15 +59,19 @@ type Seen = { lease: object; parts: Part[]; tailSize: number | undefined };
  * does not read the whole object back from S3, and two changes for throughput:
  * - parts are cut in memory and sent while the PATCH goes on (part-splitter.ts) instead of through temp files,
  *   and when the PATCH's length is known one more is streamed as it arrives (part-streamer.ts);
- * - a PATCH asks S3 about the upload once (ListParts and the tail's size, under the upload lock), where
- *   @tus/s3-store asks again before writing, and the upload record (`<id>.info`, which does not change
- *   once the upload's length is known) stays cached across requests.
+ * - a PATCH asks S3 about the upload at most once (ListParts and the tail's size, under the upload lock),
+ *   where @tus/s3-store asks again before writing, and not at all when no other process held the upload's
+ *   lock since this one's last PATCH (the lock's marks, upload-lock-queries.ts): what that PATCH sent and
+ *   left is then what S3 has. The upload record (`<id>.info`, which does not change once the upload's
+ *   length is known) stays cached across requests.
  */
 export class TusS3Store extends S3Store {
   private readonly chains = new Map<string, { chain: DigestChain; at: number }>();
-  /** Uploads whose lock this process holds: a fresh token per hold. */
-  private readonly leases = new Map<string, object>();
+  /** Uploads whose lock this process holds: a fresh lease per hold. */
+  private readonly leases = new Map<string, Lease>();
   private readonly seen = new Map<string, Seen>();
+  /** Views this process left at its last release of an upload's lock, under that hold's mark. */
+  private readonly stamped = new Map<string, View & { mark: string }>();
   private readonly pool: PartBufferPool;
   /**
    * Sends streamed parts. One attempt: a part's bytes stream from the request and cannot be sent again, so
@@ -85,17 +99,28 @@ export class TusS3Store extends S3Store {
 
   forget(id: string): Promise<void> {
     this.seen.delete(id);
+    this.stamped.delete(id);
     return this.clearCache(id);
   }
 
   /**
-   * This process now holds the upload's lock. Another process may have written the upload since we last
-   * looked, so what we saw of its parts goes; the upload record stays unless its length was still open
-   * (creation-defer-length: a later PATCH may set it), since nothing else in it changes.
+   * This process now holds the upload's lock. When the mark before this hold is the one this process left
+   * at its last release, no other process has held the lock since, and the view it left holds: the PATCH
+   * need not ask S3 again (ListParts and the tail's HEAD are most of a PATCH's fixed cost). Otherwise another
+   * process may have written the upload, so what we saw of its parts goes; the upload record stays unless
+   * its length was still open (creation-defer-length: a later PATCH may set it), since nothing else in it
+   * changes.
    */
-  async lockTaken(id: string): Promise<void> {
+  async lockTaken(id: string, marks: LockMarks): Promise<void> {
+    const lease: Lease = { mark: marks.current };
+    this.leases.set(id, lease);
     this.seen.delete(id);
-    this.leases.set(id, {});
+    const left = this.stamped.get(id);
+    this.stamped.delete(id);
+    if (left && left.mark === marks.previous) {
+      this.seen.set(id, { lease, parts: left.parts, tailSize: left.tailSize });
+      return;
+    }
     const cached = await this.cache.get(id);
     if (cached?.file.size === undefined) await this.clearCache(id);
   }
@@ -109,9 +134,15 @@ export class TusS3Store extends S3Store {
     }
   }
 
+  /** The view this hold ended with is stamped with its mark, for this process's next hold to take up. */
   lockReleased(id: string): void {
+    const lease = this.leases.get(id);
+    const seen = this.seen.get(id);
     this.leases.delete(id);
     this.seen.delete(id);
+    if (!lease || seen?.lease !== lease) return;
+    this.stamped.set(id, { mark: lease.mark, parts: seen.parts, tailSize: seen.tailSize });
+    if (this.stamped.size > MAX_STAMPED) this.stamped.delete(this.stamped.keys().next().value ?? id);
   }
 
   /**
@@ -127,6 +158,8 @@ export class TusS3Store extends S3Store {
     } catch {
       throw ERRORS.FILE_NOT_FOUND;
     }
+    const seen = this.seen.get(id);
+    if (lease && seen?.lease === lease) return new Upload({ ...metadata.file, offset: viewOffset(seen) });
     let parts: Part[];
     try {
       parts = await this.retrieveParts(id);
@@ -141,8 +174,7 @@ export class TusS3Store extends S3Store {
     }
     const tailSize = await this.getIncompletePartSize(id);
     if (lease && this.leases.get(id) === lease) this.seen.set(id, { lease, parts, tailSize });
-    const offset = parts.reduce((sum, p) => sum + (p.Size ?? 0), 0) + (tailSize ?? 0);
-    return new Upload({ ...metadata.file, offset });
+    return new Upload({ ...metadata.file, offset: viewOffset({ parts, tailSize }) });
   }
 
   /**
@@ -150,9 +182,11 @@ export class TusS3Store extends S3Store {
    * the tail (under the minimum part size, so at most 5 MiB) read into memory rather than a temp file.
    */
   override async write(src: Readable, id: string, offset: number): Promise<number> {
+    const lease = this.leases.get(id);
     const seen = this.seen.get(id);
+    // Whatever this write does in S3, the view before it is gone; a write that ends well leaves the next one.
     this.seen.delete(id);
-    const known = seen && this.leases.get(id) === seen.lease ? seen : null;
+    const known = seen && lease === seen.lease ? seen : null;
     const metadata = await this.getMetadata(id);
     const parts = known?.parts ?? (await this.retrieveParts(id));
     const nextPartNumber = (parts.at(-1)?.PartNumber ?? 0) + 1;
@@ -162,13 +196,19 @@ export class TusS3Store extends S3Store {
     const tailBytes = tail?.length ?? 0;
     // With no tail in front, the body's declared length is the stream's: its parts can be streamed.
     const length = tail ? undefined : declaredBodyLength();
-    const uploaded = await this.uploadParts(metadata, source, nextPartNumber, offset - tailBytes, length);
+    const record: WriteRecord = { parts: [], tailSize: undefined };
+    const uploaded = await this.uploadParts(metadata, source, nextPartNumber, offset - tailBytes, length, record);
     const newOffset = offset + uploaded - tailBytes;
     if (metadata.file.size === newOffset) {
       await this.finishMultipartUpload(metadata, await this.retrieveParts(id));
       await this.completeMetadata(metadata.file);
       await this.clearCache(id);
+      return newOffset;
     }
+    const byNumber = (a: Part, b: Part) => (a.PartNumber ?? 0) - (b.PartNumber ?? 0);
+    const after: View = { parts: [...parts, ...record.parts.sort(byNumber)], tailSize: record.tailSize };
+    // Kept only when it adds up to the new offset: parts staged through @tus/s3-store's temp files go unrecorded.
+    if (lease && this.leases.get(id) === lease && viewOffset(after) === newOffset) this.seen.set(id, { lease, ...after });
     return newOffset;
   }
 
@@ -176,6 +216,7 @@ export class TusS3Store extends S3Store {
   override async remove(id: string): Promise<void> {
     this.chains.delete(id);
     this.seen.delete(id);
+    this.stamped.delete(id);
     await super.remove(id);
     await this.client.deleteObjects({ Bucket: this.bucket, Delete: { Objects: [{ Key: this.partKey(id, true) }, { Key: digestKey(id) }], Quiet: true } });
   }
@@ -187,16 +228,16 @@ export class TusS3Store extends S3Store {
    * of the parts S3 did store. An upload whose previous PATCH ran on another process has no chain here,
    * and its finish reads the object back.
    */
-  protected override async uploadParts(metadata: MetadataValue, readStream: Readable, currentPartNumber: number, offset: number, length?: number): Promise<number> {
+  protected override async uploadParts(metadata: MetadataValue, readStream: Readable, currentPartNumber: number, offset: number, length?: number, record?: WriteRecord): Promise<number> {
     const id = metadata.file.id;
     const partSize = this.calcOptimalPartSize(metadata.file.size);
     const start = this.chainAt(id, offset, currentPartNumber - 1);
-    if (!start) return this.sendParts(metadata, readStream, currentPartNumber, offset, partSize, length);
+    if (!start) return this.sendParts(metadata, readStream, currentPartNumber, offset, partSize, length, record);
     const tap = new PartDigestTap(start, partSize);
     let uploaded: number;
     try {
       // pipeline() carries an aborted request's error on to the tap, so the splitter behind it fails as it would have.
-      uploaded = await this.sendParts(metadata, pipeline(readStream, tap, () => {}), currentPartNumber, offset, partSize, length);
+      uploaded = await this.sendParts(metadata, pipeline(readStream, tap, () => {}), currentPartNumber, offset, partSize, length, record);
     } catch (err) {
       const stored = await this.retrieveParts(id).catch(() => null);
       if (stored) this.keep(id, tap.chainAfter(start, metadata.file.size, this.minPartSize, stored.map((p) => p.ETag)));
@@ -211,9 +252,9 @@ export class TusS3Store extends S3Store {
    * @tus/s3-store 2.0.7 uploadParts for which piece becomes a part (at least the minimum part size, or the
    * upload's last) and which the tail. Parts too large for the budget go through its temp files.
    */
-  private async sendParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number, length?: number): Promise<number> {
+  private async sendParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number, length?: number, record?: WriteRecord): Promise<number> {
     const size = metadata.file.size;
-    if (length !== undefined && (size === undefined || offset + length <= size)) return this.streamParts(metadata, stream, firstPart, offset, partSize, length);
+    if (length !== undefined && (size === undefined || offset + length <= size)) return this.streamParts(metadata, stream, firstPart, offset, partSize, length, record);
     const inFlight = Math.floor(PART_MEMORY_BYTES / partSize) - 1;
     if (inFlight < 1) return super.uploadParts(metadata, stream, firstPart, offset);
     const { id } = metadata.file;
@@ -221,9 +262,12 @@ export class TusS3Store extends S3Store {
     let uploaded = 0;
     const splitter = new PartSplitter(pool, inFlight, async (bytes, start) => {
       if (bytes.length >= this.minPartSize || offset + start + bytes.length === size) {
-        await this.uploadPart(metadata, bytes, firstPart + start / partSize);
+        const PartNumber = firstPart + start / partSize;
+        const ETag = await this.uploadPart(metadata, bytes, PartNumber);
+        record?.parts.push({ PartNumber, ETag, Size: bytes.length });
       } else {
         await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
+        if (record) record.tailSize = bytes.length;
       }
       uploaded += bytes.length;
     });
@@ -244,23 +288,32 @@ export class TusS3Store extends S3Store {
    * short drops the part it was filling (a streamed one's UploadPart is aborted), so S3 keeps only whole
    * parts and the upload's offset is the sum of what it kept; the write then fails as a cut-off request does.
    */
-  private async streamParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number, length: number): Promise<number> {
+  private async streamParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number, length: number, record?: WriteRecord): Promise<number> {
     const { id, size } = metadata.file;
     const isPart = (start: number, bytes: number) => bytes >= this.minPartSize || offset + start + bytes === size;
     let uploaded = 0;
     const streamed = async (body: Readable, start: number, bytes: number, abortSignal: AbortSignal) => {
       if (isPart(start, bytes)) {
         const UploadId = metadata['upload-id'];
-        await this.streamClient.uploadPart({ Bucket: this.bucket, Key: id, UploadId, PartNumber: firstPart + start / partSize, Body: body, ContentLength: bytes }, { abortSignal });
+        const PartNumber = firstPart + start / partSize;
+        const { ETag } = await this.streamClient.uploadPart({ Bucket: this.bucket, Key: id, UploadId, PartNumber, Body: body, ContentLength: bytes }, { abortSignal });
+        record?.parts.push({ PartNumber, ETag, Size: bytes });
       } else {
         const Tagging = this.useCompleteTag('false');
         await this.streamClient.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: body, ContentLength: bytes, Tagging }, { abortSignal });
+        if (record) record.tailSize = bytes;
       }
       uploaded += bytes;
     };
     const buffered = async (bytes: Buffer, start: number) => {
-      if (isPart(start, bytes.length)) await this.uploadPart(metadata, bytes, firstPart + start / partSize);
-      else await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
+      if (isPart(start, bytes.length)) {
+        const PartNumber = firstPart + start / partSize;
+        const ETag = await this.uploadPart(metadata, bytes, PartNumber);
+        record?.parts.push({ PartNumber, ETag, Size: bytes.length });
+      } else {
+        await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
+        if (record) record.tailSize = bytes.length;
+      }
       uploaded += bytes.length;
     };
     // Parts larger than the pool's (uploads above about 11 GiB) are all streamed.
@@ -333,4 +386,9 @@ export class TusS3Store extends S3Store {
 async function* prepend(head: Buffer, rest: Readable): AsyncGenerator<Buffer> {
   yield head;
   for await (const chunk of rest) yield chunk as Buffer;
+}
+
+/** The upload's offset by a view: its parts and its tail. */
+function viewOffset(view: View): number {
+  return view.parts.reduce((sum, p) => sum + (p.Size ?? 0), 0) + (view.tailSize ?? 0);
 }

@@ -20,7 +20,7 @@ export function createTusServer(store: ClipStore, lockPool: LockPool): Server {
   const server = new Server({
     path: UPLOAD_PATH,
     datastore: store.tus,
-    locker: new PgLocker(lockPool, { onAcquired: (id) => store.uploadLocked(id), onReleasing: (id) => store.uploadUnlocked(id) }),
+    locker: new PgLocker(lockPool, { onAcquired: (id, marks) => store.uploadLocked(id, marks), onReleasing: (id) => store.uploadUnlocked(id) }),
     relativeLocation: true,
     maxSize: maxUploadBytes(),
     // Ids are the server's own; the user's file name never becomes a path.

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { Lock, Locker, RequestRelease } from '@tus/server';
 import type pg from 'pg';
 import { tusError } from './tus-errors';
@@ -8,12 +9,26 @@ export type LockPool = pg.Pool;
 
 const NAMESPACE = 0x6b657266;
 
+/**
+ * An upload's mark when this process took its lock (`previous`; null when it had none) and the new one
+ * it set (`current`). A process that stamps what it knows of the upload with `current` at release and
+ * finds that same mark as `previous` at its next lock knows no other process held the lock in between.
+ */
+export type LockMarks = { previous: string | null; current: string };
+
+// Under the advisory lock, so no other process reads or writes the row between the two statements' views.
+const REMARK = `
+  with old as (select mark from upload_marks where upload_id = $1)
+  insert into upload_marks (upload_id, mark) values ($1, $2)
+  on conflict (upload_id) do update set mark = excluded.mark, marked_at = now()
+  returning (select mark from old) as previous`;
+
 export type PgLockerOptions = {
   /** How long a request waits for another request on the same upload, in any process (default 30 s, as @tus/server's MemoryLocker). */
   timeoutMs?: number;
   pollMs?: number;
-  /** Runs once the lock is held, before the request touches the upload. */
-  onAcquired?: (uploadId: string) => Promise<void>;
+  /** Runs once the lock is held, before the request touches the upload, with the upload's marks. */
+  onAcquired?: (uploadId: string, marks: LockMarks) => Promise<void>;
   /** Runs just before the lock is given up, while no other process can have it yet. */
   onReleasing?: (uploadId: string) => void;
 };
@@ -79,7 +94,9 @@ class PgLock implements Lock {
     }
     this.client = client;
     try {
-      await this.options.onAcquired?.(this.id);
+      const current = randomUUID();
+      const { rows } = await client.query<{ previous: string | null }>(REMARK, [this.id, current]);
+      await this.options.onAcquired?.(this.id, { previous: rows[0]?.previous ?? null, current });
     } catch (err) {
       await this.unlock();
       throw err;

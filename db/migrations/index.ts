@@ -16,6 +16,7 @@ import * as clipsSha256Index from './20261219000000_clips_sha256_index';
 import * as shoppingBoardTicks from './20261220000000_shopping_board_ticks';
 import * as onHandStock from './20261221000000_on_hand_stock';
 import * as hardwoodBoardWidths from './20261222000000_hardwood_board_widths';
+import * as uploadMarks from './20261223000000_upload_marks';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -39,6 +40,7 @@ const migrations: Record<string, Migration> = {
   '20261220000000_shopping_board_ticks': shoppingBoardTicks,
   '20261221000000_on_hand_stock': onHandStock,
   '20261222000000_hardwood_board_widths': hardwoodBoardWidths,
+  '20261223000000_upload_marks': uploadMarks,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

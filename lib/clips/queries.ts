@@ -220,6 +220,15 @@ export async function uploadIdsInUse(uploadIds: string[]): Promise<Set<string>> 
   return new Set(rows.map((r) => r.upload_id));
 }
 
+/**
+ * Drops the upload marks (storage/upload-lock-queries.ts) of `uploadIds` and of every upload whose lock
+ * nobody took since `before`. A process trusts what it last saw of an upload only while the mark is the
+ * one it left; without a row the next PATCH asks S3 again, so dropping one is always safe.
+ */
+export async function removeUploadMarks(uploadIds: string[], before: Date): Promise<void> {
+  await db('upload_marks').whereIn('upload_id', uploadIds).orWhere('marked_at', '<', before).delete();
+}
+
 // Media jobs: claimed with SKIP LOCKED; a claim older than STALE_CLAIM is a worker that died mid-job.
 const STALE_CLAIM = "interval '10 minutes'";
 export type ClipJob = { id: string; clipId: string; uploadId: string; mimeType: string; attempts: number };

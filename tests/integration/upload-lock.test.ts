@@ -1,7 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import pg from 'pg';
 import { afterAll, describe, expect, it } from 'vitest';
-import { PgLocker } from '@/storage/upload-lock-queries';
+import { removeUploadMarks } from '@/lib/clips/queries';
+import { PgLocker, type LockMarks } from '@/storage/upload-lock-queries';
 
 // Two pools stand for two app processes: each holds its own PostgreSQL sessions.
 const pools = [0, 1].map(() => new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 }));
@@ -81,5 +82,40 @@ describe('PostgreSQL upload locks', () => {
     expect(seen).toEqual([upload]);
     await lock.unlock();
     await expect(lock.unlock()).rejects.toThrow(/not held/);
+  });
+
+  it('gives each hold a new mark and the one before it, whichever process held the lock last', async () => {
+    const upload = id();
+    const marks: LockMarks[] = [];
+    const record = async (_u: string, m: LockMarks) => void marks.push(m);
+    const [a, b] = pools.map((pool) => new PgLocker(pool, { onAcquired: record })) as [PgLocker, PgLocker];
+    for (const locker of [a, a, b, a]) {
+      const lock = locker.newLock(upload);
+      await lock.lock(never(), noop);
+      await lock.unlock();
+    }
+    expect(marks[0]?.previous).toBeNull();
+    // Each hold learns the mark the hold before it set, so a process that finds its own last mark knows no other process came between.
+    marks.slice(1).forEach((m, i) => expect(m.previous).toBe(marks[i]?.current));
+    expect(new Set(marks.map((m) => m.current)).size).toBe(4);
+  });
+
+  it('forgets the marks of removed uploads and of uploads not locked since a time, so their next hold starts afresh', async () => {
+    const [removed, idle, busy] = [id(), id(), id()];
+    const marks = new Map<string, LockMarks>();
+    const locker = new PgLocker(pools[0]!, { onAcquired: async (u, m) => void marks.set(u, m) });
+    const take = async (u: string) => {
+      const lock = locker.newLock(u);
+      await lock.lock(never(), noop);
+      await lock.unlock();
+    };
+    for (const u of [removed, idle, busy]) await take(u);
+    // The idle upload's lock was last taken an hour ago; the cut-off is a minute ago.
+    await pools[0]!.query("update upload_marks set marked_at = now() - interval '1 hour' where upload_id = $1", [idle]);
+    await removeUploadMarks([removed], new Date(Date.now() - 60_000));
+    for (const u of [removed, idle, busy]) await take(u);
+    expect(marks.get(removed)?.previous).toBeNull();
+    expect(marks.get(idle)?.previous).toBeNull();
+    expect(marks.get(busy)?.previous).not.toBeNull();
   });
 });

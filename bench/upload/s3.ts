@@ -16,6 +16,7 @@
 // --runs N repeats 1 and 2 N times, interleaved so a change in the machine's load hits both alike, and prints
 // each run's ratios with the load average, then the median and the spread; --no-pairs skips 4.
 import './bench-env';
+import { execFileSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -136,7 +137,11 @@ async function main() {
     type Run = { tusMs: number; sdk4Ms: number; sdk1Ms: number; growth: number; load: number };
     const runs: Run[] = [];
     let base = 0;
+    // Each upload starts once the one before is on disk: Swift's writes of the last 1 GiB otherwise flush
+    // during whichever upload comes next, and that upload pays for them.
+    const settle = () => execFileSync('sync');
     for (let i = 0; i < RUNS; i++) {
+      settle();
       const load = os.loadavg()[0] ?? 0;
       const t0 = performance.now();
       const from = Date.now();
@@ -149,7 +154,9 @@ async function main() {
         console.log(`  run ${i + 1} memory growth (peaks, MiB): rss ${mib(memory.rss)} = V8 heap ${mib(memory.heapTotal)} (used ${mib(memory.heapUsed)}) + outside the heap ${mib(memory.external)} (Buffers ${mib(memory.arrayBuffers)}) + the rest about ${mib(rest)}`);
       }
       base = rss.base;
+      settle();
       const sdk4Ms = await sdkMultipart(client, settings.bucket, src, 4);
+      settle();
       const sdk1Ms = await sdkMultipart(client, settings.bucket, src, 1);
       runs.push({ tusMs, sdk4Ms, sdk1Ms, growth: rss.growth, load });
       if (RUNS > 1) {

@@ -52,6 +52,8 @@ type Lease = { mark: string };
 type Seen = View & { lease: Lease };
 /** What one write sent: its parts, in any order, and the tail it left. */
 type WriteRecord = { parts: Part[]; tailSize: number | undefined };
+/** Where one write's pieces go: its first part number, the upload offset it starts at, its part size, what it records. */
+type WriteAt = { metadata: MetadataValue; firstPart: number; offset: number; partSize: number; record?: WriteRecord };
 
 /**
  * @tus/s3-store with the Content-MD5 fix on its own client, a way to drop one upload from its cache,
@@ -257,18 +259,11 @@ export class TusS3Store extends S3Store {
     if (length !== undefined && (size === undefined || offset + length <= size)) return this.streamParts(metadata, stream, firstPart, offset, partSize, length, record);
     const inFlight = Math.floor(PART_MEMORY_BYTES / partSize) - 1;
     if (inFlight < 1) return super.uploadParts(metadata, stream, firstPart, offset);
-    const { id } = metadata.file;
     const pool = partSize === this.pool.partSize ? this.pool : new PartBufferPool(partSize, inFlight + 1);
+    const at: WriteAt = { metadata, firstPart, offset, partSize, record };
     let uploaded = 0;
     const splitter = new PartSplitter(pool, inFlight, async (bytes, start) => {
-      if (bytes.length >= this.minPartSize || offset + start + bytes.length === size) {
-        const PartNumber = firstPart + start / partSize;
-        const ETag = await this.uploadPart(metadata, bytes, PartNumber);
-        record?.parts.push({ PartNumber, ETag, Size: bytes.length });
-      } else {
-        await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
-        if (record) record.tailSize = bytes.length;
-      }
+      await this.sendHeld(at, bytes, start);
       uploaded += bytes.length;
     });
     let failure: unknown = null;
@@ -289,11 +284,11 @@ export class TusS3Store extends S3Store {
    * parts and the upload's offset is the sum of what it kept; the write then fails as a cut-off request does.
    */
   private async streamParts(metadata: MetadataValue, stream: Readable, firstPart: number, offset: number, partSize: number, length: number, record?: WriteRecord): Promise<number> {
-    const { id, size } = metadata.file;
-    const isPart = (start: number, bytes: number) => bytes >= this.minPartSize || offset + start + bytes === size;
+    const { id } = metadata.file;
+    const at: WriteAt = { metadata, firstPart, offset, partSize, record };
     let uploaded = 0;
     const streamed = async (body: Readable, start: number, bytes: number, abortSignal: AbortSignal) => {
-      if (isPart(start, bytes)) {
+      if (this.isPart(at, start, bytes)) {
         const UploadId = metadata['upload-id'];
         const PartNumber = firstPart + start / partSize;
         const { ETag } = await this.streamClient.uploadPart({ Bucket: this.bucket, Key: id, UploadId, PartNumber, Body: body, ContentLength: bytes }, { abortSignal });
@@ -306,14 +301,7 @@ export class TusS3Store extends S3Store {
       uploaded += bytes;
     };
     const buffered = async (bytes: Buffer, start: number) => {
-      if (isPart(start, bytes.length)) {
-        const PartNumber = firstPart + start / partSize;
-        const ETag = await this.uploadPart(metadata, bytes, PartNumber);
-        record?.parts.push({ PartNumber, ETag, Size: bytes.length });
-      } else {
-        await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
-        if (record) record.tailSize = bytes.length;
-      }
+      await this.sendHeld(at, bytes, start);
       uploaded += bytes.length;
     };
     // Parts larger than the pool's (uploads above about 11 GiB) are all streamed.
@@ -328,6 +316,27 @@ export class TusS3Store extends S3Store {
     });
     if (failure) throw failure;
     return uploaded;
+  }
+
+  /**
+   * Whether the piece of `bytes` at `start` of a write becomes a part: at least the minimum part size, or the
+   * upload's last bytes; otherwise it is the new tail (Source: @tus/s3-store 2.0.7 uploadParts, the same rule).
+   */
+  private isPart(at: WriteAt, start: number, bytes: number): boolean {
+    return bytes >= this.minPartSize || at.offset + start + bytes === at.metadata.file.size;
+  }
+
+  /** Sends a piece held in memory as its part, or as the upload's tail, and records what it sent. */
+  private async sendHeld(at: WriteAt, bytes: Buffer, start: number): Promise<void> {
+    const { metadata, firstPart, partSize, record } = at;
+    if (this.isPart(at, start, bytes.length)) {
+      const PartNumber = firstPart + start / partSize;
+      const ETag = await this.uploadPart(metadata, bytes, PartNumber);
+      record?.parts.push({ PartNumber, ETag, Size: bytes.length });
+    } else {
+      await this.client.putObject({ Bucket: this.bucket, Key: this.partKey(metadata.file.id, true), Body: bytes, Tagging: this.useCompleteTag('false') });
+      if (record) record.tailSize = bytes.length;
+    }
   }
 
   /** The tail a previous PATCH left (`<id>.part`), or undefined. */

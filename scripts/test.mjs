@@ -14,7 +14,17 @@ import { databaseUrl, ensureDataRoot, ensurePostgres, recreateDatabase, runDbSet
 import { ROOT, childEnv, log, run, warn } from './lib/proc.mjs';
 import { randomSecret } from './lib/secret.mjs';
 import { ensureSwift } from './lib/swift.mjs';
-import { addCounts, emptyCounts, playwrightCounts, runnerCounts, summaryLine, vitestCounts } from './lib/summary.mjs';
+import {
+  addCounts,
+  emptyCounts,
+  playwrightCounts,
+  playwrightFailures,
+  readJsonReport,
+  runnerCounts,
+  summaryLine,
+  vitestCounts,
+  vitestFailures,
+} from './lib/summary.mjs';
 
 const args = process.argv.slice(2);
 const UNIT_ONLY = args.includes('--unit');
@@ -30,6 +40,7 @@ const bin = (rel) => path.join(ROOT, 'node_modules', rel);
 
 const total = emptyCounts();
 const failedSteps = [];
+const failedTests = [];
 
 function fail(step, count = 1) {
   failedSteps.push(step);
@@ -106,7 +117,11 @@ async function vitest(env, projects, report, extraArgs = []) {
   const counts = runnerCounts(report, vitestCounts, result.code);
   if (counts.missing) warn('Vitest wrote no report: counted as 1 failed');
   addCounts(total, counts);
-  if (counts.failed) failedSteps.push('vitest');
+  if (counts.failed) {
+    failedSteps.push('vitest');
+    const json = readJsonReport(report);
+    if (json) failedTests.push(...vitestFailures(json, ROOT));
+  }
 }
 
 async function build(env) {
@@ -124,7 +139,11 @@ async function e2e(env) {
   const counts = runnerCounts(PLAYWRIGHT_REPORT, playwrightCounts, result.code);
   if (counts.missing) warn('Playwright wrote no report: counted as 1 failed');
   addCounts(total, counts);
-  if (counts.failed) failedSteps.push('playwright');
+  if (counts.failed) {
+    failedSteps.push('playwright');
+    const report = readJsonReport(PLAYWRIGHT_REPORT);
+    if (report) failedTests.push(...playwrightFailures(report));
+  }
 }
 
 async function install() {
@@ -169,6 +188,7 @@ async function main() {
 
 async function finish(code) {
   await teardown();
+  if (failedTests.length) process.stdout.write(`\nFailed tests:\n${failedTests.map((t) => `  ${t}`).join('\n')}\n`);
   if (failedSteps.length) process.stdout.write(`\nFailed: ${failedSteps.join(', ')}\n`);
   process.stdout.write(`${summaryLine(total)}\n`);
   process.exit(code || (total.failed > 0 ? 1 : 0));

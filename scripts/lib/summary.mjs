@@ -61,6 +61,50 @@ export function addCounts(total, counts) {
   return total;
 }
 
+// CI keeps only the tail of the output, so each failure is named again there on one short line.
+const ANSI = new RegExp(`${String.fromCharCode(27)}\\[[0-9;]*m`, 'g');
+const clip = (line, max) => (line.length > max ? `${line.slice(0, max - 1)}…` : line);
+/** The error's first line, and a property test's counterexample, which is what reproduces it. */
+const firstLine = (messages) => {
+  const lines = String((messages ?? [])[0] ?? '').replace(ANSI, '').split('\n');
+  const first = clip(lines.find((l) => l.trim()) ?? '', 240);
+  const example = lines.find((l) => l.startsWith('Counterexample:') || l.startsWith('{ seed:'));
+  const seed = lines.find((l) => l.startsWith('{ seed:'));
+  const counter = lines.find((l) => l.startsWith('Counterexample:'));
+  return example ? [first, seed, counter && clip(counter, 600)].filter(Boolean).join(' ') : first;
+};
+
+/** Vitest's json reporter: "file › full name — first line of the error" for every failed test and unloaded file. */
+export function vitestFailures(report, root) {
+  const out = [];
+  for (const file of report.testResults ?? []) {
+    const name = root ? file.name.replace(`${root}/`, '') : file.name;
+    const failed = (file.assertionResults ?? []).filter((a) => a.status === 'failed');
+    for (const a of failed) out.push(`${name} › ${a.fullName} — ${firstLine(a.failureMessages)}`);
+    if (file.status === 'failed' && failed.length === 0) out.push(`${name} (did not run) — ${firstLine([file.message])}`);
+  }
+  return out;
+}
+
+/** Playwright's json reporter: "file › title — first line of the error" for every test that failed every try. */
+export function playwrightFailures(report) {
+  const out = [];
+  const walk = (suite, parents) => {
+    // The outermost suites are the spec files; their title is the file name, already printed.
+    const titles = suite.title && !suite.title.endsWith('.ts') ? [...parents, suite.title] : parents;
+    for (const spec of suite.specs ?? []) {
+      for (const test of spec.tests ?? []) {
+        if (test.status !== 'unexpected') continue;
+        const last = (test.results ?? []).at(-1);
+        out.push(`${spec.file} › ${[...titles, spec.title].join(' › ')} — ${firstLine([last?.error?.message])}`);
+      }
+    }
+    for (const child of suite.suites ?? []) walk(child, titles);
+  };
+  for (const suite of report.suites ?? []) walk(suite, []);
+  return out;
+}
+
 export function summaryLine({ passed, failed, skipped }) {
   const line = `${passed} passed, ${failed} failed`;
   return skipped > 0 ? `${line}, ${skipped} skipped` : line;

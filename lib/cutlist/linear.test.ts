@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { firstFitDecreasing, martelloTothL2, planLinearCuts, type LinearCutPlan, type LinearCutRequest } from '.';
 import { bruteForceCost } from './testing/brute-force';
-import { rng } from './random';
+import { manyPiecesRequest } from './testing/hard-requests';
 
 const EPS = 1e-6;
 
@@ -291,26 +291,8 @@ describe('planLinearCuts: properties', () => {
 });
 
 describe('planLinearCuts: time limit (issue 12)', () => {
-  // The same 160 pieces on every run.
-  /** 46 part lengths to the 1/16 in, 160 pieces, three board lengths: before the fix this took 3–6 s at timeLimitMs 0. */
-  function hardRequest(): LinearCutRequest {
-    const r = rng(5);
-    const kinds = 5 + Math.floor(r() * 60);
-    const parts = Array.from({ length: kinds }, (_, i) => ({ id: `p${i}`, length: Math.round((6 + r() * 60) * 16) / 16, quantity: 1 }));
-    for (let n = kinds; n < 160; n++) {
-      const p = parts[Math.floor(r() * kinds)];
-      if (p) p.quantity++;
-    }
-    const stock = [
-      { id: 's96', length: 96, price: 8 + Math.floor(r() * 4) },
-      { id: 's120', length: 120, price: 11 + Math.floor(r() * 4) },
-      { id: 's144', length: 144, price: 14 + Math.floor(r() * 3) },
-    ];
-    return { kerf: 0.125, endTrim: 0.5, parts, stock, timeLimitMs: 0 };
-  }
-
   it('returns a complete plan of 160 pieces soon after timeLimitMs 0', () => {
-    const req = hardRequest();
+    const req = manyPiecesRequest(0);
     expect(req.parts.reduce((a, p) => a + p.quantity, 0)).toBe(160);
     planLinearCuts(req); // warm-up: the first call also pays for compiling the planner
     const started = performance.now();
@@ -319,9 +301,9 @@ describe('planLinearCuts: time limit (issue 12)', () => {
     expectValidPlan(req, plan);
     expect(plan.unplaced).toEqual([]);
     expect(plan.boards.reduce((a, b) => a + b.cuts.length, 0)).toBe(160);
-    // Goal timeLimitMs + 50 ms (about 15 ms measured warm); the bound is generous because the test
-    // shares two cores with other suites, yet far below the seconds the search took before.
-    expect(elapsed).toBeLessThan(500);
+    // Only tells a search that stops from the 3–6 s one before the fix; how close calls keep to their
+    // limit (goal timeLimitMs + 50 ms) is measured by bench/cutlist/deadline.ts, not asserted here.
+    expect(elapsed).toBeLessThan(2_000);
   });
 });
 

@@ -34,9 +34,10 @@ describe('cut plans on the worker pool', () => {
     expect(res.status).toBe(200);
     expect((res.json.whole as { groups: unknown[] }).groups).toHaveLength(8);
     // The plan itself takes about its whole budget; the loop never waits more than a fraction of it.
-    // (With the planners on the request thread the longest gap was the plan's whole time.)
+    // With the planners on the request thread the longest gap was the request's whole time, so the
+    // bound is relative to it and holds however slow a loaded machine makes both.
     expect(took).toBeGreaterThan(EPISODE_BUDGET_MS / 2);
-    expect(longestGap).toBeLessThan(EPISODE_BUDGET_MS / 3);
+    expect(longestGap).toBeLessThan(took / 3);
   });
 
   it(`answers 429 with Retry-After once ${PLANS_PER_CHANNEL} different plans of one channel are running`, async () => {

@@ -161,11 +161,10 @@ async function putPulledBack(
 /** Which of the episodes, cut records and people the copies name still exist (in this channel). */
 async function existingRefs(trx: Knex.Transaction, channelId: string, copies: PulledRow[]) {
   const ids = (pick: (c: PulledRow) => string | null) => [...new Set(copies.flatMap((c) => (pick(c) ? [pick(c)!] : [])))];
-  const [episodes, records, users] = await Promise.all([
-    trx('episodes').where({ channel_id: channelId }).whereIn('id', ids((c) => c.episodeId)).pluck('id'),
-    trx('cut_records').where({ channel_id: channelId }).whereIn('id', ids((c) => c.cutRecordId)).pluck('id'),
-    trx('users').whereIn('id', ids((c) => c.createdBy)).pluck('id'),
-  ]);
+  // One after another: a transaction's queries share its one connection.
+  const episodes = await trx('episodes').where({ channel_id: channelId }).whereIn('id', ids((c) => c.episodeId)).pluck('id');
+  const records = await trx('cut_records').where({ channel_id: channelId }).whereIn('id', ids((c) => c.cutRecordId)).pluck('id');
+  const users = await trx('users').whereIn('id', ids((c) => c.createdBy)).pluck('id');
   return { episodes: new Set<string>(episodes), records: new Set<string>(records), users: new Set<string>(users) };
 }
 

@@ -209,6 +209,32 @@ describe('take back cuts done', () => {
     expect(await cutCount(part.id)).toBe(0);
   });
 
+  it('racing another episode’s cuts that would pull its kept offcut: one of the two has it, never both', async () => {
+    const c = await makeCrew();
+    const stock = await addSpf(c);
+    const first = await episodeWith(c, stock.id, 3, 32);
+    const kept = await markDone(c, first.episode.id, stock.id);
+    const second = await episodeWith(c, stock.id, 1, 20, 'Rail');
+    const [back, done] = await Promise.all([
+      takeBack(c, first.episode.id, kept.id),
+      call(doneRoute.POST, 'POST', { as: c.host, params: { channel: c.channel.slug, episodeId: second.episode.id }, body: { stockItemId: stock.id } }),
+    ]);
+    expect(done.status).toBe(200);
+    const pulled = (done.json.record as CutRecordDto).plan.pulled;
+    if (back.status === 200) {
+      // Taken back first: the offcut left the rack, so the rail's board is bought.
+      expect(pulled).toEqual([]);
+      expect(await recordIds(first.episode.id)).toEqual([]);
+    } else {
+      // The rail's cuts pulled the offcut first: the take-back is refused and changes nothing.
+      expect(back.status).toBe(409);
+      expect(pulled).toHaveLength(1);
+      expect(await recordIds(first.episode.id)).toEqual([kept.id]);
+      expect(await cutCount(first.part.id)).toBe(3);
+    }
+    expect((await onHandRows(c)).filter((r) => r.cut_record_id === kept.id)).toEqual([]);
+  });
+
   it('is 404 for an unknown record, a record of another episode, another channel’s record, and a malformed id', async () => {
     const c = await makeCrew();
     const other = await makeCrew();

@@ -1,24 +1,51 @@
 'use client';
 
+import { useEffect, useRef } from 'react';
 import { Badge } from '@/components/ui/badge';
 import { offcutSize, type CutRecordDto } from '@/lib/cut-plans/cut-records';
+import { newestRecordIds } from '@/lib/cut-plans/take-back';
 import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
 import { money } from './cut-plan-view';
+import { TakeBackCuts, type TakeBack } from './take-back-cuts';
 
 // UTC, so the server's render and the browser's agree.
 const day = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 
+type Props = {
+  records: CutRecordDto[];
+  unit: 'in' | 'mm';
+  /** "Take back" on the newest record of each stock item, for those who may mark cuts done. */
+  takeBack?: TakeBack | undefined;
+  /** What the last "Take back" did; shown here even when it took back the last record. */
+  note?: string | undefined;
+};
+
 /** What an episode's "Mark these cuts done" recorded: per stock item, what was cut, pulled, bought and kept. */
-export function CutRecords({ records, unit }: { records: CutRecordDto[]; unit: 'in' | 'mm' }) {
-  if (records.length === 0) return null;
+export function CutRecords({ records, unit, takeBack, note }: Props) {
+  // After "Take back" the record (and the button that had focus) is gone: focus moves to what it did.
+  const noteRef = useRef<HTMLParagraphElement>(null);
+  useEffect(() => {
+    if (note) noteRef.current?.focus();
+  }, [note]);
+  if (records.length === 0 && !note) return null;
   const fmt = (n: number) => formatLength(n, { unit });
+  // Each record was planned from what the ones before it left: only the newest of a stock item can go.
+  const newest = newestRecordIds(records);
   return (
     <section aria-labelledby="cuts-done-heading" className="space-y-3">
       <h2 id="cuts-done-heading" className="text-lg font-bold">
         Cuts done
       </h2>
-      <p className="text-sm text-ink-soft">These pieces are cut; the plan above covers only what is left.</p>
+      <p ref={noteRef} tabIndex={-1} role="status" className={note ? 'rounded-md bg-ok-soft px-4 py-2 text-sm text-ok' : 'sr-only'}>
+        {note}
+      </p>
+      {records.length > 0 ? (
+        <p className="text-sm text-ink-soft">
+          These pieces are cut; the plan above covers only what is left.
+          {takeBack ? ' Marked done by mistake? Take back the newest cuts done of a stock item; older ones wait until the newer are taken back.' : ''}
+        </p>
+      ) : null}
       <ul className="space-y-3">
         {records.map((r) => {
           const sheet = r.plan.stock.kind === 'sheet';
@@ -55,6 +82,7 @@ export function CutRecords({ records, unit }: { records: CutRecordDto[]; unit: '
                   ))}
                 </ol>
               </details>
+              {takeBack && newest.has(r.id) ? <TakeBackCuts record={r} takeBack={takeBack} /> : null}
             </li>
           );
         })}

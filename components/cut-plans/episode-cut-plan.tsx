@@ -6,12 +6,19 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ApiError, apiFetch } from '@/lib/api/client';
 import type { EpisodePlanDto } from '@/lib/cut-plans/queries';
-import type { ShoppingTickInput } from '@/lib/cut-plans/schemas';
+import type { ShoppingTickInput, TakeBackResult } from '@/lib/cut-plans/schemas';
 import { CutPlanView, money } from './cut-plan-view';
 import { CutRecords } from './cut-records';
+import type { TakeBack } from './take-back-cuts';
 import { SafetyNote } from './safety-note';
 import { channelApi } from '@/lib/api/paths';
 import { queryKeys } from '@/lib/api/query-keys';
+
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/** What a "Take back" did, in the numbers its confirmation promised. */
+const takenBackNote = (r: TakeBackResult, sheet: boolean) =>
+  `Cuts taken back: ${plural(r.piecesBack, sheet ? 'sheet is' : 'board is', sheet ? 'sheets are' : 'boards are')} back on the rack, ${plural(r.offcutsRemoved, 'kept offcut', 'kept offcuts')} removed, ${plural(r.piecesUnticked, 'piece', 'pieces')} unticked.`;
 
 type Props = { channelSlug: string; episodeId: string; levelLabels: string[]; canEdit: boolean; initial: EpisodePlanDto };
 
@@ -50,12 +57,16 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
     onSettled: () => client.invalidateQueries({ queryKey: key }),
   });
   const [doneNote, setDoneNote] = useState<string | undefined>();
+  const [takeBackNote, setTakeBackNote] = useState<string | undefined>();
+  const [refusal, setRefusal] = useState<TakeBack['refusal']>(null);
   const done = useMutation({
     mutationFn: (stockItemId: string) =>
       apiFetch<{ alreadyDone: boolean; keptPieces: number }>(channelApi(channelSlug, 'episodes', episodeId, 'cut-plan', 'done'), { method: 'POST', body: { stockItemId } }),
     onMutate: () => {
       setError(undefined);
       setDoneNote(undefined);
+      setTakeBackNote(undefined);
+      setRefusal(null);
     },
     onSuccess: (r) =>
       setDoneNote(
@@ -66,6 +77,30 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
     onError,
     // The rack changed too: pieces pulled are used up, kept offcuts are on hand.
     onSettled: () => Promise.all([client.invalidateQueries({ queryKey: key }), client.invalidateQueries({ queryKey: queryKeys.onHand(channelSlug) })]),
+  });
+  const takeBack = useMutation({
+    mutationFn: (recordId: string) => apiFetch<TakeBackResult>(channelApi(channelSlug, 'episodes', episodeId, 'cut-plan', 'done', recordId), { method: 'DELETE' }),
+    onMutate: () => {
+      setError(undefined);
+      setDoneNote(undefined);
+      setTakeBackNote(undefined);
+      setRefusal(null);
+    },
+    onSuccess: (r) => setTakeBackNote(takenBackNote(r, plan.data.records.find((x) => x.id === r.recordId)?.plan.stock.kind === 'sheet')),
+    // A refusal (newer cuts done, an offcut used or changed) belongs on the record it refused.
+    onError: (e, recordId) => {
+      const message = e instanceof ApiError ? e.message : 'Could not take the cuts back. Nothing was changed; try again.';
+      // 404: taken back already (by someone else); the record leaves the list, so say it above.
+      if (e instanceof ApiError && e.status === 404) setError(message);
+      else setRefusal({ recordId, message });
+    },
+    // The plan, the rack (pieces back, offcuts gone) and every cut list (pieces unticked) changed.
+    onSettled: () =>
+      Promise.all([
+        client.invalidateQueries({ queryKey: queryKeys.cutPlans() }),
+        client.invalidateQueries({ queryKey: queryKeys.onHand(channelSlug) }),
+        client.invalidateQueries({ queryKey: queryKeys.allParts() }),
+      ]),
   });
   const markCut = (partId: string, cutCount: number) => {
     setError(undefined);
@@ -145,7 +180,12 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
         emptyNote={data.records.length > 0 ? 'Every part with stock is cut: nothing left to buy or cut. What was cut is listed below.' : undefined}
         cutsDone={scope === 'whole' && canEdit ? { onDone: (id) => done.mutate(id), pendingStockId: done.isPending ? (done.variables ?? null) : null } : undefined}
       />
-      <CutRecords records={data.records} unit={data.lengthUnit} />
+      <CutRecords
+        records={data.records}
+        unit={data.lengthUnit}
+        note={takeBackNote}
+        takeBack={canEdit ? { onTakeBack: (id) => takeBack.mutate(id), pendingId: takeBack.isPending ? (takeBack.variables ?? null) : null, refusal } : undefined}
+      />
     </div>
   );
 }

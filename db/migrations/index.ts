@@ -17,6 +17,7 @@ import * as shoppingBoardTicks from './20261220000000_shopping_board_ticks';
 import * as onHandStock from './20261221000000_on_hand_stock';
 import * as hardwoodBoardWidths from './20261222000000_hardwood_board_widths';
 import * as uploadMarks from './20261223000000_upload_marks';
+import * as cutRecordPulledRows from './20261225000000_cut_record_pulled_rows';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -41,6 +42,7 @@ const migrations: Record<string, Migration> = {
   '20261221000000_on_hand_stock': onHandStock,
   '20261222000000_hardwood_board_widths': hardwoodBoardWidths,
   '20261223000000_upload_marks': uploadMarks,
+  '20261225000000_cut_record_pulled_rows': cutRecordPulledRows,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

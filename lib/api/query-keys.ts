@@ -23,6 +23,8 @@ export const queryKeys = {
   stock: (slug: string) => ['stock', slug] as const,
   onHand: (slug: string) => ['stock', slug, 'on-hand'] as const,
   parts: (segmentId: string) => ['parts', segmentId] as const,
+  /** Every segment's parts list (their cut counts change together when cuts done are taken back). */
+  allParts: () => ['parts'] as const,
   handoffs: (slug: string, episodeId: string) => ['handoffs', slug, episodeId] as const,
   versionNotes: (slug: string, episodeId: string, version: number) => ['handoffs', slug, episodeId, version, 'notes'] as const,
   clipNotes: (slug: string, clipId: string) => ['clip-notes', slug, clipId] as const,

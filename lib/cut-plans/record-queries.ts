@@ -8,6 +8,7 @@ import { getCutSettings, listStock } from '@/lib/stock/queries';
 import type { StockPlan } from './build';
 import { keptOffcuts, partsLeftToCut, piecesCutByRecords, type CutRecordDto } from './cut-records';
 import { computePlan } from './plan-pool';
+import type { PulledRow } from './schemas';
 
 // One stock item's plan, the size of a segment's: the same budget.
 const RECORD_BUDGET_MS = 1000;
@@ -31,6 +32,30 @@ export async function listSegmentCutRecords(channelId: string, segmentId: string
   const seg: { episode_id: string } | undefined = await db('segments').where({ id: segmentId }).first('episode_id');
   return seg ? listCutRecords(channelId, seg.episode_id) : [];
 }
+
+type LockedOnHandRow = {
+  id: string;
+  length_in: number;
+  width_in: number | null;
+  count: number;
+  source: PulledRow['source'];
+  episode_id: string | null;
+  cut_record_id: string | null;
+  created_by: string | null;
+  created_at: Date;
+};
+
+const toPulledRow = (o: LockedOnHandRow): PulledRow => ({
+  id: o.id,
+  lengthIn: o.length_in,
+  widthIn: o.width_in,
+  count: o.count,
+  source: o.source,
+  episodeId: o.episode_id,
+  cutRecordId: o.cut_record_id,
+  createdBy: o.created_by,
+  createdAt: o.created_at.toISOString(),
+});
 
 export type MarkCutsDoneResult = { record: CutRecordDto | null; alreadyDone: boolean; keptPieces: number };
 
@@ -64,11 +89,11 @@ export async function markCutsDone(channelId: string, episodeId: string, userId:
     if (parts.length === 0) throw conflict('No part of this episode is cut from that stock.');
     // Pressed twice, or by two people at once: the first press cut everything; this one changes nothing.
     if (left.length === 0) return { record: null, alreadyDone: true, keptPieces: 0 };
-    const onHand: { id: string; length_in: number; width_in: number | null; count: number }[] = await trx('on_hand_pieces')
+    const onHand: LockedOnHandRow[] = await trx('on_hand_pieces')
       .where({ channel_id: channelId, stock_item_id: stockItemId })
       .orderBy(['created_at', 'id'])
       .forUpdate()
-      .select('id', 'length_in', 'width_in', 'count');
+      .select('id', 'length_in', 'width_in', 'count', 'source', 'episode_id', 'cut_record_id', 'created_by', 'created_at');
     const { whole } = await computePlan(channelId, {
       parts: left,
       stock: [stock],
@@ -88,8 +113,11 @@ export async function markCutsDone(channelId: string, episodeId: string, userId:
       if (has === pull.count) await trx('on_hand_pieces').where({ id: pull.onHandId }).delete();
       else await trx('on_hand_pieces').where({ id: pull.onHandId }).update({ count: has - pull.count, updated_at: trx.fn.now() });
     }
+    // The pulled rows as locked, so "Take back" can put a used-up row back with its own id and provenance.
+    const pulledIds = new Set(plan.pulled.map((p) => p.onHandId));
+    const pulledRows: PulledRow[] = onHand.filter((o) => pulledIds.has(o.id)).map(toPulledRow);
     const [row] = await trx('cut_records')
-      .insert({ channel_id: channelId, episode_id: episodeId, stock_item_id: stockItemId, plan: JSON.stringify(plan), done_by: userId })
+      .insert({ channel_id: channelId, episode_id: episodeId, stock_item_id: stockItemId, plan: JSON.stringify(plan), pulled_rows: JSON.stringify(pulledRows), done_by: userId })
       .returning<{ id: string }[]>(['id']);
     if (!row) throw new Error('insert returned no row');
     const kept = keptOffcuts(plan);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { channelSlugSchema } from '@/lib/channels/schemas';
+import { onHandSources } from '@/lib/on-hand/schemas';
 
 export const episodePlanParamsSchema = z.object({ channel: channelSlugSchema, episodeId: z.uuid() });
 export const segmentPlanParamsSchema = z.object({ channel: channelSlugSchema, segmentId: z.uuid() });
@@ -21,3 +22,29 @@ export type ShoppingTickDto = { stockItemId: string; sizeKey: string; board: num
 /** "Mark these cuts done" for one stock item of an episode's plan. */
 export const markCutsDoneSchema = z.strictObject({ stockItemId: z.uuid({ error: 'Name the stock item.' }) });
 export type MarkCutsDoneInput = z.infer<typeof markCutsDoneSchema>;
+
+/** "Take back" a cut record: the record in the URL. A malformed id names nothing (404). */
+export const cutRecordParamsSchema = episodePlanParamsSchema.extend({ recordId: z.uuid() });
+
+/**
+ * An on-hand row a cut record pulled, as it was when "Mark these cuts done" locked it (cut_records.pulled_rows):
+ * what taking the record back needs to put a used-up row back with its own id and provenance.
+ * Read back through this schema, so a stored copy of another shape is never trusted.
+ */
+export const pulledRowSchema = z.strictObject({
+  id: z.uuid(),
+  lengthIn: z.number().positive(),
+  widthIn: z.number().positive().nullable(),
+  /** The row's count before the record pulled from it. */
+  count: z.number().int().min(1),
+  source: z.enum(onHandSources),
+  episodeId: z.uuid().nullable(),
+  cutRecordId: z.uuid().nullable(),
+  createdBy: z.uuid().nullable(),
+  createdAt: z.iso.datetime({ offset: true }),
+});
+export const pulledRowsSchema = z.array(pulledRowSchema);
+export type PulledRow = z.infer<typeof pulledRowSchema>;
+
+/** What "Take back" did, in the numbers its confirmation promised. */
+export type TakeBackResult = { recordId: string; piecesBack: number; offcutsRemoved: number; piecesUnticked: number };

@@ -5,7 +5,7 @@ import { StockRackPage } from './pages/stock-rack-page';
 const EPISODE = 'One Stool, Three Ways';
 const STARTER = 'Starter: pocket-screwed pine stool';
 
-test('a board on hand is pulled instead of bought, and marking the cuts done puts the offcut on hand', async ({ signedIn }, testInfo) => {
+test('a board on hand is pulled instead of bought, marking the cuts done puts the offcut on hand, and taking them back undoes it', async ({ signedIn }, testInfo) => {
   test.setTimeout(180_000);
   const species = `Hemlock ${Date.now().toString(36)}`;
   const stockName = `2x4 ${species}`;
@@ -60,6 +60,55 @@ test('a board on hand is pulled instead of bought, and marking the cuts done put
   // On a phone the section fits the screen: nothing runs off to the side.
   const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
   expect(overflow).toBeLessThanOrEqual(0);
+
+  // An editor reads the cuts done but cannot take them back (nor mark them).
+  const editorPage = await signedIn('editor');
+  const editorParts = new PartsPage(editorPage);
+  await editorParts.open(EPISODE, STARTER);
+  const editorPlan = await editorParts.openEpisodePlan();
+  await expect(editorPlan.cutsDone().getByText(stockName)).toBeVisible();
+  await expect(editorPlan.cutsDone().getByRole('button', { name: /Take back/ })).toHaveCount(0);
+  await expectAccessible(editorPage);
+
+  // Marked done by mistake: take it back. The confirmation says what will happen, in numbers.
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await parts.open(EPISODE, STARTER);
+  const again = await parts.openEpisodePlan();
+  // By keyboard: Enter opens the question with focus on Cancel; Cancel gives focus back to the button.
+  const takeBackButton = again.cutsDone().getByRole('button', { name: `Take back the cuts of ${stockName}` });
+  await takeBackButton.focus();
+  await page.keyboard.press('Enter');
+  await expect(again.cutsDone().getByRole('button', { name: 'Cancel' })).toBeFocused();
+  await page.keyboard.press('Enter');
+  await expect(takeBackButton).toBeFocused();
+  const confirm = await again.askTakeBack(stockName);
+  await expect(confirm).toContainText(
+    `Take back these cuts of ${stockName}? This puts 1 board back on the rack, removes the 1 offcut it kept from what is on hand and unticks 3 pieces on the cut list.`,
+  );
+  await expectAccessible(page);
+  await confirm.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('take-back-1280.png') });
+  await page.setViewportSize({ width: 375, height: 900 });
+  await confirm.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('take-back-375.png') });
+  expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+  expect(await again.confirmTakeBack(stockName)).toBe(200);
+  const result = again.cutsDone().getByRole('status');
+  await expect(result).toHaveText('Cuts taken back: 1 board is back on the rack, 1 kept offcut removed, 3 pieces unticked.');
+  await expect(result).toBeFocused();
+  await expect(again.cutsDone().getByText(stockName)).toHaveCount(0);
+  // The plan pulls the 9 ft board again, and its cuts can be marked done again.
+  await expect(again.stockGroup(stockName).getByRole('table', { name: `Pull from rack: ${stockName}` }).getByRole('row', { name: /108" 1 \$0\.00/ })).toBeVisible();
+  await expectAccessible(page);
+  await again.cutsDone().scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath('taken-back-375.png') });
+
+  // The board is on hand again, the offcut it kept is gone.
+  await rack.goto();
+  await expect(rack.onHandPiece(`1 × ${stockName}, 108"`)).toBeVisible();
+  await expect(rack.onHandPiece(`1 × ${stockName}, 108"`).getByText('Added by hand')).toBeVisible();
+  await expect(rack.onHandPiece(`${stockName}, 17 5/8"`)).toHaveCount(0);
+  await expectAccessible(page);
 });
 
 test('an editor sees what is on hand but cannot change it', async ({ signedIn }) => {

@@ -18,6 +18,7 @@ import * as scriptRoute from '@/app/api/channels/[channel]/segments/[segmentId]/
 import * as cutSettingsRoute from '@/app/api/channels/[channel]/cut-settings/route';
 import * as shoppingRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/shopping/route';
 import * as cutsDoneRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/cut-plan/done/route';
+import * as takeBackRoute from '@/app/api/channels/[channel]/episodes/[episodeId]/cut-plan/done/[recordId]/route';
 import * as onHandRoute from '@/app/api/channels/[channel]/on-hand/route';
 import * as onHandPieceRoute from '@/app/api/channels/[channel]/on-hand/[pieceId]/route';
 import * as partRoute from '@/app/api/channels/[channel]/parts/[partId]/route';
@@ -198,24 +199,27 @@ describe('a deeply nested body', () => {
 });
 
 describe('no body makes a 500 on a bodyless route (issue 12 items 14 and 16)', () => {
-  it('for starter, duplicate, restore and send to crew: whatever body and type, never a 500', async () => {
+  it('for starter, duplicate, restore, send to crew and take back cuts done: whatever body and type, never a 500', async () => {
     const ch = crew.channel.slug;
-    const runs: { name: string; fn: Parameters<typeof call>[0]; params: Record<string, string> }[] = [
-      { name: 'starter', fn: starterRoute.POST, params: { channel: ch, episodeId } },
-      { name: 'duplicate shot', fn: duplicateRoute.POST, params: { channel: ch, shotId } },
-      { name: 'restore shot', fn: restoreRoute.POST, params: { channel: ch, shotId } },
-      { name: 'send to crew', fn: shotMailRoute.POST, params: { channel: ch } },
+    // A record id that names nothing: the take-back route reads no body and answers 404, never a 500.
+    const recordId = '00000000-0000-4000-8000-000000000000';
+    const runs: { name: string; fn: Parameters<typeof call>[0]; method: string; params: Record<string, string> }[] = [
+      { name: 'starter', fn: starterRoute.POST, method: 'POST', params: { channel: ch, episodeId } },
+      { name: 'duplicate shot', fn: duplicateRoute.POST, method: 'POST', params: { channel: ch, shotId } },
+      { name: 'restore shot', fn: restoreRoute.POST, method: 'POST', params: { channel: ch, shotId } },
+      { name: 'send to crew', fn: shotMailRoute.POST, method: 'POST', params: { channel: ch } },
+      { name: 'take back cuts done', fn: takeBackRoute.DELETE, method: 'DELETE', params: { channel: ch, episodeId, recordId } },
     ];
     for (const t of runs) {
       await fc.assert(
         fc.asyncProperty(rawBody, contentType, async (body, type) => {
-          const res = await call(t.fn, 'POST', { as: crew.host, params: t.params, rawBody: body, headers: type ? { 'content-type': type } : {} });
+          const res = await call(t.fn, t.method, { as: crew.host, params: t.params, rawBody: body, headers: type ? { 'content-type': type } : {} });
           expect(res.status, `${t.name}: ${body}`).toBeLessThan(500);
         }),
         { numRuns: 10 },
       );
       // And from another site, refused before anything runs.
-      expect((await call(t.fn, 'POST', { as: crew.host, params: t.params, headers: { origin: 'https://evil.example' } })).status, t.name).toBe(403);
+      expect((await call(t.fn, t.method, { as: crew.host, params: t.params, headers: { origin: 'https://evil.example' } })).status, t.name).toBe(403);
     }
   });
 

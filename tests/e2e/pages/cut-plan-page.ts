@@ -88,6 +88,24 @@ export class CutPlanPage {
     expect((await saved).status()).toBe(200);
   }
 
+  /** The "Cuts done" list of the episode's cut records. */
+  cutsDone() {
+    return this.page.getByRole('region', { name: 'Cuts done' });
+  }
+
+  /** "Take back" on the newest cuts done of a stock item: opens the confirmation and returns it. */
+  async askTakeBack(stockName: string) {
+    await this.cutsDone().getByRole('button', { name: `Take back the cuts of ${stockName}` }).click();
+    return this.cutsDone().getByRole('group', { name: `Take back the cuts of ${stockName}` });
+  }
+
+  /** Confirms an open "Take back" and waits for the server's answer; returns its status. */
+  async confirmTakeBack(stockName: string) {
+    const answered = this.page.waitForResponse((r) => r.request().method() === 'DELETE' && r.url().includes('/cut-plan/done/'));
+    await this.cutsDone().getByRole('group', { name: `Take back the cuts of ${stockName}` }).getByRole('button', { name: 'Yes, take back' }).click();
+    return (await answered).status();
+  }
+
   async showLevel(level: number) {
     await this.page.getByRole('button', { name: new RegExp(`Level ${level}`) }).click();
   }

@@ -9,6 +9,11 @@ import { keptOffcuts, partsLeftToCut } from './cut-records';
 const spf: StockItemDto = { id: 'spf', kind: 'softwood', name: '2x4 SPF', species: 'SPF', nominal: '2x4', thicknessIn: 1.5, widthIn: 3.5, pricePerBoardFootCents: null, offers: [{ lengthIn: 96, priceCents: 448 }, { lengthIn: 120, priceCents: 620 }] };
 const oak: StockItemDto = { id: 'oak', kind: 'hardwood', name: '4/4 White oak', species: 'White oak', nominal: '4/4', thicknessIn: 1, widthIn: 6, pricePerBoardFootCents: 900, offers: [{ lengthIn: 96, priceCents: 0 }] };
 const ply: StockItemDto = { id: 'ply', kind: 'sheet', name: '3/4" Birch plywood', species: 'Birch plywood', nominal: '3/4', thicknessIn: 0.71875, widthIn: null, pricePerBoardFootCents: null, offers: [{ widthIn: 48, lengthIn: 96, priceCents: 6800 }] };
+/**
+ * Budget for every plan whose pulls or cost are the optimum: ends the search only if it hangs, never because
+ * the machine is busy. Each such plan is settled in milliseconds.
+ */
+const PROOF_LIMIT_MS = 20_000;
 const part = (p: Partial<PlanPart> & Pick<PlanPart, 'id' | 'lengthIn' | 'quantity' | 'stockItemId'>): PlanPart => ({ name: p.id, widthIn: null, thicknessIn: null, grain: 'any', ...p });
 
 /** The properties every plan with stock on hand keeps, whatever the planner (crosscut, rips, sheets). */
@@ -37,7 +42,7 @@ const lengths = (min: number, max: number) => fc.integer({ min: min * 8, max: ma
 describe('buildCutPlan with stock on hand', () => {
   it('pulls a board on hand instead of buying one, and its shopping list counts only what is bought', () => {
     const onHand: OnHandStock[] = [{ id: 'a', stockItemId: 'spf', lengthIn: 70, widthIn: null, count: 1 }];
-    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 30, quantity: 4, stockItemId: 'spf' })], [spf], DEFAULT_CUT_SETTINGS, 300, onHand);
+    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 30, quantity: 4, stockItemId: 'spf' })], [spf], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS, onHand);
     const group = plan.groups[0]!;
     expectPullsValid(group, onHand);
     // Two legs from the 70" piece on hand, two from one 8 ft board bought.
@@ -62,7 +67,7 @@ describe('buildCutPlan with stock on hand', () => {
     };
     const onHand: OnHandStock[] = [{ id: 'w', stockItemId: 'walnut', lengthIn: 48, widthIn: null, count: 1 }];
     const parts = [part({ id: 'slat', lengthIn: 40, widthIn: 3, quantity: 2, stockItemId: 'walnut' }), part({ id: 'top', lengthIn: 40, widthIn: 6, quantity: 1, stockItemId: 'walnut' })];
-    const plan = buildCutPlan(parts, [walnut], DEFAULT_CUT_SETTINGS, 500, onHand);
+    const plan = buildCutPlan(parts, [walnut], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS, onHand);
     const group = plan.groups[0]!;
     expect(group.unplaced).toEqual([]);
     expectPullsValid(group, onHand);
@@ -79,20 +84,20 @@ describe('buildCutPlan with stock on hand', () => {
       { id: 'other', stockItemId: 'oak', lengthIn: 96, widthIn: null, count: 3 },
       { id: 'gone', stockItemId: 'spf', lengthIn: 96, widthIn: null, count: 0 },
     ];
-    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 30, quantity: 3, stockItemId: 'spf' })], [spf], DEFAULT_CUT_SETTINGS, 300, onHand);
+    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 30, quantity: 3, stockItemId: 'spf' })], [spf], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS, onHand);
     expect(plan.groups[0]?.pulled).toEqual([]);
     expect(plan.costCents).toBe(448);
   });
 
   it('pulls a sheet piece on hand and rips a hardwood board on hand', () => {
     const sheetHand: OnHandStock[] = [{ id: 's', stockItemId: 'ply', lengthIn: 40, widthIn: 30, count: 1 }];
-    const sheets = buildCutPlan([part({ id: 'side', lengthIn: 30, widthIn: 20, quantity: 1, stockItemId: 'ply' })], [ply], DEFAULT_CUT_SETTINGS, 300, sheetHand);
+    const sheets = buildCutPlan([part({ id: 'side', lengthIn: 30, widthIn: 20, quantity: 1, stockItemId: 'ply' })], [ply], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS, sheetHand);
     expectPullsValid(sheets.groups[0]!, sheetHand);
     expect(sheets.groups[0]?.pulled).toEqual([{ onHandId: 's', lengthIn: 40, widthIn: 30, count: 1 }]);
     expect(sheets.costCents).toBe(0);
     expect(sheets.groups[0]?.squareFeet).toBe(0);
     const oakHand: OnHandStock[] = [{ id: 'o', stockItemId: 'oak', lengthIn: 40, widthIn: null, count: 1 }];
-    const rips = buildCutPlan([part({ id: 'slat', lengthIn: 36, widthIn: 2, quantity: 2, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, 300, oakHand);
+    const rips = buildCutPlan([part({ id: 'slat', lengthIn: 36, widthIn: 2, quantity: 2, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS, oakHand);
     expectPullsValid(rips.groups[0]!, oakHand);
     expect(rips.costCents).toBe(0);
     expect(rips.groups[0]?.boards[0]?.strips?.length).toBe(2);

@@ -51,6 +51,12 @@ const ply: StockItemDto = {
   pricePerBoardFootCents: null,
   offers: [{ widthIn: 48, lengthIn: 96, priceCents: 6800 }],
 };
+/**
+ * Budget for every plan that asserts a proof, the optimum or a layout only the search finds: ends the search
+ * only if it hangs, never because the machine is busy. Each such plan is settled in milliseconds.
+ */
+const PROOF_LIMIT_MS = 20_000;
+
 const part = (p: Partial<PlanPart> & Pick<PlanPart, 'id' | 'lengthIn' | 'quantity' | 'stockItemId'>): PlanPart => ({
   name: p.id,
   widthIn: null,
@@ -62,7 +68,7 @@ const part = (p: Partial<PlanPart> & Pick<PlanPart, 'id' | 'lengthIn' | 'quantit
 describe('buildCutPlan', () => {
   it('buys five 10 ft 2x4s for fourteen 32" legs with a 1/8" kerf, and counts board feet on nominal size', () => {
     // Common practice, no published source: 3 pieces of 32" per 10 ft board with a 1/8" kerf.
-    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 32, quantity: 14, stockItemId: 'spf' })], [spf], DEFAULT_CUT_SETTINGS, 500);
+    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 32, quantity: 14, stockItemId: 'spf' })], [spf], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS);
     const group = plan.groups[0];
     expect(group?.purchase).toEqual([{ sizeKey: '120', lengthIn: 120, widthIn: null, count: 5, unitCents: 620, costCents: 3100 }]);
     // Source: USDA FPL Wood Handbook, board foot = 144 in³, on nominal 2x4 (softwood is tallied on nominal size).
@@ -100,7 +106,7 @@ describe('buildCutPlan', () => {
   });
 
   it('lays sheet parts out on the sheet and counts square feet', () => {
-    const plan = buildCutPlan([part({ id: 'side', lengthIn: 30, widthIn: 16, quantity: 4, stockItemId: 'ply', grain: 'length' })], [ply], DEFAULT_CUT_SETTINGS, 300);
+    const plan = buildCutPlan([part({ id: 'side', lengthIn: 30, widthIn: 16, quantity: 4, stockItemId: 'ply', grain: 'length' })], [ply], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS);
     const g = plan.groups[0];
     expect(g?.purchase[0]).toMatchObject({ sizeKey: '48x96', count: 1, costCents: 6800 });
     expect(g?.squareFeet).toBe(32);
@@ -116,7 +122,7 @@ describe('buildCutPlan', () => {
 
   it('rips narrow parts side by side from one hardwood board instead of one board each', () => {
     // 1 1/2" legs from a 6" board: 1.5 x 3 + 2 x (1/8" kerf + 1/16" jointing) = 4.875" <= 6", so three strips.
-    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 28, widthIn: 1.5, quantity: 4, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, 300);
+    const plan = buildCutPlan([part({ id: 'leg', lengthIn: 28, widthIn: 1.5, quantity: 4, stockItemId: 'oak' })], [oak], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS);
     const g = plan.groups[0];
     expect(g?.purchase[0]).toMatchObject({ count: 1, costCents: 3600 });
     const board = g?.boards[0];
@@ -146,7 +152,7 @@ describe('buildCutPlan', () => {
       // 4" x 8' = 1 x 4 x 96 / 144 = 2.667 bd ft = $26.67; two 2" strips need 2 + 1/8 + 1/16 + 2 = 4.1875" > 4",
       // so it holds one strip of two 40" slats: three boards, $80.01, $13.34 a slat.
       // 7 1/4" x 8' = 4.833 bd ft = $48.33; three strips take 6.375" <= 7 1/4": six slats on one board, $8.06 a slat.
-      const plan = buildCutPlan([part({ id: 'slat', lengthIn: 40, widthIn: 2, quantity: 6, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, 1000);
+      const plan = buildCutPlan([part({ id: 'slat', lengthIn: 40, widthIn: 2, quantity: 6, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS);
       const g = plan.groups[0];
       expect(g?.purchase).toEqual([{ sizeKey: '7.25x96', lengthIn: 96, widthIn: 7.25, count: 1, unitCents: 4833, costCents: 4833, boardFeetEach: 4.8333 }]);
       expect(g?.boards).toHaveLength(1);
@@ -158,7 +164,7 @@ describe('buildCutPlan', () => {
 
     it('buys the narrow short board when that is cheapest', () => {
       // Two 30" x 3" rails: one 3" strip of a 4" x 6' board (2 bd ft, $20.00) holds both (2 x 30 1/8" <= 72 1/8").
-      const plan = buildCutPlan([part({ id: 'rail', lengthIn: 30, widthIn: 3, quantity: 2, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, 1000);
+      const plan = buildCutPlan([part({ id: 'rail', lengthIn: 30, widthIn: 3, quantity: 2, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS);
       expect(plan.groups[0]?.purchase).toEqual([{ sizeKey: '4x72', lengthIn: 72, widthIn: 4, count: 1, unitCents: 2000, costCents: 2000, boardFeetEach: 2 }]);
       expect(plan.optimal).toBe(true);
     });
@@ -178,7 +184,7 @@ describe('buildCutPlan', () => {
     });
 
     it('gives a part with no width the narrowest board width, so it fits any board', () => {
-      const plan = buildCutPlan([part({ id: 'cleat', lengthIn: 60, quantity: 1, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, 500);
+      const plan = buildCutPlan([part({ id: 'cleat', lengthIn: 60, quantity: 1, stockItemId: 'ash' })], [ash], DEFAULT_CUT_SETTINGS, PROOF_LIMIT_MS);
       expect(plan.groups[0]?.purchase.map((p) => p.sizeKey)).toEqual(['4x72']);
       expect(plan.groups[0]?.boards[0]?.pieces[0]?.widthIn).toBe(4);
     });

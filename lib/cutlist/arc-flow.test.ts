@@ -14,12 +14,18 @@ import { chooserFor, greedy } from './heuristics';
 import { knapsack, unitOf, type Kind } from './knapsack';
 import { solvePatternLp } from './pattern-lp';
 
+/**
+ * Limit for every solve whose answer is asserted (a proof, a least cost, the duals fixing starts from): ends
+ * it only if it hangs, never because the machine is busy. These models are solved in milliseconds.
+ */
+const PROOF_LIMIT_MS = 20_000;
+
 /** The root LP's duals as the planner computes them (linear.ts): the bound reduced-cost fixing starts from. */
 function rootDuals(inst: Instance, kinds: readonly Kind[]): ReturnType<typeof dualBound> {
   const sizes = kinds.map((k) => k.size);
   const unit = unitOf(sizes);
   const maxCap = Math.max(0, ...inst.stocks.map((s) => s.cap));
-  const deadline = deadlineIn(5000);
+  const deadline = deadlineIn(PROOF_LIMIT_MS);
   const root = solvePatternLp(
     kinds.map((k) => k.pieces.length),
     inst.stocks.map((s) => ({ price: s.price, available: s.available })),
@@ -112,7 +118,7 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
         if (inst.unfit.length > 0 || inst.pieces.length === 0) return;
         expect(await waitForMipSolver()).toBe(true);
         const best = bruteForceCost(req);
-        const result = arcFlowSearch(inst, kindsOf(inst), null, deadlineIn(5000));
+        const result = arcFlowSearch(inst, kindsOf(inst), null, deadlineIn(PROOF_LIMIT_MS));
         expect(result).not.toBeNull();
         if (!result) return;
         if (best === null) {
@@ -141,8 +147,8 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
         const inst = new Instance(req);
         if (inst.unfit.length > 0 || inst.pieces.length === 0) return;
         expect(await waitForMipSolver()).toBe(true);
-        const plan = planLinearCuts({ ...req, timeLimitMs: 500 });
-        const result = arcFlowSearch(inst, kindsOf(inst), null, deadlineIn(5000));
+        const plan = planLinearCuts({ ...req, timeLimitMs: PROOF_LIMIT_MS });
+        const result = arcFlowSearch(inst, kindsOf(inst), null, deadlineIn(PROOF_LIMIT_MS));
         if (!plan.optimal || !result?.optimal || !result.best) return;
         expect(result.best.score.cost / SCALE).toBeCloseTo(plan.totalCost, 6);
         both++;
@@ -164,13 +170,13 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
         const kinds = kindsOf(inst);
         const duals = rootDuals(inst, kinds);
         const plain = plainPlan(inst, pref < inst.stocks.length ? pref : null);
-        const exact = arcFlowSearch(inst, kinds, null, deadlineIn(5000));
+        const exact = arcFlowSearch(inst, kinds, null, deadlineIn(PROOF_LIMIT_MS));
         const incumbents = [plain, ...(exact?.best ? [exact.best] : [])].filter((s) => s.score.unplaced === 0);
         for (const incumbent of incumbents) {
           const holding = buildArcFlow(inst, kinds, 1_000_000, { duals, target: incumbent.score.cost });
           expect(holding && graphHolds(holding, inst, kinds, incumbent)).toBe(true);
           expect(await waitForMipSolver()).toBe(true);
-          const result = arcFlowSearch(inst, kinds, incumbent, deadlineIn(5000), duals);
+          const result = arcFlowSearch(inst, kinds, incumbent, deadlineIn(PROOF_LIMIT_MS), duals);
           expect(result).not.toBeNull();
           if (!result || best === null) continue;
           // Never a bound above the least cost, whatever the incumbent.
@@ -192,10 +198,13 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
   }, 240_000);
 
   it('reduced-cost fixing keeps the least cost of lists too large for brute force, with far fewer columns', async () => {
+    // Up to 5 lengths of up to 4 pieces: HiGHS proves each in well under a second, also on a loaded machine.
+    // Lists of up to 7 x 6 took it seconds, some longer than the 10 s they had (one not proven in 16 s at
+    // load 12), and were skipped, so how many lists were compared hung on the machine's load.
     const lists = fc.record({
       kerf: fc.constantFrom(0, 1 / 8),
       parts: fc
-        .array(fc.record({ length: sixteenths(6, 50), quantity: fc.integer({ min: 1, max: 6 }) }), { minLength: 3, maxLength: 7 })
+        .array(fc.record({ length: sixteenths(6, 50), quantity: fc.integer({ min: 1, max: 4 }) }), { minLength: 3, maxLength: 5 })
         .map((ps) => ps.map((p, i) => ({ id: `p${i}`, ...p }))),
       available: fc.option(fc.integer({ min: 1, max: 6 }), { nil: undefined }),
     });
@@ -217,8 +226,9 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
         const kinds = kindsOf(inst);
         const full = buildArcFlow(inst, kinds, 1_000_000);
         expect(await waitForMipSolver()).toBe(true);
-        const exact = arcFlowSearch(inst, kinds, null, deadlineIn(10_000));
-        if (!full || !exact?.optimal || !exact.best) return;
+        const exact = arcFlowSearch(inst, kinds, null, deadlineIn(PROOF_LIMIT_MS));
+        expect(exact?.optimal).toBe(true);
+        if (!full || !exact?.best) return;
         const duals = rootDuals(inst, kinds);
         for (const incumbent of [plainPlan(inst, 1), plainPlan(inst, null), exact.best]) {
           // The fixing lemma itself: a plan costing at most the target keeps every arc of every board.
@@ -227,9 +237,9 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
           expect(await waitForMipSolver()).toBe(true);
           const fixed = buildArcFlow(inst, kinds, 1_000_000, { duals, target: incumbent.score.cost - 100_000 });
           if (fixed && fixed.model.numCols < full.model.numCols) smaller++;
-          const result = arcFlowSearch(inst, kinds, incumbent, deadlineIn(10_000), duals);
-          if (!result?.optimal) continue;
-          expect((result.best ?? incumbent).score.cost).toBe(exact.best.score.cost);
+          const result = arcFlowSearch(inst, kinds, incumbent, deadlineIn(PROOF_LIMIT_MS), duals);
+          expect(result?.optimal).toBe(true);
+          expect((result?.best ?? incumbent).score.cost).toBe(exact.best.score.cost);
           runs++;
         }
       }),
@@ -253,7 +263,7 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
     const kinds = kindsOf(inst);
     const g = buildArcFlow(inst, kinds);
     expect(g).not.toBeNull();
-    const result = arcFlowSearch(inst, kinds, null, deadlineIn(5000));
+    const result = arcFlowSearch(inst, kinds, null, deadlineIn(PROOF_LIMIT_MS));
     expect(result?.optimal).toBe(true);
     expect(result?.best?.bins.length).toBe(2);
     expect(result?.best?.score.cost).toBe(10 * SCALE);
@@ -314,8 +324,10 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
       abandoned = solveMip(g.model, deadlineIn(30)) === null;
     }
     expect(abandoned, 'HiGHS answered every 30 ms solve of the large model in time').toBe(true);
-    // Without the wait the solver is still busy and the small model gets no answer at all.
-    const next = solveMip(h.model, deadlineIn(4000));
+    // Without the wait the solver is still busy and the small model gets no answer at all. The wait is a
+    // quarter of this solve's time, so that time is long: HiGHS stops 18–190 ms after being told (mip.ts),
+    // and a busier machine must not turn the wait into a skip.
+    const next = solveMip(h.model, deadlineIn(PROOF_LIMIT_MS));
     expect(next?.optimal).toBe(true);
   });
 });
@@ -342,7 +354,7 @@ describe.runIf(mipAvailable())('pattern integer program (HiGHS)', () => {
       { stock: 0, counts: [0, 1] },
       { stock: 0, counts: [0, 1] },
     ];
-    const picked = solvePatternMip([4, 2], stocks, pool, incumbent, deadlineIn(5000));
+    const picked = solvePatternMip([4, 2], stocks, pool, incumbent, deadlineIn(PROOF_LIMIT_MS));
     expect(picked).not.toBeNull();
     const cost = (picked ?? []).reduce((a, p) => a + (stocks[p.stock]?.price ?? 0), 0);
     // [2,2] on stock 1 plus one [2,0]: 12, cheaper than the incumbent's 20 and than three stock-0 boards (15).

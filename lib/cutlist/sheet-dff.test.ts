@@ -4,6 +4,8 @@ import { planSheetCuts, type SheetCutRequest } from '.';
 import { dffSheetBound, type DffPiece, type DffSheet } from './sheet-dff';
 
 const M = 1_000_000; // micro-inches, as the planner counts
+/** Limit for a call that asserts a proof: ends the search only if it hangs, never because the machine is busy. */
+const PROOF_LIMIT_MS = 20_000;
 const fitsSheet = (p: DffPiece, s: DffSheet) => (p.gw <= s.gw && p.gl <= s.gl) || (p.rotatable && p.gl <= s.gw && p.gw <= s.gl);
 
 describe('dffSheetBound: worked cases', () => {
@@ -37,7 +39,8 @@ describe('planSheetCuts with the stronger bound', () => {
       kerf: 0,
       parts: [{ id: 'door', width: 60, length: 40, quantity: 11, grain: 'length' }],
       stock: [{ id: 'ply', width: 100, length: 100, price: 10 }],
-      timeLimitMs: 300,
+      // Proven in milliseconds; at 300 ms the proof hung on how busy the machine was.
+      timeLimitMs: PROOF_LIMIT_MS,
     };
     const plan = planSheetCuts(req);
     expect(plan.sheets).toHaveLength(6);

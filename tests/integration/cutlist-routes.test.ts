@@ -170,15 +170,27 @@ describe('stock rack', () => {
       widthIn: 7.25,
       offers: [{ widthIn: 4, lengthIn: 72, priceCents: 0 }, { widthIn: 4, lengthIn: 96, priceCents: 0 }, { widthIn: 7.25, lengthIn: 96, priceCents: 0 }],
     });
-    const { episode, segments } = await makeOutlinedEpisode(c);
-    const build = segments.find((s) => s.level === 2)!;
-    const add = await call(partsRoute.POST, 'POST', { as: c.shopHand, params: { channel: c.channel.slug, segmentId: build.id }, body: { name: 'Slat', quantity: 6, lengthIn: '40', widthIn: '2', stockItemId: item.id } });
-    expect(add.status).toBe(201);
-    const plan = await episodePlan(c, episode.id);
     // Source: USDA FPL Wood Handbook, 144 in³ a board foot. Three 4" x 8' boards (one 2" strip each) would be
     // $80.01; one 7 1/4" x 8' (4.83 bd ft, $48.33) takes three 2" strips of two slats.
-    expect(plan.whole.groups[0]?.purchase).toEqual([{ sizeKey: '7.25x96', lengthIn: 96, widthIn: 7.25, count: 1, unitCents: 4833, costCents: 4833, boardFeetEach: 4.8333 }]);
-    expect(plan.whole.optimal).toBe(true);
+    const leastCents = 4833;
+    const slatEpisode = async () => {
+      const { episode, segments } = await makeOutlinedEpisode(c);
+      const build = segments.find((s) => s.level === 2)!;
+      const add = await call(partsRoute.POST, 'POST', { as: c.shopHand, params: { channel: c.channel.slug, segmentId: build.id }, body: { name: 'Slat', quantity: 6, lengthIn: '40', widthIn: '2', stockItemId: item.id } });
+      expect(add.status).toBe(201);
+      return { episode, plan: await episodePlan(c, episode.id) };
+    };
+    // The route plans within EPISODE_BUDGET_MS. This list is proven in milliseconds, but the rips planner
+    // proves nothing before its LP, so a loaded machine can stop it first; that plan is still valid (never
+    // below the least cost, its bound never above it). Plans are kept by their inputs, so a new episode asks again.
+    let { episode, plan } = await slatEpisode();
+    for (let tries = 1; !plan.whole.optimal && tries < 5; tries++) {
+      expect(plan.whole.groups[0]?.costCents).toBeGreaterThanOrEqual(leastCents);
+      expect(plan.whole.groups[0]?.lowerBoundCents).toBeLessThanOrEqual(leastCents);
+      ({ episode, plan } = await slatEpisode());
+    }
+    expect(plan.whole.optimal, 'no plan of the slats was proven within the route’s budget in 5 tries').toBe(true);
+    expect(plan.whole.groups[0]?.purchase).toEqual([{ sizeKey: '7.25x96', lengthIn: 96, widthIn: 7.25, count: 1, unitCents: 4833, costCents: leastCents, boardFeetEach: 4.8333 }]);
     // The tick names the board by width and length.
     const tick = await call(shoppingRoute.PUT, 'PUT', { as: c.shopHand, params: { channel: c.channel.slug, episodeId: episode.id }, body: { stockItemId: item.id, sizeKey: '7.25x96', board: 1, bought: true } });
     expect(tick.status).toBe(200);

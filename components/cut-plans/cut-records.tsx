@@ -63,7 +63,7 @@ export function CutRecords({ records, unit, takeBack, note }: Props) {
                 </span>
               </p>
               <p className="mt-1 text-sm">
-                {pieces} {pieces === 1 ? 'piece' : 'pieces'} from {r.plan.boards.length} {sheet ? 'sheets' : 'boards'}: {pulled} pulled from the rack, {r.plan.boards.length - pulled} bought ({money(r.plan.costCents)}).{' '}
+                {pieces} {pieces === 1 ? 'piece' : 'pieces'} from {r.plan.boards.length} {sheet ? (r.plan.boards.length === 1 ? 'sheet' : 'sheets') : r.plan.boards.length === 1 ? 'board' : 'boards'}: {pulled} pulled from the rack, {r.plan.boards.length - pulled} bought ({money(r.plan.costCents)}).{' '}
                 {kept.length > 0 ? (
                   <>
                     Kept on hand: <span className="font-mono">{kept.map((b) => offcutSize(b, fmt)).join(', ')}</span>.

@@ -67,6 +67,7 @@ test('a board on hand is pulled instead of bought, marking the cuts done puts th
   await editorParts.open(EPISODE, STARTER);
   const editorPlan = await editorParts.openEpisodePlan();
   await expect(editorPlan.cutsDone().getByText(stockName)).toBeVisible();
+  await expect(editorPlan.cutsDone().getByText(/3 pieces from 1 board: 1 pulled from the rack/)).toBeVisible();
   await expect(editorPlan.cutsDone().getByRole('button', { name: /Take back/ })).toHaveCount(0);
   await expectAccessible(editorPage);
 

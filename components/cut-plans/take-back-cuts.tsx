@@ -45,6 +45,12 @@ export function TakeBackCuts({ record, takeBack }: { record: CutRecordDto; takeB
   }, [asking]);
   const pending = takeBack.pendingId === record.id;
   const refusal = takeBack.refusal?.recordId === record.id ? takeBack.refusal.message : null;
+  // The confirmation that had focus is gone by the time a refusal comes back: focus goes to the refusal,
+  // so a keyboard user is not left at the top of the page.
+  const refusalRef = useRef<HTMLParagraphElement>(null);
+  useEffect(() => {
+    if (refusal) refusalRef.current?.focus();
+  }, [refusal]);
   const name = record.plan.stock.name;
   return (
     <div className="mt-3 print:hidden">
@@ -73,7 +79,7 @@ export function TakeBackCuts({ record, takeBack }: { record: CutRecordDto; takeB
         </button>
       )}
       {refusal ? (
-        <p role="alert" className="mt-2 rounded-md border-l-4 border-attention bg-attention-soft px-3 py-2 text-sm text-attention-ink">
+        <p ref={refusalRef} tabIndex={-1} role="alert" className="mt-2 rounded-md border-l-4 border-attention bg-attention-soft px-3 py-2 text-sm text-attention-ink">
           {refusal}
         </p>
       ) : null}

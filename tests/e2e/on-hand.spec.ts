@@ -71,8 +71,24 @@ test('a board on hand is pulled instead of bought, marking the cuts done puts th
   await expect(editorPlan.cutsDone().getByRole('button', { name: /Take back/ })).toHaveCount(0);
   await expectAccessible(editorPage);
 
-  // Marked done by mistake: take it back. The confirmation says what will happen, in numbers.
+  // Marked done by mistake: take it back. While the offcut it kept is not on hand as kept, it is refused,
+  // the refusal takes the focus, and nothing changes.
   await page.setViewportSize({ width: 1280, height: 900 });
+  await rack.goto();
+  await rack.setOnHandCount(stockName, '17 5/8"', '2');
+  await parts.open(EPISODE, STARTER);
+  const refused = await parts.openEpisodePlan();
+  await refused.askTakeBack(stockName);
+  expect(await refused.confirmTakeBack(stockName)).toBe(409);
+  const refusal = refused.cutsDone().getByRole('alert');
+  await expect(refusal).toHaveText(`These cuts of ${stockName} cannot be taken back: the 17 5/8" offcut they kept was changed on hand: 1 kept, 2 on hand now. Nothing was changed.`);
+  await expect(refusal).toBeFocused();
+  await expect(refused.cutsDone().getByText(stockName)).toBeVisible();
+  await expectAccessible(page);
+  await rack.goto();
+  await rack.setOnHandCount(stockName, '17 5/8"', '1');
+
+  // With the offcut as kept, the confirmation says what will happen, in numbers.
   await parts.open(EPISODE, STARTER);
   const again = await parts.openEpisodePlan();
   // By keyboard: Enter opens the question with focus on Cancel; Cancel gives focus back to the button.

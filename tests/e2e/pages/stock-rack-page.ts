@@ -59,6 +59,15 @@ export class StockRackPage {
     expect((await saved).status()).toBe(201);
   }
 
+  /** Changes the count of one on-hand line (`2x4 SPF`, `108"`) with Edit count, and waits for the server. */
+  async setOnHandCount(stockName: string, size: string, count: string) {
+    await this.onHand().getByRole('button', { name: `Change count of ${stockName} ${size}` }).click();
+    await this.onHand().getByLabel('How many').fill(count);
+    const saved = this.page.waitForResponse((r) => r.request().method() === 'PATCH' && r.url().includes('/on-hand/'));
+    await this.onHand().getByRole('button', { name: 'Save count' }).click();
+    expect((await saved).status()).toBe(200);
+  }
+
   /** One on-hand line by what it says, e.g. `1 × 2x4 SPF, 108"`. */
   onHandPiece(text: string | RegExp) {
     return this.onHand().getByRole('listitem').filter({ hasText: text });

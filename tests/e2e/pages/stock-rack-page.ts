@@ -61,10 +61,11 @@ export class StockRackPage {
 
   /** Changes the count of one on-hand line (`2x4 SPF`, `108"`) with Edit count, and waits for the server. */
   async setOnHandCount(stockName: string, size: string, count: string) {
-    await this.onHand().getByRole('button', { name: `Change count of ${stockName} ${size}` }).click();
-    await this.onHand().getByLabel('How many').fill(count);
+    const line = this.onHandPiece(`${stockName}, ${size}`);
+    await line.getByRole('button', { name: `Change count of ${stockName} ${size}` }).click();
+    await line.getByLabel('How many').fill(count);
     const saved = this.page.waitForResponse((r) => r.request().method() === 'PATCH' && r.url().includes('/on-hand/'));
-    await this.onHand().getByRole('button', { name: 'Save count' }).click();
+    await line.getByRole('button', { name: 'Save count' }).click();
     expect((await saved).status()).toBe(200);
   }
 

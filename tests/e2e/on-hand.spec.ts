@@ -83,7 +83,7 @@ test('a board on hand is pulled instead of bought, marking the cuts done puts th
   const refusal = refused.cutsDone().getByRole('alert');
   await expect(refusal).toHaveText(`These cuts of ${stockName} cannot be taken back: the 17 5/8" offcut they kept was changed on hand: 1 kept, 2 on hand now. Nothing was changed.`);
   await expect(refusal).toBeFocused();
-  await expect(refused.cutsDone().getByText(stockName)).toBeVisible();
+  await expect(refused.cutsDone().getByText(stockName, { exact: true })).toBeVisible();
   await expectAccessible(page);
   await rack.goto();
   await rack.setOnHandCount(stockName, '17 5/8"', '1');

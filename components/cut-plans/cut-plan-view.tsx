@@ -8,6 +8,7 @@ import { BoardTicks, boughtOf, type Shopping } from './board-ticks';
 import { Fragment } from 'react';
 import { Badge } from '@/components/ui/badge';
 import { Stat } from '@/components/ui/stat';
+import { countOf } from '@/lib/text/count-of';
 import { MarkCutsDone, type CutsDone } from './mark-cuts-done';
 
 export const money = (cents: number) => `$${(cents / 100).toFixed(2)}`;
@@ -39,7 +40,7 @@ export function CutPlanView({ plan, unit, kerfIn, shopping, cutting, cutsDone, e
     <div className="space-y-6">
       <dl className={`grid grid-cols-2 gap-3 text-sm ${pulled > 0 ? 'sm:grid-cols-5' : 'sm:grid-cols-4'}`}>
         <Stat label="Stock to buy" value={money(plan.costCents)} />
-        {pulled > 0 ? <Stat label="Pull from rack" value={`${pulled} ${pulled === 1 ? 'piece' : 'pieces'}`} /> : null}
+        {pulled > 0 ? <Stat label="Pull from rack" value={countOf(pulled, 'piece', 'pieces')} /> : null}
         <Stat label="Board feet" value={plan.boardFeet.toFixed(2)} />
         <Stat label="Pieces" value={String(plan.pieceCount)} />
         <Stat label="Kerf" value={fmt(kerfIn)} />

@@ -4,6 +4,7 @@ import { useEffect, useRef } from 'react';
 import { Badge } from '@/components/ui/badge';
 import { offcutSize, type CutRecordDto } from '@/lib/cut-plans/cut-records';
 import { newestRecordIds } from '@/lib/cut-plans/take-back';
+import { countOf } from '@/lib/text/count-of';
 import { formatLength } from '@/lib/units';
 import { BoardDiagram } from './board-diagram';
 import { money } from './cut-plan-view';
@@ -63,7 +64,7 @@ export function CutRecords({ records, unit, takeBack, note }: Props) {
                 </span>
               </p>
               <p className="mt-1 text-sm">
-                {pieces} {pieces === 1 ? 'piece' : 'pieces'} from {r.plan.boards.length} {sheet ? (r.plan.boards.length === 1 ? 'sheet' : 'sheets') : r.plan.boards.length === 1 ? 'board' : 'boards'}: {pulled} pulled from the rack, {r.plan.boards.length - pulled} bought ({money(r.plan.costCents)}).{' '}
+                {countOf(pieces, 'piece', 'pieces')} from {sheet ? countOf(r.plan.boards.length, 'sheet', 'sheets') : countOf(r.plan.boards.length, 'board', 'boards')}: {pulled} pulled from the rack, {r.plan.boards.length - pulled} bought ({money(r.plan.costCents)}).{' '}
                 {kept.length > 0 ? (
                   <>
                     Kept on hand: <span className="font-mono">{kept.map((b) => offcutSize(b, fmt)).join(', ')}</span>.

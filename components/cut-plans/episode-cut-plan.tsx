@@ -13,12 +13,11 @@ import type { TakeBack } from './take-back-cuts';
 import { SafetyNote } from './safety-note';
 import { channelApi } from '@/lib/api/paths';
 import { queryKeys } from '@/lib/api/query-keys';
-
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+import { countOf } from '@/lib/text/count-of';
 
 /** What a "Take back" did, in the numbers its confirmation promised. */
 const takenBackNote = (r: TakeBackResult, sheet: boolean) =>
-  `Cuts taken back: ${plural(r.piecesBack, sheet ? 'sheet is' : 'board is', sheet ? 'sheets are' : 'boards are')} back on the rack, ${plural(r.offcutsRemoved, 'kept offcut', 'kept offcuts')} removed, ${plural(r.piecesUnticked, 'piece', 'pieces')} unticked.`;
+  `Cuts taken back: ${countOf(r.piecesBack, sheet ? 'sheet is' : 'board is', sheet ? 'sheets are' : 'boards are')} back on the rack, ${countOf(r.offcutsRemoved, 'kept offcut', 'kept offcuts')} removed, ${countOf(r.piecesUnticked, 'piece', 'pieces')} unticked.`;
 
 type Props = { channelSlug: string; episodeId: string; levelLabels: string[]; canEdit: boolean; initial: EpisodePlanDto };
 
@@ -72,7 +71,7 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
       setDoneNote(
         r.alreadyDone
           ? 'Those cuts were already marked done.'
-          : `Cuts recorded. ${r.keptPieces > 0 ? `${r.keptPieces} ${r.keptPieces === 1 ? 'offcut is' : 'offcuts are'} now on hand.` : 'No offcut was long enough to keep.'}`,
+          : `Cuts recorded. ${r.keptPieces > 0 ? `${countOf(r.keptPieces, 'offcut is', 'offcuts are')} now on hand.` : 'No offcut was long enough to keep.'}`,
       ),
     onError,
     // The rack changed too: pieces pulled are used up, kept offcuts are on hand.

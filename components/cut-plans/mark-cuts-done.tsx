@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import type { StockPlan } from '@/lib/cut-plans/build';
+import { countOf } from '@/lib/text/count-of';
 
 export type CutsDone = { onDone: (stockItemId: string) => void; pendingStockId: string | null };
 
@@ -29,9 +30,9 @@ export function MarkCutsDone({ group: g, cutsDone }: { group: StockPlan; cutsDon
   return (
     <div role="group" aria-label={`Mark the cuts of ${g.stock.name} done`} className="mt-4 rounded-md border border-ink/20 bg-paper-deep/60 p-3 text-sm print:hidden">
       <p>
-        All {pieces} {pieces === 1 ? 'piece' : 'pieces'} of {g.stock.name} cut?{' '}
-        {pulled > 0 ? `${pulled} ${pulled === 1 ? 'piece leaves' : 'pieces leave'} the rack. ` : ''}
-        {kept > 0 ? `${kept} ${kept === 1 ? 'offcut goes' : 'offcuts go'} on hand.` : 'No offcut is long enough to keep.'}
+        All {countOf(pieces, 'piece', 'pieces')} of {g.stock.name} cut?{' '}
+        {pulled > 0 ? `${countOf(pulled, 'piece leaves', 'pieces leave')} the rack. ` : ''}
+        {kept > 0 ? `${countOf(kept, 'offcut goes', 'offcuts go')} on hand.` : 'No offcut is long enough to keep.'}
       </p>
       <div className="mt-2 flex flex-wrap gap-2">
         <Button

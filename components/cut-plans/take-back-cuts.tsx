@@ -4,6 +4,7 @@ import { useEffect, useRef, useState } from 'react';
 import { Button, buttonClasses } from '@/components/ui/button';
 import type { CutRecordDto } from '@/lib/cut-plans/cut-records';
 import { takeBackSummary } from '@/lib/cut-plans/take-back';
+import { countOf } from '@/lib/text/count-of';
 
 export type TakeBack = {
   onTakeBack: (recordId: string) => void;
@@ -12,16 +13,14 @@ export type TakeBack = {
   refusal: { recordId: string; message: string } | null;
 };
 
-const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
-
 /** What taking a record back does, in numbers: "puts 2 boards back on the rack, removes the 1 offcut it kept, unticks 6 pieces". */
 export function takeBackSentence(record: Pick<CutRecordDto, 'plan'>): string {
   const s = takeBackSummary(record.plan);
   const sheet = record.plan.stock.kind === 'sheet';
   const parts = [
-    s.piecesBack > 0 ? `puts ${count(s.piecesBack, sheet ? 'sheet' : 'board', sheet ? 'sheets' : 'boards')} back on the rack` : 'puts nothing back on the rack (every board was bought)',
-    s.offcutsRemoved > 0 ? `removes the ${count(s.offcutsRemoved, 'offcut', 'offcuts')} it kept from what is on hand` : 'removes no offcut (none was kept)',
-    `unticks ${count(s.piecesUnticked, 'piece', 'pieces')} on the cut list`,
+    s.piecesBack > 0 ? `puts ${countOf(s.piecesBack, sheet ? 'sheet' : 'board', sheet ? 'sheets' : 'boards')} back on the rack` : 'puts nothing back on the rack (every board was bought)',
+    s.offcutsRemoved > 0 ? `removes the ${countOf(s.offcutsRemoved, 'offcut', 'offcuts')} it kept from what is on hand` : 'removes no offcut (none was kept)',
+    `unticks ${countOf(s.piecesUnticked, 'piece', 'pieces')} on the cut list`,
   ];
   return `${parts.slice(0, -1).join(', ')} and ${parts.at(-1)}`;
 }

@@ -2,9 +2,10 @@
 
 import { useId } from 'react';
 import { Button } from '@/components/ui/button';
+import { countOf } from '@/lib/text/count-of';
 import { useShotMail } from './use-shop-board';
 
-const emails = (n: number) => `${n} ${n === 1 ? 'e-mail' : 'e-mails'}`;
+const emails = (n: number) => countOf(n, 'e-mail', 'e-mails');
 
 function resultText({ sent, failed }: { sent: number; failed: number }): string {
   if (sent === 0 && failed === 0) return 'Nobody is waiting for an e-mail.';
@@ -12,7 +13,7 @@ function resultText({ sent, failed }: { sent: number; failed: number }): string 
   return parts.filter(Boolean).join(' ');
 }
 
-const waitingText = (n: number) => (n === 0 ? 'Nobody waiting for an e-mail' : `${n} ${n === 1 ? 'person' : 'people'} waiting for an e-mail`);
+const waitingText = (n: number) => (n === 0 ? 'Nobody waiting for an e-mail' : `${countOf(n, 'person', 'people')} waiting for an e-mail`);
 
 /** Host only: assignment e-mails go now instead of a few minutes after the last change. */
 export function SendToCrew({ slug, initialWaiting }: { slug: string; initialWaiting: number }) {

@@ -18,6 +18,7 @@ import { useShotActions } from './shot-actions';
 import { useBoardShots, useEpisodeSegments, type BoardData } from './use-shop-board';
 import { RetryAlert } from '@/components/ui/retry-alert';
 import { channelPage } from '@/lib/api/paths';
+import { countOf } from '@/lib/text/count-of';
 
 type Props = {
   slug: string;
@@ -139,7 +140,7 @@ export function ShopBoard({ slug, viewerName, canMove, shotMail, initial, episod
 }
 
 function countText(n: number, filtered: boolean): string {
-  const shots = `${n} ${n === 1 ? 'shot' : 'shots'}`;
+  const shots = countOf(n, 'shot', 'shots');
   return filtered ? `${shots} ${n === 1 ? 'matches' : 'match'} these filters.` : `${shots}.`;
 }
 

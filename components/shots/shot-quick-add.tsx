@@ -7,6 +7,7 @@ import { SelectField, TextField } from '@/components/ui/field';
 import { useFormMutation } from '@/components/ui/use-schema-form';
 import { cameraLabels, framingLabels, MAX_QUICK_ADD_LINES } from '@/lib/shots/catalog';
 import { parseShotLines, type QuickAddResult } from '@/lib/shots/quick-add';
+import { countOf } from '@/lib/text/count-of';
 import { TextArea, type CrewOption } from './shot-editor';
 import { useBulkAddShots, type BulkVariables } from './use-shots';
 
@@ -23,7 +24,7 @@ type Props = {
   onAdded: (count: number) => void;
 };
 
-const plural = (n: number) => `${n} ${n === 1 ? 'shot' : 'shots'}`;
+const plural = (n: number) => countOf(n, 'shot', 'shots');
 
 export function ShotQuickAdd({ channelSlug, segmentId, crew, draft, onDraft, onAdded }: Props) {
   const bulkAdd = useBulkAddShots(channelSlug, segmentId);

@@ -114,14 +114,18 @@ async function vitest(env, projects, report, extraArgs = []) {
   const vitestArgs = ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.relative(ROOT, report)}`, ...extraArgs];
   for (const project of projects) vitestArgs.push('--project', project);
   const result = await run(process.execPath, [bin('vitest/vitest.mjs'), ...vitestArgs], { env: toolEnv(env) });
-  const counts = runnerCounts(report, vitestCounts, result.code);
-  if (counts.missing) warn('Vitest wrote no report: counted as 1 failed');
+  tally('Vitest', report, result.code, vitestCounts, (json) => vitestFailures(json, ROOT));
+}
+
+/** Adds one runner's report to the total, and names its failed tests for the closing lines. */
+function tally(runner, file, exitCode, countsOf, failuresOf) {
+  const report = readJsonReport(file);
+  const counts = runnerCounts(report, countsOf, exitCode);
+  if (counts.missing) warn(`${runner} wrote no report: counted as 1 failed`);
   addCounts(total, counts);
-  if (counts.failed) {
-    failedSteps.push('vitest');
-    const json = readJsonReport(report);
-    if (json) failedTests.push(...vitestFailures(json, ROOT));
-  }
+  if (!counts.failed) return;
+  failedSteps.push(runner.toLowerCase());
+  if (report) failedTests.push(...failuresOf(report));
 }
 
 async function build(env) {
@@ -136,14 +140,7 @@ async function e2e(env) {
   const result = await run(process.execPath, [bin('@playwright/test/cli.js'), 'test'], {
     env: toolEnv({ ...env, E2E_PORT: String(E2E_PORT) }),
   });
-  const counts = runnerCounts(PLAYWRIGHT_REPORT, playwrightCounts, result.code);
-  if (counts.missing) warn('Playwright wrote no report: counted as 1 failed');
-  addCounts(total, counts);
-  if (counts.failed) {
-    failedSteps.push('playwright');
-    const report = readJsonReport(PLAYWRIGHT_REPORT);
-    if (report) failedTests.push(...playwrightFailures(report));
-  }
+  tally('Playwright', PLAYWRIGHT_REPORT, result.code, playwrightCounts, playwrightFailures);
 }
 
 async function install() {

@@ -42,12 +42,11 @@ export function playwrightCounts(report) {
 }
 
 /**
- * Counts for one runner from its report file. A missing or unreadable report (the runner crashed)
- * is 1 failed; so is a non-zero exit whose report shows no failed test (a suite that did not load,
- * a web server that did not start, an unhandled error).
+ * Counts for one runner from its parsed report (null: missing or unreadable, the runner crashed),
+ * which is 1 failed; so is a non-zero exit whose report shows no failed test (a suite that did not
+ * load, a web server that did not start, an unhandled error).
  */
-export function runnerCounts(file, countsOf, exitCode) {
-  const report = readJsonReport(file);
+export function runnerCounts(report, countsOf, exitCode) {
   if (!report) return { ...emptyCounts(), failed: 1, missing: true };
   const counts = countsOf(report);
   if (exitCode !== 0 && counts.failed === 0) counts.failed = 1;
@@ -68,10 +67,9 @@ const clip = (line, max) => (line.length > max ? `${line.slice(0, max - 1)}…` 
 const firstLine = (messages) => {
   const lines = String((messages ?? [])[0] ?? '').replace(ANSI, '').split('\n');
   const first = clip(lines.find((l) => l.trim()) ?? '', 240);
-  const example = lines.find((l) => l.startsWith('Counterexample:') || l.startsWith('{ seed:'));
   const seed = lines.find((l) => l.startsWith('{ seed:'));
   const counter = lines.find((l) => l.startsWith('Counterexample:'));
-  return example ? [first, seed, counter && clip(counter, 600)].filter(Boolean).join(' ') : first;
+  return [first, seed, counter && clip(counter, 600)].filter(Boolean).join(' ');
 };
 
 /** Vitest's json reporter: "file › full name — first line of the error" for every failed test and unloaded file. */

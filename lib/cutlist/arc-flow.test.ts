@@ -8,7 +8,7 @@ import { kindsOf } from './knapsack';
 import { mipAvailable, solveMip, waitForMipSolver } from './mip';
 import { solvePatternMip } from './pattern-mip';
 import { bruteForceCost } from './testing/brute-force';
-import { slowMipRequest } from './testing/hard-requests';
+import { slowMipRequest, thirtyLengths } from './testing/hard-requests';
 import { dualBound } from './bounds';
 import { chooserFor, greedy } from './heuristics';
 import { knapsack, unitOf, type Kind } from './knapsack';
@@ -303,13 +303,7 @@ describe.runIf(mipAvailable())('arc-flow integer program (HiGHS)', () => {
   });
 
   it('waits for a solve it told to stop before the next one, within a share of that one’s time', async () => {
-    let seed = 11;
-    const random = (): number => {
-      seed = (seed * 16807) % 2147483647;
-      return seed / 2147483647;
-    };
-    const parts = Array.from({ length: 30 }, (_, i) => ({ id: `p${i}`, length: Math.round((6 + random() * 80) * 16) / 16, quantity: 1 + Math.floor(random() * 10) }));
-    const big = new Instance({ kerf: 0.125, parts, stock: [{ id: 'a', length: 96, price: 4.5 }, { id: 'b', length: 144, price: 8.1 }] });
+    const big = new Instance({ kerf: 0.125, parts: thirtyLengths(11), stock: [{ id: 'a', length: 96, price: 4.5 }, { id: 'b', length: 144, price: 8.1 }] });
     const g = buildArcFlow(big, kindsOf(big), 1_000_000);
     const small = new Instance({ kerf: 0, parts: [{ id: 'a', length: 40, quantity: 3 }], stock: [{ id: 'x', length: 96, price: 5 }] });
     const h = buildArcFlow(small, kindsOf(small));

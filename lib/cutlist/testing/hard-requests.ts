@@ -22,17 +22,24 @@ export function manyPiecesRequest(timeLimitMs: number): LinearCutRequest {
   return { kerf: 0.125, endTrim: 0.5, parts, stock, timeLimitMs };
 }
 
-/** 30 part lengths, 1–10 of each, on three board lengths: HiGHS needs seconds on this list's arc-flow model. */
-export function slowMipRequest(): LinearCutRequest {
-  let seed = 7;
+/**
+ * 30 part lengths of 6–86 in to the 1/16 in, 1–10 of each, drawn by the Park–Miller generator (kept, not
+ * mulberry32, so the lists the arc-flow tests were written against stay the same).
+ */
+export function thirtyLengths(seed: number): LinearCutRequest['parts'] {
+  let s = seed;
   const random = (): number => {
-    seed = (seed * 16807) % 2147483647;
-    return seed / 2147483647;
+    s = (s * 16807) % 2147483647;
+    return s / 2147483647;
   };
-  const parts = Array.from({ length: 30 }, (_, i) => ({ id: `p${i}`, length: Math.round((6 + random() * 80) * 16) / 16, quantity: 1 + Math.floor(random() * 10) }));
+  return Array.from({ length: 30 }, (_, i) => ({ id: `p${i}`, length: Math.round((6 + random() * 80) * 16) / 16, quantity: 1 + Math.floor(random() * 10) }));
+}
+
+/** Thirty lengths on three board lengths: HiGHS needs seconds on this list's arc-flow model. */
+export function slowMipRequest(): LinearCutRequest {
   return {
     kerf: 0.125,
-    parts,
+    parts: thirtyLengths(7),
     stock: [
       { id: 'a', length: 96, price: 4.5 },
       { id: 'b', length: 120, price: 6.2 },

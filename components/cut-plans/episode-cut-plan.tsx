@@ -58,15 +58,17 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
   const [doneNote, setDoneNote] = useState<string | undefined>();
   const [takeBackNote, setTakeBackNote] = useState<string | undefined>();
   const [refusal, setRefusal] = useState<TakeBack['refusal']>(null);
+  // Marking done and taking back each answer in their own place; a new press clears what the last one said.
+  const clearMessages = () => {
+    setError(undefined);
+    setDoneNote(undefined);
+    setTakeBackNote(undefined);
+    setRefusal(null);
+  };
   const done = useMutation({
     mutationFn: (stockItemId: string) =>
       apiFetch<{ alreadyDone: boolean; keptPieces: number }>(channelApi(channelSlug, 'episodes', episodeId, 'cut-plan', 'done'), { method: 'POST', body: { stockItemId } }),
-    onMutate: () => {
-      setError(undefined);
-      setDoneNote(undefined);
-      setTakeBackNote(undefined);
-      setRefusal(null);
-    },
+    onMutate: clearMessages,
     onSuccess: (r) =>
       setDoneNote(
         r.alreadyDone
@@ -79,12 +81,7 @@ export function EpisodeCutPlan({ channelSlug, episodeId, levelLabels, canEdit, i
   });
   const takeBack = useMutation({
     mutationFn: (recordId: string) => apiFetch<TakeBackResult>(channelApi(channelSlug, 'episodes', episodeId, 'cut-plan', 'done', recordId), { method: 'DELETE' }),
-    onMutate: () => {
-      setError(undefined);
-      setDoneNote(undefined);
-      setTakeBackNote(undefined);
-      setRefusal(null);
-    },
+    onMutate: clearMessages,
     onSuccess: (r) => setTakeBackNote(takenBackNote(r, plan.data.records.find((x) => x.id === r.recordId)?.plan.stock.kind === 'sheet')),
     // A refusal (newer cuts done, an offcut used or changed) belongs on the record it refused.
     onError: (e, recordId) => {
